@@ -1,0 +1,47 @@
+package org.cardwright.fit;
+
+import java.util.List;
+import java.util.Optional;
+import org.cardwright.model.DiodeParameters;
+import org.cardwright.model.Param;
+
+/**
+ * Everything a fit produced: the parameter set for the card, per-parameter values and standard errors,
+ * correlations, chi-square, residuals per temperature, the optimiser's stopping reason, which optional terms
+ * went in, and plain-language warnings.
+ *
+ * @param parameters       the parameters for the card [SI]
+ * @param fitted           every parameter the card gives, with its origin and standard error
+ * @param correlations     correlations of the fitted parameters
+ * @param chiSquare        sum of squared weighted residuals [1]
+ * @param reducedChiSquare chi-square per degree of freedom [1]
+ * @param points           number of points fitted
+ * @param degreesOfFreedom points minus fitted parameters
+ * @param evaluations      model evaluations of the final fit
+ * @param iterations       optimiser iterations of the final fit
+ * @param stopReason       why the optimiser stopped, in words
+ * @param residuals        residual statistics per temperature
+ * @param terms            decisions about optional terms
+ * @param warnings         plain-language warnings
+ */
+public record FitResult(DiodeParameters parameters, List<FittedParameter> fitted, Correlations correlations,
+                        double chiSquare, double reducedChiSquare, int points, int degreesOfFreedom,
+                        int evaluations, int iterations, String stopReason, List<SweepResiduals> residuals,
+                        List<TermDecision> terms, List<String> warnings) {
+    public FitResult {
+        fitted = List.copyOf(fitted);
+        residuals = List.copyOf(residuals);
+        terms = List.copyOf(terms);
+        warnings = List.copyOf(warnings);
+    }
+
+    /** The result line of one parameter, if the card gives it. */
+    public Optional<FittedParameter> parameter(Param p) {
+        return fitted.stream().filter(f -> f.param() == p).findFirst();
+    }
+
+    /** Largest RMS residual over the temperatures [V]. */
+    public double worstRms() {
+        return residuals.stream().mapToDouble(SweepResiduals::rms).max().orElse(Double.NaN);
+    }
+}

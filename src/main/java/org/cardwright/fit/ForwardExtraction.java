@@ -1,0 +1,551 @@
+package org.cardwright.fit;
+
+import java.util.ArrayList;
+import java.util.Comparator;
+import java.util.EnumMap;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.TreeMap;
+import org.apache.commons.math3.exception.ConvergenceException;
+import org.apache.commons.math3.exception.TooManyEvaluationsException;
+import org.apache.commons.math3.exception.TooManyIterationsException;
+import org.apache.commons.math3.fitting.leastsquares.LeastSquaresBuilder;
+import org.apache.commons.math3.fitting.leastsquares.LeastSquaresOptimizer;
+import org.apache.commons.math3.fitting.leastsquares.LeastSquaresProblem;
+import org.apache.commons.math3.fitting.leastsquares.LevenbergMarquardtOptimizer;
+import org.apache.commons.math3.linear.ArrayRealVector;
+import org.apache.commons.math3.linear.RealMatrix;
+import org.apache.commons.math3.linear.SingularValueDecomposition;
+import org.cardwright.model.DiodeParameters;
+import org.cardwright.model.Ngspice39;
+import org.cardwright.model.Param;
+
+/**
+ * Staged extraction of the forward DC parameters from I-V sweeps at one or more temperatures.
+ *
+ * <ol>
+ *   <li>Closed-form start values per sweep ({@link StartValues}).</li>
+ *   <li>One global Levenberg-Marquardt fit (Levenberg, Q. Appl. Math. 2 (1944) 164-168; Marquardt, J. SIAM 11
+ *       (1963) 431-441; Apache Commons Math implementation after Moré, LNM 630 (1978)) of terminal-voltage
+ *       residuals at the measured currents, across all temperatures at once: IS, N, RS, and EG and XTI where
+ *       the temperatures determine them. IS, ISR and IKF vary as logarithms.</li>
+ *   <li>Optional terms (recombination ISR and NR, high injection IKF, RS temperature coefficient TRS1) are
+ *       added one at a time, best first, while the Bayesian information criterion
+ *       BIC = n ln(RSS/n) + k ln n (Schwarz, "Estimating the dimension of a model", Ann. Statist. 6 (1978)
+ *       461-464) falls by more than 10, "very strong" evidence on the scale of Kass &amp; Raftery, "Bayes
+ *       factors", J. Am. Stat. Assoc. 90 (1995) 773-795. RSS/n is floored at (1e-3 sigma)^2 so that data
+ *       without noise cannot reward a term for fitting rounding.</li>
+ * </ol>
+ */
+public final class ForwardExtraction {
+    /** A term enters the card only if it lowers BIC by more than this [1]. */
+    public static final double BIC_THRESHOLD = 10;
+    /** Mean squared weighted residual below which fits are indistinguishable [1]. */
+    private static final double RESIDUAL_FLOOR_SQUARED = 1e-6;
+    /** The widest sweep must span at least this much current [decades]. */
+    public static final double MIN_DECADES = 2;
+    /** A correlation beyond this is reported [1]. */
+    private static final double STRONG_CORRELATION = 0.995;
+    private static final int MAX_EVALUATIONS = 4000;
+
+    private final FitSettings settings;
+
+    public ForwardExtraction(FitSettings settings) {
+        this.settings = settings;
+    }
+
+    /** A candidate optional term. */
+    private record Term(String name, List<Param> params) {
+    }
+
+    private static final Term RECOMBINATION = new Term("recombination current", List.of(Param.ISR, Param.NR));
+    private static final Term HIGH_INJECTION = new Term("high injection", List.of(Param.IKF));
+    private static final Term RS_TEMPCO = new Term("RS temperature coefficient", List.of(Param.TRS1));
+
+    /** Outcome of one least-squares run. */
+    private record Run(DiodeParameters parameters, FreeParameters layout, double[] x, double rss, int evaluations,
+                       int iterations, String stopReason) {
+    }
+
+    /**
+     * Fits the forward parameters to {@code points}.
+     *
+     * @throws FitInputException when the data cannot support a fit (the message names file, line and value)
+     */
+    public FitResult fit(List<FitPoint> points) throws FitInputException {
+        Map<Double, List<FitPoint>> sweeps = checkInput(points);
+        double tnom = settings.nominalTemperature();
+        List<String> warnings = new ArrayList<>();
+        List<TermDecision> decisions = new ArrayList<>();
+
+        // ---- stage 1: closed-form start values -------------------------------------------------------
+        List<FitPoint> reference = referenceSweep(sweeps, tnom);
+        StartValues.Shockley sh = StartValues.shockley(reference);
+        double n0 = ruleValue(Param.N, sh.emission());
+        double tRef = reference.get(0).temperature();
+        int nTemps = sweeps.size();
+
+        boolean egFree = freeByData(Param.EG, nTemps >= 2, warnings,
+                "EG held at " + settings.kind().activationEnergy() + " eV (" + settings.kind().description()
+                        + "): a single temperature cannot determine it");
+        boolean xtiFree = freeByData(Param.XTI, nTemps >= 3, warnings,
+                "XTI held at " + settings.kind().temperatureExponent() + " (" + settings.kind().description()
+                        + "): separating XTI from EG needs three or more temperatures");
+        double eg = ruleValue(Param.EG, settings.kind().activationEnergy());
+        double xti = ruleValue(Param.XTI, settings.kind().temperatureExponent());
+        double isNom;
+        if (egFree && nTemps >= 2) {
+            double[] temps = new double[nTemps];
+            double[] sats = new double[nTemps];
+            int k = 0;
+            for (List<FitPoint> s : sweeps.values()) {
+                temps[k] = s.get(0).temperature();
+                sats[k] = StartValues.saturationCurrentAt(s, n0, sh.lowCurrent(), sh.highCurrent());
+                k++;
+            }
+            double[] r = StartValues.activationEnergy(temps, sats, n0, xti, tnom);
+            isNom = r[0];
+            if (r[1] > 0.1 && r[1] < 5) {
+                eg = r[1];
+            }
+            isNom = StartValues.toNominal(
+                    StartValues.saturationCurrentAt(reference, n0, sh.lowCurrent(), sh.highCurrent()),
+                    tRef, tnom, n0, eg, xti);
+        } else {
+            isNom = StartValues.toNominal(sh.saturationCurrent(), tRef, tnom, n0, eg, xti);
+        }
+        double rs = Math.max(StartValues.seriesResistance(reference, sh), 1e-6);
+
+        EnumMap<Param, Double> start = new EnumMap<>(Param.class);
+        start.put(Param.IS, isNom);
+        start.put(Param.N, n0);
+        start.put(Param.RS, rs);
+        start.put(Param.EG, eg);
+        start.put(Param.XTI, xti);
+        start.put(Param.TNOM, tnom);
+        for (ParameterRule r : settings.rules().values()) {
+            if (r.kind() == ParameterRule.Kind.FIXED || (r.kind() == ParameterRule.Kind.FREE && !Double.isNaN(r.value()))) {
+                start.put(r.param(), r.value());
+            }
+        }
+        // terms the user forced on start from their closed-form values
+        List<Param> free = new ArrayList<>();
+        for (Param p : List.of(Param.IS, Param.N, Param.RS)) {
+            if (isFree(p)) {
+                free.add(p);
+            }
+        }
+        if (egFree) {
+            free.add(Param.EG);
+        }
+        if (xtiFree) {
+            free.add(Param.XTI);
+        }
+        List<Term> candidates = new ArrayList<>();
+        for (Term term : List.of(RECOMBINATION, HIGH_INJECTION, RS_TEMPCO)) {
+            Param key = term.params().get(0);
+            ParameterRule rule = settings.rule(key);
+            if (rule != null && rule.kind() == ParameterRule.Kind.OFF) {
+                decisions.add(new TermDecision(term.name(), term.params(), false, Double.NaN, "switched off by the user"));
+                continue;
+            }
+            boolean forced = rule != null;
+            for (Param p : term.params()) {
+                ParameterRule r = settings.rule(p);
+                if (r != null && r.kind() != ParameterRule.Kind.OFF) {
+                    forced = true;
+                }
+            }
+            if (term == RS_TEMPCO && (nTemps < 2)) {
+                if (forced) {
+                    warnings.add("TRS1 was asked for but one temperature cannot determine it; held at 0");
+                }
+                decisions.add(new TermDecision(term.name(), term.params(), false, Double.NaN,
+                        "needs sweeps at two or more temperatures"));
+                continue;
+            }
+            if (forced) {
+                termStart(term, start, reference, sh, tRef, tnom, eg, xti);
+                for (Param p : term.params()) {
+                    if (isFree(p)) {
+                        free.add(p);
+                    }
+                }
+                decisions.add(new TermDecision(term.name(), term.params(), true, Double.NaN, "set by the user"));
+            } else {
+                candidates.add(term);
+            }
+        }
+
+        // ---- stage 2: global fit of the base model ------------------------------------------------------
+        Run best = run(points, DiodeParameters.of(start), free);
+        int n = points.size();
+        double bestBic = bic(best.rss(), n, best.layout().size());
+
+        // ---- stage 3: optional terms, best first, while BIC falls by more than the threshold --------------
+        Map<Term, Double> lastDelta = new LinkedHashMap<>();
+        while (!candidates.isEmpty()) {
+            Term chosen = null;
+            Run chosenRun = null;
+            double chosenBic = Double.POSITIVE_INFINITY;
+            for (Term term : candidates) {
+                EnumMap<Param, Double> trial = new EnumMap<>(Param.class);
+                trial.putAll(best.parameters().givenValues());
+                termStart(term, trial, reference, sh, tRef, tnom,
+                        best.parameters().get(Param.EG), best.parameters().get(Param.XTI));
+                List<Param> trialFree = new ArrayList<>(best.layout().free());
+                trialFree.addAll(term.params());
+                Run r;
+                try {
+                    r = run(points, DiodeParameters.of(trial), trialFree);
+                } catch (RuntimeException e) {
+                    lastDelta.put(term, Double.NaN);
+                    continue;
+                }
+                double b = bic(r.rss(), n, r.layout().size());
+                lastDelta.put(term, b - bestBic);
+                if (b < chosenBic) {
+                    chosenBic = b;
+                    chosen = term;
+                    chosenRun = r;
+                }
+            }
+            if (chosen == null || chosenBic - bestBic > -BIC_THRESHOLD) {
+                break;
+            }
+            decisions.add(new TermDecision(chosen.name(), chosen.params(), true, chosenBic - bestBic,
+                    String.format(Locale.ROOT, "BIC fell by %.1f (threshold %.0f)", bestBic - chosenBic, BIC_THRESHOLD)));
+            candidates.remove(chosen);
+            best = chosenRun;
+            bestBic = chosenBic;
+        }
+        for (Term term : candidates) {
+            double d = lastDelta.getOrDefault(term, Double.NaN);
+            decisions.add(new TermDecision(term.name(), term.params(), false, d,
+                    Double.isNaN(d) ? "could not be fitted to this data"
+                            : String.format(Locale.ROOT, "not warranted: BIC changed by %+.1f (needs below -%.0f)", d, BIC_THRESHOLD)));
+        }
+
+        return summarise(points, best, sweeps, decisions, warnings, start);
+    }
+
+    // ---------------------------------------------------------------------------------------------------
+
+    private Map<Double, List<FitPoint>> checkInput(List<FitPoint> points) throws FitInputException {
+        if (points.isEmpty()) {
+            throw new FitInputException("no forward points (positive current) to fit");
+        }
+        Map<Double, List<FitPoint>> sweeps = new TreeMap<>();
+        for (FitPoint p : points) {
+            sweeps.computeIfAbsent(p.temperature(), t -> new ArrayList<>()).add(p);
+        }
+        double widest = 0;
+        FitPoint lo = null;
+        FitPoint hi = null;
+        for (List<FitPoint> s : sweeps.values()) {
+            FitPoint a = s.stream().min(Comparator.comparingDouble(FitPoint::current)).orElseThrow();
+            FitPoint b = s.stream().max(Comparator.comparingDouble(FitPoint::current)).orElseThrow();
+            double decades = Math.log10(b.current() / a.current());
+            if (decades >= widest) {
+                widest = decades;
+                lo = a;
+                hi = b;
+            }
+        }
+        if (widest < MIN_DECADES || points.size() < 5) {
+            throw new FitInputException(String.format(Locale.ROOT,
+                    "%s: forward current spans only %.2f decades (%s A at line %d to %s A at line %d, %d points); "
+                            + "at least %.0f decades and 5 points are needed to tell IS from N",
+                    lo.source(), widest, num(lo.current()), lo.line(), num(hi.current()), hi.line(),
+                    points.size(), MIN_DECADES));
+        }
+        return sweeps;
+    }
+
+    private static String num(double v) {
+        return String.format(Locale.ROOT, "%.4g", v);
+    }
+
+    /** The sweep nearest TNOM among those spanning at least MIN_DECADES (else the widest). */
+    private static List<FitPoint> referenceSweep(Map<Double, List<FitPoint>> sweeps, double tnom) {
+        List<FitPoint> best = null;
+        double bestDistance = Double.POSITIVE_INFINITY;
+        for (List<FitPoint> s : sweeps.values()) {
+            double lo = s.stream().mapToDouble(FitPoint::current).min().orElseThrow();
+            double hi = s.stream().mapToDouble(FitPoint::current).max().orElseThrow();
+            if (Math.log10(hi / lo) < MIN_DECADES || s.size() < 5) {
+                continue;
+            }
+            double d = Math.abs(s.get(0).temperature() - tnom);
+            if (d < bestDistance) {
+                bestDistance = d;
+                best = s;
+            }
+        }
+        if (best == null) {
+            best = sweeps.values().stream().max(Comparator.comparingInt(List::size)).orElseThrow();
+        }
+        return StartValues.sorted(best);
+    }
+
+    private boolean isFree(Param p) {
+        ParameterRule r = settings.rule(p);
+        return r == null || r.kind() == ParameterRule.Kind.FREE || r.kind() == ParameterRule.Kind.BOUNDED;
+    }
+
+    private double ruleValue(Param p, double otherwise) {
+        ParameterRule r = settings.rule(p);
+        return r != null && Double.isFinite(r.value()) ? r.value() : otherwise;
+    }
+
+    /** Whether EG or XTI varies: the user's rule wins; otherwise the data decides (with a warning). */
+    private boolean freeByData(Param p, boolean dataAllows, List<String> warnings, String heldMessage) {
+        ParameterRule r = settings.rule(p);
+        if (r != null) {
+            if (r.kind() == ParameterRule.Kind.FIXED) {
+                return false;
+            }
+            if (!dataAllows) {
+                warnings.add(p + " was asked to vary, but the temperatures given cannot determine it well; expect a large standard error");
+            }
+            return true;
+        }
+        if (!dataAllows) {
+            warnings.add(heldMessage);
+        }
+        return dataAllows;
+    }
+
+    /** Start values of an optional term, written into {@code start} unless the user fixed them. */
+    private void termStart(Term term, Map<Param, Double> start, List<FitPoint> reference, StartValues.Shockley sh,
+                           double tRef, double tnom, double eg, double xti) {
+        if (term == RECOMBINATION) {
+            double[] rec = StartValues.recombination(reference, sh);
+            double isrT;
+            double nr;
+            if (rec != null) {
+                isrT = rec[0];
+                nr = rec[1];
+            } else {
+                FitPoint low = reference.get(0);
+                nr = Math.max(2.0, sh.emission() + 0.5);
+                isrT = 0.3 * low.current() / Math.exp(low.voltage() / (nr * Ngspice39.thermalVoltage(tRef)));
+            }
+            putUnlessFixed(start, Param.NR, nr);
+            putUnlessFixed(start, Param.ISR, StartValues.toNominal(isrT, tRef, tnom, nr, eg, xti));
+        } else if (term == HIGH_INJECTION) {
+            double top = reference.get(reference.size() - 1).current();
+            putUnlessFixed(start, Param.IKF, 3 * top);
+        } else if (term == RS_TEMPCO) {
+            putUnlessFixed(start, Param.TRS1, 0.0);
+        }
+    }
+
+    private void putUnlessFixed(Map<Param, Double> start, Param p, double value) {
+        ParameterRule r = settings.rule(p);
+        if (r != null && (r.kind() == ParameterRule.Kind.FIXED
+                || (r.kind() == ParameterRule.Kind.FREE && !Double.isNaN(r.value())))) {
+            start.put(p, r.value());
+        } else {
+            start.put(p, value);
+        }
+    }
+
+    private double[] bounds(Param p) {
+        ParameterRule r = settings.rule(p);
+        if (r != null && r.kind() == ParameterRule.Kind.BOUNDED) {
+            double[] d = defaultBounds(p);
+            return new double[] {Math.max(r.lower(), d[0]), Math.min(r.upper(), d[1])};
+        }
+        return defaultBounds(p);
+    }
+
+    /** Physical limits: beyond them the model is meaningless or numerically hopeless. */
+    static double[] defaultBounds(Param p) {
+        return switch (p) {
+            case IS, ISR -> new double[] {1e-40, 1.0};
+            case N, NR -> new double[] {0.3, 20};
+            case RS -> new double[] {0, 1e7};
+            case IKF -> new double[] {1e-15, 1e6};
+            case EG -> new double[] {0.1, 5};
+            case XTI -> new double[] {-50, 100};
+            case TRS1 -> new double[] {-0.1, 0.1};
+            default -> new double[] {Double.NEGATIVE_INFINITY, Double.POSITIVE_INFINITY};
+        };
+    }
+
+    private Run run(List<FitPoint> points, DiodeParameters start, List<Param> free) {
+        // start values outside the bounds are brought inside before the fit starts
+        DiodeParameters clamped = start;
+        for (Param p : free) {
+            double[] b = bounds(p);
+            double v = start.get(p);
+            double c = Math.min(b[1], Math.max(b[0], v));
+            if (p.fitScale() == Param.Scale.LOG && c <= 0) {
+                c = b[0];
+            }
+            if (c != v) {
+                clamped = clamped.with(p, c);
+            }
+        }
+        FreeParameters layout = new FreeParameters(clamped, free, FreeParameters.boundsOf(free, this::bounds));
+        ForwardModel model = new ForwardModel(points, layout, settings.options());
+        double[] x0 = layout.toInternal(clamped);
+        if (free.isEmpty()) {
+            double rss = rss(model, clamped);
+            return new Run(clamped, layout, x0, rss, 1, 0, "nothing to fit: every parameter is held");
+        }
+        LeastSquaresProblem problem = new LeastSquaresBuilder()
+                .model(model)
+                .target(model.target())
+                .start(x0)
+                .parameterValidator(v -> new ArrayRealVector(layout.clamp(v.toArray()), false))
+                .maxEvaluations(MAX_EVALUATIONS)
+                .maxIterations(MAX_EVALUATIONS)
+                .lazyEvaluation(false)
+                .build();
+        LevenbergMarquardtOptimizer lm = new LevenbergMarquardtOptimizer()
+                .withCostRelativeTolerance(1e-13)
+                .withParameterRelativeTolerance(1e-13)
+                .withOrthoTolerance(1e-13);
+        String stop;
+        double[] x;
+        int evals;
+        int iters;
+        try {
+            LeastSquaresOptimizer.Optimum opt = lm.optimize(problem);
+            x = layout.clamp(opt.getPoint().toArray());
+            evals = opt.getEvaluations();
+            iters = opt.getIterations();
+            stop = "converged: relative change of cost and parameters below 1e-13 after " + iters + " iterations";
+        } catch (TooManyEvaluationsException | TooManyIterationsException e) {
+            throw new IllegalStateException("the fit did not converge within " + MAX_EVALUATIONS + " evaluations");
+        } catch (ConvergenceException e) {
+            throw new IllegalStateException("the fit stopped: " + e.getMessage());
+        }
+        DiodeParameters result = layout.toParameters(x);
+        return new Run(result, layout, x, rss(model, result), evals, iters, stop);
+    }
+
+    private static double rss(ForwardModel model, DiodeParameters p) {
+        double[] v = model.voltages(p);
+        List<FitPoint> pts = model.points();
+        double s = 0;
+        for (int i = 0; i < v.length; i++) {
+            double r = (v[i] - pts.get(i).voltage()) / pts.get(i).sigma();
+            s += r * r;
+        }
+        return s;
+    }
+
+    private static double bic(double rss, int n, int k) {
+        return n * Math.log(Math.max(rss / n, RESIDUAL_FLOOR_SQUARED)) + k * Math.log(n);
+    }
+
+    private FitResult summarise(List<FitPoint> points, Run best, Map<Double, List<FitPoint>> sweeps,
+                                List<TermDecision> decisions, List<String> warnings, Map<Param, Double> start) {
+        FreeParameters layout = best.layout();
+        ForwardModel model = new ForwardModel(points, layout, settings.options());
+        int n = points.size();
+        int k = layout.size();
+        int dof = n - k;
+        double chi2 = best.rss();
+        double reduced = dof > 0 ? chi2 / dof : Double.NaN;
+
+        double[] se = new double[k];
+        double[][] corr = new double[k][k];
+        if (k > 0) {
+            RealMatrix j = model.value(new ArrayRealVector(best.x(), false)).getSecond();
+            RealMatrix jtj = j.transpose().multiply(j);
+            SingularValueDecomposition svd = new SingularValueDecomposition(jtj);
+            RealMatrix cov = svd.getSolver().getInverse();
+            // Commons Math gives the unscaled covariance; multiply by the reduced chi-square (see
+            // Hipparchus EvaluationTest.testComputeSigma for the same convention)
+            double scale = Double.isFinite(reduced) ? reduced : 1;
+            boolean singular = svd.getConditionNumber() > 1e15;
+            for (int a = 0; a < k; a++) {
+                double var = cov.getEntry(a, a) * scale;
+                double sx = singular ? Double.POSITIVE_INFINITY : Math.sqrt(Math.max(var, 0));
+                se[a] = layout.isLog(a) ? layout.value(a, best.x()[a]) * sx : sx;
+                for (int b = 0; b < k; b++) {
+                    corr[a][b] = cov.getEntry(a, b) / Math.sqrt(cov.getEntry(a, a) * cov.getEntry(b, b));
+                }
+            }
+            if (singular) {
+                warnings.add("the fitted parameters are not all independent for this data (the curvature matrix is singular); standard errors are not available");
+            }
+        }
+
+        List<FittedParameter> fitted = new ArrayList<>();
+        DiodeParameters p = best.parameters();
+        for (Param q : p.givenParameters()) {
+            int idx = layout.free().indexOf(q);
+            FittedParameter.Origin origin;
+            ParameterRule rule = settings.rule(q);
+            if (idx >= 0) {
+                origin = FittedParameter.Origin.FITTED;
+            } else if (rule != null && rule.kind() == ParameterRule.Kind.FIXED) {
+                origin = FittedParameter.Origin.FIXED_BY_USER;
+            } else {
+                origin = FittedParameter.Origin.PRESET;
+            }
+            fitted.add(new FittedParameter(q, p.get(q), idx >= 0 ? se[idx] : Double.NaN, origin,
+                    idx >= 0 ? start.getOrDefault(q, Double.NaN) : Double.NaN));
+            if (idx >= 0) {
+                double rel = layout.isLog(idx) ? se[idx] / p.get(q) : se[idx] / Math.max(Math.abs(p.get(q)), 1e-30);
+                boolean undetermined = layout.isLog(idx) ? rel > 1.0 : (q == Param.TRS1 || q == Param.XTI
+                        ? se[idx] > Math.max(Math.abs(p.get(q)), q == Param.TRS1 ? 1e-3 : 1.0) : rel > 0.5);
+                if (undetermined) {
+                    warnings.add(String.format(Locale.ROOT,
+                            "%s is not determined by this data: %s +/- %s; pin it (%s=value) or add data that exercises it",
+                            q, num(q.toCardValue(p.get(q))), num(se[idx]), q));
+                }
+                if (layout.atBound(idx, best.x()[idx])) {
+                    double[] b = bounds(q);
+                    warnings.add(String.format(Locale.ROOT, "%s stopped at its bound (%s .. %s): the data pull it further than the model allows",
+                            q, num(b[0]), num(b[1])));
+                }
+            }
+        }
+        for (int a = 0; a < k; a++) {
+            for (int b = a + 1; b < k; b++) {
+                if (Math.abs(corr[a][b]) > STRONG_CORRELATION) {
+                    warnings.add(String.format(Locale.ROOT,
+                            "%s and %s are strongly correlated (r = %.4f): the data fix a combination of them better than each alone",
+                            layout.free().get(a), layout.free().get(b), corr[a][b]));
+                }
+            }
+        }
+
+        double[] v = model.voltages(p);
+        List<SweepResiduals> residuals = new ArrayList<>();
+        for (Map.Entry<Double, List<FitPoint>> e : sweeps.entrySet()) {
+            double sum = 0;
+            double max = 0;
+            double worstI = Double.NaN;
+            double lo = Double.POSITIVE_INFINITY;
+            double hi = 0;
+            int count = 0;
+            for (int i = 0; i < n; i++) {
+                FitPoint pt = points.get(i);
+                if (pt.temperature() != e.getKey()) {
+                    continue;
+                }
+                double r = v[i] - pt.voltage();
+                sum += r * r;
+                count++;
+                if (Math.abs(r) >= max) {
+                    max = Math.abs(r);
+                    worstI = pt.current();
+                }
+                lo = Math.min(lo, pt.current());
+                hi = Math.max(hi, pt.current());
+            }
+            residuals.add(new SweepResiduals(e.getKey(), count, lo, hi, Math.sqrt(sum / count), max, worstI));
+        }
+        return new FitResult(p, fitted, new Correlations(layout.free(), corr), chi2, reduced, n, dof,
+                best.evaluations(), best.iterations(), best.stopReason(), residuals, decisions, warnings);
+    }
+}
