@@ -1,0 +1,46 @@
+package org.cardwright.card;
+
+/**
+ * A card text that cannot be read. The one-line message names the source, the line and the raw text at fault,
+ * as {@code source:line: what is wrong 'raw'}; line 0 means the fault belongs to the whole source.
+ */
+public final class CardFormatException extends RuntimeException {
+    private static final long serialVersionUID = 1L;
+
+    private final String source;
+    private final int line;
+    private final String rawText;
+
+    /**
+     * @param source the file name or other label of the text
+     * @param line 1-based line number, or 0 for the whole source
+     * @param problem what is wrong, in a few words
+     * @param rawText the text at fault as written, or null when there is none
+     */
+    public CardFormatException(String source, int line, String problem, String rawText) {
+        super(describe(source, line, problem, rawText));
+        this.source = source;
+        this.line = line;
+        this.rawText = rawText;
+    }
+
+    private static String describe(String source, int line, String problem, String rawText) {
+        String where = line > 0 ? source + ":" + line : source;
+        return where + ": " + problem + (rawText == null ? "" : " '" + rawText + "'");
+    }
+
+    /** The file name or label of the text. */
+    public String source() {
+        return source;
+    }
+
+    /** The 1-based line number, or 0 when the fault belongs to the whole source. */
+    public int line() {
+        return line;
+    }
+
+    /** The text at fault as written, or null. */
+    public String rawText() {
+        return rawText;
+    }
+}

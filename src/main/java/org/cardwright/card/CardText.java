@@ -1,0 +1,114 @@
+package org.cardwright.card;
+
+import java.util.ArrayList;
+import java.util.List;
+
+/**
+ * Splits SPICE card text into comment lines and logical statements (a line and its {@code +} continuations), and
+ * a statement into tokens that remember their physical line. Parentheses and commas separate tokens like blanks;
+ * {@code =} is a token of its own. Inline comments start at {@code ;}, {@code $} or {@code //}.
+ */
+final class CardText {
+    /** A token as written and the 1-based line it stands on. */
+    record Token(String text, int line) {
+    }
+
+    /** One logical statement: its tokens, in order. */
+    record Statement(List<Token> tokens, int firstLine, int lastLine) {
+    }
+
+    /** A {@code *} comment line without the {@code *} and one following blank. */
+    record Comment(String text, int line) {
+    }
+
+    /** The statements and the comment lines of a text. */
+    record Layout(List<Statement> statements, List<Comment> comments) {
+    }
+
+    private CardText() {
+    }
+
+    static Layout split(String text, String source) {
+        String body = text.startsWith("\uFEFF") ? text.substring(1) : text;
+        String[] lines = body.split("\r\n|\r|\n", -1);
+        List<Statement> statements = new ArrayList<>();
+        List<Comment> comments = new ArrayList<>();
+        List<Token> current = null;
+        int firstLine = 0;
+        int lastLine = 0;
+        for (int i = 0; i < lines.length; i++) {
+            int lineNumber = i + 1;
+            String line = lines[i];
+            String stripped = line.stripLeading();
+            if (stripped.startsWith("*")) {
+                comments.add(new Comment(commentText(stripped), lineNumber));
+                continue;
+            }
+            String code = withoutInlineComment(line);
+            String codeStripped = code.strip();
+            if (codeStripped.isEmpty()) {
+                continue;
+            }
+            if (codeStripped.startsWith("+")) {
+                if (current == null) {
+                    throw new CardFormatException(source, lineNumber,
+                            "continuation line with no statement before it", line.strip());
+                }
+                current.addAll(tokens(codeStripped.substring(1), lineNumber));
+                lastLine = lineNumber;
+                continue;
+            }
+            if (current != null) {
+                statements.add(new Statement(List.copyOf(current), firstLine, lastLine));
+            }
+            current = new ArrayList<>(tokens(codeStripped, lineNumber));
+            firstLine = lineNumber;
+            lastLine = lineNumber;
+        }
+        if (current != null) {
+            statements.add(new Statement(List.copyOf(current), firstLine, lastLine));
+        }
+        return new Layout(List.copyOf(statements), List.copyOf(comments));
+    }
+
+    private static String commentText(String stripped) {
+        String afterStar = stripped.substring(1);
+        return afterStar.startsWith(" ") ? afterStar.substring(1) : afterStar;
+    }
+
+    private static String withoutInlineComment(String line) {
+        int end = line.length();
+        for (String marker : new String[] {";", "$", "//"}) {
+            int at = line.indexOf(marker);
+            if (at >= 0 && at < end) {
+                end = at;
+            }
+        }
+        return line.substring(0, end);
+    }
+
+    private static List<Token> tokens(String code, int lineNumber) {
+        List<Token> out = new ArrayList<>();
+        StringBuilder word = new StringBuilder();
+        for (int i = 0; i < code.length(); i++) {
+            char c = code.charAt(i);
+            if (Character.isWhitespace(c) || c == '(' || c == ')' || c == ',') {
+                flush(word, lineNumber, out);
+            } else if (c == '=') {
+                flush(word, lineNumber, out);
+                out.add(new Token("=", lineNumber));
+            } else {
+                word.append(c);
+            }
+        }
+        flush(word, lineNumber, out);
+        return out;
+    }
+
+    private static void flush(StringBuilder word, int lineNumber, List<Token> out) {
+        if (word.length() > 0) {
+            out.add(new Token(word.toString(), lineNumber));
+            word.setLength(0);
+        }
+    }
+}

@@ -1,0 +1,144 @@
+package org.cardwright.card;
+
+import java.util.Arrays;
+import java.util.Collections;
+import java.util.EnumSet;
+import java.util.LinkedHashMap;
+import java.util.LinkedHashSet;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.Optional;
+import java.util.Set;
+import java.util.stream.Collectors;
+import org.cardwright.model.Param;
+
+/**
+ * A simulator's flavour of the diode {@code .model} card: which cardwright parameters it carries, the spellings it
+ * accepts when reading, the keywords it knows that cardwright does not model, and the template that writes it.
+ *
+ * <p>The keyword tables come from the simulators' public sources (ngspice 39 {@code src/spicelib/devices/dio},
+ * gnucap 2017.10.03 {@code apps/d_diode.model}, SPICE3f5) and were checked by loading cards into the installed
+ * ngspice 39 and gnucap; {@code DialectSimulatorTest} repeats that check.
+ */
+public enum Dialect {
+    /** ngspice 39, junction diode level 1: every parameter cardwright models. */
+    NGSPICE("ngspice", "ngspice 39 (diode level 1)", "ngspice.ftl",
+            EnumSet.allOf(Param.class),
+            Map.of("JS", Param.IS, "CJ", Param.CJO, "CJ0", Param.CJO, "PB", Param.VJ, "MJ", Param.M,
+                    "IK", Param.IKF, "IB", Param.IBV, "TRS", Param.TRS1, "TREF", Param.TNOM),
+            List.of("LEVEL", "AREA", "PJ", "JSW", "NS", "CJSW", "CJP", "PHP", "MJSW", "FCS",
+                    "TM1", "TM2", "TTT1", "TTT2", "TLEVC", "CTA", "CTC", "CTP", "TPB", "TVJ", "TPHP",
+                    "JTUN", "JTUNSW", "NTUN", "XTITUN", "KEG", "KF", "AF", "CTH0",
+                    "FV_MAX", "BV_MAX", "ID_MAX", "PD_MAX", "TE_MAX",
+                    "LM", "LP", "WM", "WP", "XOM", "XOI", "XM", "XP")),
+    /** Berkeley SPICE3f5 diode: the classic parameter set. */
+    SPICE3("spice3", "SPICE3f5", "spice3.ftl",
+            EnumSet.of(Param.IS, Param.N, Param.RS, Param.TT, Param.CJO, Param.VJ, Param.M, Param.EG,
+                    Param.XTI, Param.FC, Param.BV, Param.IBV, Param.TNOM),
+            Map.of("CJ0", Param.CJO),
+            List.of("KF", "AF")),
+    /**
+     * gnucap 2017.10.03 diode. gnucap accepts BV and IBV but ignores them, so they are not carried: a card never
+     * holds a parameter its simulator would silently ignore.
+     */
+    GNUCAP("gnucap", "gnucap 2017.10.03", "gnucap.ftl",
+            EnumSet.of(Param.IS, Param.N, Param.RS, Param.TT, Param.CJO, Param.VJ, Param.M, Param.EG,
+                    Param.XTI, Param.FC, Param.TNOM),
+            Map.of("PB", Param.VJ, "MJ", Param.M, "EGAP", Param.EG),
+            List.of("BV", "IBV", "KF", "AF", "CJSW", "CJS", "PBSW", "PBS", "MJSW", "MJS",
+                    "GPARALLEL", "GP", "FLAGS", "MOS_LEVEL"));
+
+    private final String shortName;
+    private final String simulator;
+    private final String templateFileName;
+    private final Set<Param> carried;
+    private final Map<String, Param> aliases;
+    private final Set<String> knownUnsupported;
+
+    Dialect(String shortName, String simulator, String templateFileName, EnumSet<Param> carried,
+            Map<String, Param> aliases, List<String> knownUnsupported) {
+        this.shortName = shortName;
+        this.simulator = simulator;
+        this.templateFileName = templateFileName;
+        this.carried = Collections.unmodifiableSet(carried);
+        this.aliases = Collections.unmodifiableMap(new LinkedHashMap<>(aliases));
+        this.knownUnsupported = Collections.unmodifiableSet(new LinkedHashSet<>(knownUnsupported));
+    }
+
+    /** The name used on the command line and in {@link #byName}, lower case. */
+    public String shortName() {
+        return shortName;
+    }
+
+    /** The simulator and version this dialect describes, for messages and reports. */
+    public String simulator() {
+        return simulator;
+    }
+
+    /** The template file that writes this dialect, looked up in the user's folder first, then the bundled one. */
+    public String templateFileName() {
+        return templateFileName;
+    }
+
+    /** The parameters a card in this dialect carries, in {@link Param} order. */
+    public Set<Param> carriedParameters() {
+        return carried;
+    }
+
+    /** Alternative keywords (upper case) that this simulator reads as a carried parameter. */
+    public Map<String, Param> aliases() {
+        return aliases;
+    }
+
+    /**
+     * Keywords (upper case) this simulator accepts on a diode card that cardwright does not model, or that the
+     * simulator accepts but ignores. A reader reports them and their values as notices.
+     */
+    public Set<String> knownUnsupportedKeywords() {
+        return knownUnsupported;
+    }
+
+    /** True when a card in this dialect carries {@code parameter}. */
+    public boolean carries(Param parameter) {
+        return carried.contains(parameter);
+    }
+
+    /**
+     * The carried parameter a keyword names in this dialect, by its canonical name or an alias, in any letter case.
+     * Empty for keywords this dialect does not read as a cardwright parameter.
+     */
+    public Optional<Param> resolve(String keyword) {
+        String k = keyword.trim().toUpperCase(Locale.ROOT);
+        Param alias = aliases.get(k);
+        if (alias != null) {
+            return Optional.of(alias);
+        }
+        return Param.byKeyword(k).filter(this::carries);
+    }
+
+    /** True when {@code keyword} (any case) is in {@link #knownUnsupportedKeywords()}. */
+    public boolean isKnownUnsupported(String keyword) {
+        return knownUnsupported.contains(keyword.trim().toUpperCase(Locale.ROOT));
+    }
+
+    /**
+     * The dialect called {@code name} (its short name or enum name, any case).
+     *
+     * @throws IllegalArgumentException listing the valid names
+     */
+    public static Dialect byName(String name) {
+        String n = name == null ? "" : name.trim();
+        for (Dialect d : values()) {
+            if (d.shortName.equalsIgnoreCase(n) || d.name().equalsIgnoreCase(n)) {
+                return d;
+            }
+        }
+        throw new IllegalArgumentException("unknown dialect '" + name + "'; valid names: " + validNames());
+    }
+
+    /** The short names of all dialects, comma-separated, for help texts and error messages. */
+    public static String validNames() {
+        return Arrays.stream(values()).map(Dialect::shortName).collect(Collectors.joining(", "));
+    }
+}

@@ -1,0 +1,140 @@
+package org.cardwright.card;
+
+import java.math.BigDecimal;
+import java.math.MathContext;
+import java.math.RoundingMode;
+import java.util.Locale;
+import java.util.regex.Matcher;
+import java.util.regex.Pattern;
+
+/**
+ * Writing and reading numbers the way SPICE netlists spell them.
+ *
+ * <p>Writing uses the engineering suffixes {@code f p n u m k meg g t} in lower case. Mega is always {@code meg}:
+ * SPICE reads {@code M} (either case) as milli. Outside [1e-15, 1e15) the plain exponent form is used.
+ *
+ * <p>Reading follows ngspice 39: suffixes in any letter case ({@code T G MEG K M MIL U N P F}), letters after the
+ * suffix ignored ({@code 10pF} is 1e-11, {@code 1F} is 1e-15, {@code 3k3} is 3000), exponent forms, signs.
+ * Both directions are independent of the default locale.
+ */
+public final class SpiceNumbers {
+    /** Fewest significant digits {@link #format} accepts. */
+    public static final int MIN_SIGNIFICANT_DIGITS = 1;
+    /**
+     * Most significant digits {@link #format} accepts: every decimal of up to 15 digits survives a trip through a
+     * double unchanged (DBL_DIG of IEEE 754 binary64), so a written card reads back to the same text.
+     */
+    public static final int MAX_SIGNIFICANT_DIGITS = 15;
+
+    private static final String[] SUFFIXES = {"f", "p", "n", "u", "m", "", "k", "meg", "g", "t"};
+    private static final int SMALLEST_SUFFIX_EXPONENT = -15;
+    private static final int LARGEST_SUFFIX_EXPONENT = 12;
+
+    /** Mantissa with optional exponent, then an optional tail that starts with a letter. */
+    private static final Pattern NUMBER = Pattern.compile(
+            "([+-]?(?:[0-9]+\\.?[0-9]*|\\.[0-9]+))(?:[eE]([+-]?[0-9]+))?([A-Za-z][A-Za-z0-9_]*)?");
+
+    private static final BigDecimal MIL = new BigDecimal("25.4e-6");
+
+    private SpiceNumbers() {
+    }
+
+    /**
+     * Writes {@code value} rounded to {@code significantDigits} significant digits, with an engineering suffix
+     * when the rounded magnitude lies in [1e-15, 1e15), else in exponent form; trailing zeros are removed.
+     *
+     * @param value a finite number
+     * @param significantDigits between {@link #MIN_SIGNIFICANT_DIGITS} and {@link #MAX_SIGNIFICANT_DIGITS}
+     * @return for example {@code 2.5n}, {@code 10meg}, {@code -1.5m}, {@code 100}, {@code 0}, {@code 1.234e-18}
+     */
+    public static String format(double value, int significantDigits) {
+        if (!Double.isFinite(value)) {
+            throw new IllegalArgumentException("cannot write a non-finite number: " + value);
+        }
+        if (significantDigits < MIN_SIGNIFICANT_DIGITS || significantDigits > MAX_SIGNIFICANT_DIGITS) {
+            throw new IllegalArgumentException("significant digits must lie in [" + MIN_SIGNIFICANT_DIGITS + ", "
+                    + MAX_SIGNIFICANT_DIGITS + "], got " + significantDigits);
+        }
+        if (value == 0.0) {
+            return "0";
+        }
+        // BigDecimal.valueOf starts from the shortest decimal that reads back as this double, so 1.005 rounds
+        // to 1.01 as a reader of the number expects; rounding happens before the exponent is chosen, so a
+        // carry (999.9999999u -> 1m) lands in the right group.
+        BigDecimal rounded = BigDecimal.valueOf(value)
+                .round(new MathContext(significantDigits, RoundingMode.HALF_UP))
+                .stripTrailingZeros();
+        int decimalExponent = rounded.precision() - rounded.scale() - 1;
+        int engineeringExponent = Math.floorDiv(decimalExponent, 3) * 3;
+        if (engineeringExponent < SMALLEST_SUFFIX_EXPONENT || engineeringExponent > LARGEST_SUFFIX_EXPONENT) {
+            return exponentForm(rounded, decimalExponent);
+        }
+        String mantissa = rounded.movePointLeft(engineeringExponent).stripTrailingZeros().toPlainString();
+        return mantissa + SUFFIXES[(engineeringExponent - SMALLEST_SUFFIX_EXPONENT) / 3];
+    }
+
+    private static String exponentForm(BigDecimal rounded, int decimalExponent) {
+        String mantissa = rounded.movePointLeft(decimalExponent).stripTrailingZeros().toPlainString();
+        return mantissa + "e" + decimalExponent;
+    }
+
+    /**
+     * Reads a SPICE number.
+     *
+     * @param token for example {@code 2.5n}, {@code 1e-9}, {@code 10MEG}, {@code 4.7uF}, {@code 2mil}
+     * @return the value, correctly rounded to the nearest double
+     * @throws NumberFormatException naming the token when it is not a SPICE number or overflows a double
+     */
+    public static double parse(String token) {
+        if (token == null) {
+            throw new NumberFormatException("not a SPICE number: null");
+        }
+        String text = token.trim();
+        Matcher m = NUMBER.matcher(text);
+        if (!m.matches()) {
+            throw new NumberFormatException("not a SPICE number: '" + token + "'");
+        }
+        double value;
+        BigDecimal number;
+        try {
+            number = new BigDecimal(m.group(1));
+            if (m.group(2) != null) {
+                number = number.scaleByPowerOfTen(Integer.parseInt(m.group(2)));
+            }
+            if (m.group(3) != null) {
+                number = applySuffix(number, m.group(3).toUpperCase(Locale.ROOT));
+            }
+            value = number.doubleValue();
+        } catch (NumberFormatException | ArithmeticException e) {
+            throw new NumberFormatException("SPICE number exponent out of range: '" + token + "'");
+        }
+        if (!Double.isFinite(value)) {
+            throw new NumberFormatException("SPICE number too large for a double: '" + token + "'");
+        }
+        if (value == 0.0 && number.signum() != 0) {
+            throw new NumberFormatException("SPICE number too small for a double: '" + token + "'");
+        }
+        return value;
+    }
+
+    private static BigDecimal applySuffix(BigDecimal number, String tail) {
+        if (tail.startsWith("MEG")) {
+            return number.scaleByPowerOfTen(6);
+        }
+        if (tail.startsWith("MIL")) {
+            return number.multiply(MIL);
+        }
+        return switch (tail.charAt(0)) {
+            case 'T' -> number.scaleByPowerOfTen(12);
+            case 'G' -> number.scaleByPowerOfTen(9);
+            case 'K' -> number.scaleByPowerOfTen(3);
+            case 'M' -> number.scaleByPowerOfTen(-3);
+            case 'U' -> number.scaleByPowerOfTen(-6);
+            case 'N' -> number.scaleByPowerOfTen(-9);
+            case 'P' -> number.scaleByPowerOfTen(-12);
+            case 'F' -> number.scaleByPowerOfTen(-15);
+            // ngspice 39 ignores letters that are not a scale factor (units such as V, A, ohm)
+            default -> number;
+        };
+    }
+}
