@@ -1,0 +1,101 @@
+package org.cardwright.cli;
+
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Optional;
+import java.util.OptionalDouble;
+import java.util.concurrent.Callable;
+import org.cardwright.card.Dialect;
+import org.cardwright.card.SpiceNumbers;
+import org.cardwright.fit.DeviceKind;
+import org.cardwright.fit.ParameterRule;
+import org.cardwright.model.Ngspice39;
+import org.cardwright.report.FitJson;
+import org.cardwright.report.FitText;
+import org.cardwright.workflow.FitOutcome;
+import org.cardwright.workflow.FitRequest;
+import org.cardwright.workflow.FitWorkflow;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
+
+/** {@code cardwright fit}: measurements in, model cards out. */
+@Command(name = "fit", mixinStandardHelpOptions = true, sortOptions = false,
+        description = {
+            "Fits the diode model to forward I-V data at one or more temperatures, all at once, and writes a",
+            "card per dialect (default: ngspice and spice3) as OUT/NAME.DIALECT.lib.",
+            "Optional terms (recombination ISR/NR, high injection IKF, RS temperature coefficient TRS1) go in",
+            "only when the data call for them; the summary says which and why."},
+        footerHeading = "%nExamples%n",
+        footer = {
+            "  cardwright fit fixtures/demo/ks1-fwd-*.csv --name KS1 --out models",
+            "  cardwright fit sweep.csv --temp 25 --name D7 --set RS=0.5 --set IKF=off --json d7.json",
+            "  cardwright fit cold.csv hot.csv --name D9 --set N=1..2 --set TNOM=25 --dialect ngspice",
+            "",
+            "Rules for --set: RS=0.5 holds a value; ISR=free forces a term on; IKF=off keeps it out;",
+            "N=1..2 bounds it; IS=1e-12~ gives a start value. Values take SPICE suffixes (2.5n, 10meg).",
+            "",
+            "Data: CSV with columns V and I (units in brackets: I [mA]), optional T [degC]; see README."})
+final class FitCommand implements Callable<Integer> {
+
+    @Parameters(arity = "1..*", paramLabel = "DATA", description = "Measurement CSV files.")
+    List<Path> data;
+
+    @Option(names = "--name", required = true, paramLabel = "NAME", description = "Model name on the card.")
+    String name;
+
+    @Option(names = "--out", paramLabel = "DIR", defaultValue = ".", description = "Folder for the cards (default: ${DEFAULT-VALUE}).")
+    Path out;
+
+    @Option(names = "--dialect", split = ",", paramLabel = "D",
+            description = "Card dialect(s): ngspice, spice3, gnucap (default: ngspice,spice3).")
+    List<String> dialects;
+
+    @Option(names = "--set", paramLabel = "RULE", description = "A parameter rule, e.g. RS=0.5, ISR=free, IKF=off, N=1..2. Repeatable.")
+    List<String> rules = new ArrayList<>();
+
+    @Option(names = "--temp", paramLabel = "DEGC", description = "Device temperature in degC for files without a T column.")
+    Double temperature;
+
+    @Option(names = "--kind", paramLabel = "KIND", defaultValue = "silicon-pn",
+            description = "Device kind for presets: silicon-pn, schottky, germanium (default: ${DEFAULT-VALUE}).")
+    String kind;
+
+    @Option(names = "--json", paramLabel = "FILE", description = "Also write the result as JSON.")
+    Path json;
+
+    @Option(names = "--digits", paramLabel = "N", defaultValue = "7", description = "Significant digits on the card (default: ${DEFAULT-VALUE}).")
+    int digits;
+
+    @Option(names = "--templates", paramLabel = "DIR", description = "Folder of card templates overriding the bundled ones.")
+    Path templates;
+
+    @Option(names = "--force", description = "Replace existing output files.")
+    boolean force;
+
+    @picocli.CommandLine.Spec
+    picocli.CommandLine.Model.CommandSpec spec;
+
+    @Override
+    public Integer call() throws Exception {
+        List<Dialect> ds = new ArrayList<>();
+        for (String d : dialects == null ? List.of("ngspice", "spice3") : dialects) {
+            Dialect dialect = Dialect.byName(d.trim());
+            if (!ds.contains(dialect)) {
+                ds.add(dialect);
+            }
+        }
+        List<ParameterRule> parsed = new ArrayList<>();
+        for (String r : rules) {
+            parsed.add(ParameterRule.parse(r, SpiceNumbers::parse));
+        }
+        FitRequest request = new FitRequest(data, name, ds, out, Optional.ofNullable(json),
+                temperature == null ? OptionalDouble.empty() : OptionalDouble.of(temperature + Ngspice39.CELSIUS_TO_KELVIN),
+                DeviceKind.byOptionName(kind), parsed, digits, force, Optional.ofNullable(templates));
+        FitOutcome outcome = new FitWorkflow().run(request, o -> FitJson.write(name, o));
+        spec.commandLine().getOut().print(FitText.render(name, outcome));
+        spec.commandLine().getOut().flush();
+        return ExitCodes.OK;
+    }
+}

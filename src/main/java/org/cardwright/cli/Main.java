@@ -1,0 +1,110 @@
+package org.cardwright.cli;
+
+import java.io.PrintWriter;
+import org.cardwright.card.CardFormatException;
+import org.cardwright.card.CardTemplateException;
+import org.cardwright.data.DataFileException;
+import org.cardwright.fit.FitInputException;
+import org.cardwright.sim.process.SimulationException;
+import org.cardwright.workflow.OutputException;
+import org.cardwright.workflow.ToolVersion;
+import picocli.CommandLine;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Option;
+
+/**
+ * The {@code cardwright} command. {@link #main} calls {@link #execute}, which returns the exit code; the one
+ * place that maps failures to exit codes is {@link #handle}.
+ */
+@Command(name = "cardwright",
+        mixinStandardHelpOptions = true,
+        versionProvider = Main.Version.class,
+        description = {
+            "Fits SPICE diode .model cards to bench measurements and re-simulates each card against the same data.",
+            ""},
+        subcommands = {FitCommand.class, VerifyCommand.class, CommandLine.HelpCommand.class},
+        footerHeading = "%nExit codes%n",
+        footer = {
+            "  0  done; for verify: the card reproduces the data",
+            "  1  verify: the card does not reproduce the data within the limits",
+            "  2  wrong command line",
+            "  3  an input file is unreadable or malformed",
+            "  4  the data cannot support a fit",
+            "  5  an external simulator is missing, timed out or failed",
+            "  6  an output file exists (use --force) or cannot be written",
+            " 70  internal error (please report it, with --stack-trace)",
+            "",
+            "Bench safety: forward sweeps to amperes heat small parts well past touch-safe temperatures, and",
+            "breakdown and surge tests put high voltage on exposed leads. Set current and voltage compliance",
+            "limits before you connect a part, and follow your local codes and licensed practice."})
+public final class Main implements Runnable {
+
+    @Option(names = "--stack-trace", scope = CommandLine.ScopeType.INHERIT,
+            description = "On failure, print the Java stack trace as well as the one-line message.")
+    boolean stackTrace;
+
+    @CommandLine.Spec
+    CommandLine.Model.CommandSpec spec;
+
+    @Override
+    public void run() {
+        throw new CommandLine.ParameterException(spec.commandLine(), "name a command: fit or verify (try --help)");
+    }
+
+    public static void main(String[] args) {
+        System.exit(execute(args));
+    }
+
+    /** Runs the command line and returns the exit code; never calls System.exit. */
+    public static int execute(String... args) {
+        return execute(new PrintWriter(System.out, true), new PrintWriter(System.err, true), args);
+    }
+
+    /** Runs with the given output streams (for tests). */
+    public static int execute(PrintWriter out, PrintWriter err, String... args) {
+        CommandLine cl = new CommandLine(new Main());
+        cl.setOut(out);
+        cl.setErr(err);
+        cl.setExecutionExceptionHandler((ex, commandLine, parseResult) -> handle(ex, commandLine));
+        return cl.execute(args);
+    }
+
+    /** Maps a failure to its exit code, printing one line (and the stack trace on request). */
+    static int handle(Exception ex, CommandLine commandLine) {
+        PrintWriter err = commandLine.getErr();
+        Main root = commandLine.getCommandSpec().root().userObject() instanceof Main m ? m : null;
+        boolean trace = root != null && root.stackTrace;
+        int code;
+        String message = ex.getMessage();
+        if (ex instanceof DataFileException || ex instanceof CardFormatException || ex instanceof java.io.IOException) {
+            code = ExitCodes.BAD_INPUT;
+        } else if (ex instanceof FitInputException || ex instanceof IllegalStateException) {
+            code = ExitCodes.FIT_FAILED;
+        } else if (ex instanceof SimulationException) {
+            code = ExitCodes.SIMULATOR_FAILED;
+        } else if (ex instanceof OutputException) {
+            code = ExitCodes.OUTPUT_REFUSED;
+        } else if (ex instanceof IllegalArgumentException || ex instanceof CardTemplateException) {
+            code = ex instanceof CardTemplateException ? ExitCodes.BAD_INPUT : ExitCodes.USAGE;
+        } else {
+            code = ExitCodes.INTERNAL_ERROR;
+            message = "internal error (" + ex.getClass().getSimpleName() + "): " + message
+                    + "; please report it with the output of --stack-trace";
+        }
+        err.println("cardwright: " + message);
+        if (trace) {
+            ex.printStackTrace(err);
+        }
+        err.flush();
+        return code;
+    }
+
+    /** Reads the version from the build. */
+    static final class Version implements CommandLine.IVersionProvider {
+        @Override
+        public String[] getVersion() {
+            return new String[] {"cardwright " + ToolVersion.get(),
+                "diode equations: ngspice 39 level 1; Java " + System.getProperty("java.version")};
+        }
+    }
+}

@@ -1,0 +1,82 @@
+package org.cardwright.cli;
+
+import java.nio.file.Path;
+import java.util.List;
+import java.util.Optional;
+import java.util.OptionalDouble;
+import java.util.concurrent.Callable;
+import org.cardwright.card.Dialect;
+import org.cardwright.model.Ngspice39;
+import org.cardwright.report.VerificationJson;
+import org.cardwright.report.VerificationText;
+import org.cardwright.verify.Tolerance;
+import org.cardwright.verify.Verification;
+import org.cardwright.workflow.Engines;
+import org.cardwright.workflow.Inputs;
+import org.cardwright.workflow.VerifyRequest;
+import org.cardwright.workflow.VerifyWorkflow;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
+
+/** {@code cardwright verify}: does this card reproduce these measurements? */
+@Command(name = "verify", mixinStandardHelpOptions = true, sortOptions = false,
+        description = {
+            "Re-simulates a card at every measured forward point (forced current, measured temperature) and",
+            "compares the terminal voltage with the measurement, per temperature. Exits 0 when every",
+            "temperature is within the limits, 1 when not."},
+        footerHeading = "%nExamples%n",
+        footer = {
+            "  cardwright verify models/KS1.ngspice.lib fixtures/demo/ks1-fwd-*.csv",
+            "  cardwright verify models/KS1.ngspice.lib fixtures/demo/*.csv --engine ngspice --json check.json",
+            "  cardwright verify vendor.lib bench.csv --temp 25 --model D7 --limit-rms 5 --limit-max 15"})
+final class VerifyCommand implements Callable<Integer> {
+
+    @Parameters(index = "0", paramLabel = "CARD", description = "The card file (.lib, .mod, ...).")
+    Path card;
+
+    @Parameters(index = "1..*", arity = "1..*", paramLabel = "DATA", description = "Measurement CSV files.")
+    List<Path> data;
+
+    @Option(names = "--engine", paramLabel = "E", defaultValue = "builtin",
+            description = "Who simulates: " + Engines.NAMES + " (default: ${DEFAULT-VALUE}).")
+    String engine;
+
+    @Option(names = "--model", paramLabel = "NAME", description = "Which model, when the file holds several.")
+    String model;
+
+    @Option(names = "--dialect", paramLabel = "D", defaultValue = "ngspice",
+            description = "Dialect to read the card in (default: ${DEFAULT-VALUE}).")
+    String dialect;
+
+    @Option(names = "--temp", paramLabel = "DEGC", description = "Device temperature in degC for files without a T column.")
+    Double temperature;
+
+    @Option(names = "--limit-rms", paramLabel = "MV", defaultValue = "2",
+            description = "Largest RMS residual per temperature, in mV (default: ${DEFAULT-VALUE}).")
+    double limitRms;
+
+    @Option(names = "--limit-max", paramLabel = "MV", defaultValue = "5",
+            description = "Largest residual at any point, in mV (default: ${DEFAULT-VALUE}).")
+    double limitMax;
+
+    @Option(names = "--json", paramLabel = "FILE", description = "Also write the result, point by point, as JSON.")
+    Path json;
+
+    @Option(names = "--force", description = "Replace an existing JSON file.")
+    boolean force;
+
+    @picocli.CommandLine.Spec
+    picocli.CommandLine.Model.CommandSpec spec;
+
+    @Override
+    public Integer call() throws Exception {
+        VerifyRequest request = new VerifyRequest(card, data, engine, Optional.ofNullable(model), Dialect.byName(dialect),
+                temperature == null ? OptionalDouble.empty() : OptionalDouble.of(temperature + Ngspice39.CELSIUS_TO_KELVIN),
+                new Tolerance(limitRms * 1e-3, limitMax * 1e-3), Optional.ofNullable(json), force);
+        Verification v = new VerifyWorkflow().run(request, r -> VerificationJson.write(r, Inputs.displayName(card)));
+        spec.commandLine().getOut().print(VerificationText.render(v));
+        spec.commandLine().getOut().flush();
+        return v.pass() ? ExitCodes.OK : ExitCodes.NOT_REPRODUCED;
+    }
+}

@@ -1,0 +1,90 @@
+package org.cardwright.report;
+
+import java.util.Locale;
+import org.cardwright.fit.FitResult;
+import org.cardwright.fit.FittedParameter;
+import org.cardwright.fit.SweepResiduals;
+import org.cardwright.fit.TermDecision;
+import org.cardwright.model.Param;
+import org.cardwright.workflow.FitOutcome;
+
+/** The fit summary for a terminal. */
+public final class FitText {
+    private FitText() {
+    }
+
+    /** Renders the whole summary. */
+    public static String render(String name, FitOutcome outcome) {
+        FitResult r = outcome.fit();
+        StringBuilder sb = new StringBuilder();
+        for (String note : outcome.inputs().notes()) {
+            sb.append("note: ").append(note).append('\n');
+        }
+        sb.append(String.format(Locale.ROOT, "Model %s: %d forward points at %d temperature(s)%n%n", name, r.points(),
+                r.residuals().size()));
+        sb.append(parameterTable(r));
+        sb.append("\nOptional terms\n");
+        for (TermDecision d : r.terms()) {
+            sb.append(String.format(Locale.ROOT, "  %-28s %-4s %s%n", d.term() + " (" + keywords(d) + ")",
+                    d.included() ? "yes" : "no", d.reason()));
+        }
+        sb.append("\nResiduals, model minus measured terminal voltage\n");
+        sb.append(String.format(Locale.ROOT, "  %8s %6s %-22s %9s %9s  %s%n", "T [degC]", "points", "current range",
+                "RMS [mV]", "max [mV]", "largest at"));
+        for (SweepResiduals s : r.residuals()) {
+            sb.append(String.format(Locale.ROOT, "  %8s %6d %-22s %9s %9s  %s%n", Units.celsius(s.temperature()),
+                    s.points(), Units.engineering(s.lowCurrent(), "A") + " .. " + Units.engineering(s.highCurrent(), "A"),
+                    Units.millivolts(s.rms(), 3), Units.millivolts(s.max(), 3), Units.engineering(s.worstCurrent(), "A")));
+        }
+        sb.append(String.format(Locale.ROOT, "%nOptimiser: %s; %d evaluations; chi-square %.4g, reduced %.4g (%d degrees of freedom)%n",
+                r.stopReason(), r.evaluations(), r.chiSquare(), r.reducedChiSquare(), r.degreesOfFreedom()));
+        if (!r.warnings().isEmpty()) {
+            sb.append("\nWarnings\n");
+            for (String w : r.warnings()) {
+                sb.append("  - ").append(w).append('\n');
+            }
+        }
+        sb.append('\n');
+        for (FitOutcome.WrittenCard c : outcome.cards()) {
+            sb.append("wrote ").append(c.file().toString().replace('\\', '/')).append(" (").append(c.dialect().simulator());
+            if (!c.leftOut().isEmpty()) {
+                sb.append(String.format(Locale.ROOT, "; refitted without %s, worst RMS %s mV instead of %s mV",
+                        String.join(" ", c.leftOut().stream().map(Param::keyword).toList()),
+                        Units.millivolts(c.refit().orElseThrow().worstRms(), 3), Units.millivolts(r.worstRms(), 3)));
+            }
+            sb.append(")\n");
+        }
+        return sb.toString();
+    }
+
+    private static String keywords(TermDecision d) {
+        return String.join(", ", d.params().stream().map(Param::keyword).toList());
+    }
+
+    /** The parameter table: value, standard error, where the value came from. */
+    public static String parameterTable(FitResult r) {
+        StringBuilder sb = new StringBuilder();
+        sb.append(String.format(Locale.ROOT, "  %-5s %14s %-6s %12s  %s%n", "param", "value", "unit", "std. error", "origin"));
+        for (FittedParameter p : r.fitted()) {
+            String unit = p.param() == Param.TNOM ? "degC" : p.param().unit();
+            String err;
+            if (!p.fitted()) {
+                err = "";
+            } else if (!Double.isFinite(p.standardError())) {
+                err = "unknown";
+            } else if (p.value() != 0) {
+                err = String.format(Locale.ROOT, "%.3g %%", 100 * Math.abs(p.standardError() / p.value()));
+            } else {
+                err = String.format(Locale.ROOT, "%.3g", p.standardError());
+            }
+            String origin = switch (p.origin()) {
+                case FITTED -> "fitted";
+                case FIXED_BY_USER -> "held (your rule)";
+                case PRESET -> "held (preset)";
+            };
+            sb.append(String.format(Locale.ROOT, "  %-5s %14.6g %-6s %12s  %s%n", p.param().keyword(),
+                    p.param().toCardValue(p.value()), unit, err, origin));
+        }
+        return sb.toString();
+    }
+}

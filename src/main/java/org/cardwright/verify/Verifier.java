@@ -1,0 +1,60 @@
+package org.cardwright.verify;
+
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Map;
+import java.util.TreeMap;
+import org.cardwright.sim.Bias;
+import org.cardwright.sim.CardUnderTest;
+import org.cardwright.sim.OperatingPoint;
+import org.cardwright.sim.SimulationEngine;
+import org.cardwright.sim.process.SimulationException;
+
+/** Re-simulates a card at the measured currents with one engine and compares voltages, per temperature. */
+public final class Verifier {
+    private final SimulationEngine engine;
+    private final Tolerance tolerance;
+
+    public Verifier(SimulationEngine engine, Tolerance tolerance) {
+        this.engine = engine;
+        this.tolerance = tolerance;
+    }
+
+    /**
+     * @param card    the card as written
+     * @param forward measured forward points
+     * @param notes   notes to carry into the result (e.g. points set aside by the caller)
+     */
+    public Verification verify(CardUnderTest card, List<MeasuredPoint> forward, List<String> notes)
+            throws SimulationException {
+        List<Bias> biases = new ArrayList<>(forward.size());
+        for (MeasuredPoint p : forward) {
+            biases.add(Bias.current(p.current(), p.temperature()));
+        }
+        List<OperatingPoint> sim = engine.dc(card, biases);
+        List<PointResidual> residuals = new ArrayList<>(forward.size());
+        Map<Double, List<PointResidual>> byT = new TreeMap<>();
+        for (int i = 0; i < forward.size(); i++) {
+            PointResidual r = new PointResidual(forward.get(i), sim.get(i).voltage());
+            residuals.add(r);
+            byT.computeIfAbsent(forward.get(i).temperature(), t -> new ArrayList<>()).add(r);
+        }
+        List<TemperatureVerdict> verdicts = new ArrayList<>();
+        for (Map.Entry<Double, List<PointResidual>> e : byT.entrySet()) {
+            double sum = 0;
+            PointResidual worst = null;
+            for (PointResidual r : e.getValue()) {
+                sum += r.residual() * r.residual();
+                if (worst == null || Math.abs(r.residual()) > Math.abs(worst.residual())) {
+                    worst = r;
+                }
+            }
+            double rms = Math.sqrt(sum / e.getValue().size());
+            double max = Math.abs(worst.residual());
+            verdicts.add(new TemperatureVerdict(e.getKey(), e.getValue().size(), rms, max, worst.point().current(),
+                    worst.point().source() + ":" + worst.point().line(),
+                    rms <= tolerance.rms() && max <= tolerance.max()));
+        }
+        return new Verification(card.name(), engine.describe(), tolerance, verdicts, residuals, notes);
+    }
+}

@@ -1,0 +1,39 @@
+package org.cardwright.workflow;
+
+import java.nio.file.Path;
+import java.time.Duration;
+import java.util.Locale;
+import org.cardwright.model.SimulatorOptions;
+import org.cardwright.sim.BuiltinEngine;
+import org.cardwright.sim.NgspiceEngine;
+import org.cardwright.sim.SimulationEngine;
+import org.cardwright.sim.process.SimulationException;
+import org.cardwright.sim.process.SimulatorProcess;
+
+/** Engines by name. */
+public final class Engines {
+    /** Names accepted by {@link #byName}. */
+    public static final String NAMES = "builtin, ngspice";
+    /** Longest an external simulator may run for one verification [s]. */
+    private static final Duration TIMEOUT = Duration.ofSeconds(120);
+
+    private Engines() {
+    }
+
+    /** The engine called {@code name}; ngspice is looked up on the PATH or in CARDWRIGHT_NGSPICE. */
+    public static SimulationEngine byName(String name) throws SimulationException {
+        switch (name.toLowerCase(Locale.ROOT)) {
+            case "builtin":
+                return new BuiltinEngine(SimulatorOptions.NGSPICE_DEFAULTS);
+            case "ngspice": {
+                Path exe = SimulatorProcess.locate(SimulatorProcess.Kind.NGSPICE).orElseThrow(() -> new SimulationException(
+                        "ngspice not found on the PATH: install it (Debian/Ubuntu: apt-get install ngspice) or set "
+                                + SimulatorProcess.NGSPICE_VARIABLE + " to its path"));
+                Path work = Path.of(System.getProperty("java.io.tmpdir"), "cardwright-" + ProcessHandle.current().pid());
+                return new NgspiceEngine(new SimulatorProcess(SimulatorProcess.Kind.NGSPICE, exe, TIMEOUT), work);
+            }
+            default:
+                throw new IllegalArgumentException("unknown engine '" + name + "'; choose one of " + NAMES);
+        }
+    }
+}

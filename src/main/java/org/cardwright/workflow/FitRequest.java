@@ -1,0 +1,48 @@
+package org.cardwright.workflow;
+
+import java.nio.file.Path;
+import java.util.List;
+import java.util.Optional;
+import java.util.OptionalDouble;
+import org.cardwright.card.Dialect;
+import org.cardwright.fit.DeviceKind;
+import org.cardwright.fit.ParameterRule;
+
+/**
+ * Everything the fit job needs.
+ *
+ * @param data        measurement files
+ * @param name        model name for the card
+ * @param dialects    dialects to write, in order
+ * @param outDir      folder for the cards
+ * @param json        where to write the machine-readable result, if anywhere
+ * @param temperature device temperature for files without a T column [K]
+ * @param kind        device kind
+ * @param rules       user rules per parameter (TNOM among them)
+ * @param digits      significant digits on the card
+ * @param force       allow replacing existing files
+ * @param templates   folder of user templates overriding the bundled ones
+ */
+public record FitRequest(List<Path> data, String name, List<Dialect> dialects, Path outDir, Optional<Path> json,
+                         OptionalDouble temperature, DeviceKind kind, List<ParameterRule> rules, int digits,
+                         boolean force, Optional<Path> templates) {
+    public FitRequest {
+        data = List.copyOf(data);
+        dialects = List.copyOf(dialects);
+        rules = List.copyOf(rules);
+        if (data.isEmpty()) {
+            throw new IllegalArgumentException("no data files given");
+        }
+        if (dialects.isEmpty()) {
+            throw new IllegalArgumentException("no dialect given");
+        }
+        if (digits < 4 || digits > 15) {
+            throw new IllegalArgumentException("--digits must lie in 4..15, got " + digits);
+        }
+    }
+
+    /** The card file for {@code d}: {@code OUT/NAME.DIALECT.lib}. */
+    public Path cardPath(Dialect d) {
+        return outDir.resolve(name + "." + d.shortName() + ".lib");
+    }
+}

@@ -1,0 +1,138 @@
+package org.cardwright.workflow;
+
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+import java.util.Optional;
+import java.util.stream.Collectors;
+import org.cardwright.card.CardWriter;
+import org.cardwright.card.Dialect;
+import org.cardwright.card.ModelCard;
+import org.cardwright.data.DataFileException;
+import org.cardwright.data.MeasurementFile;
+import org.cardwright.data.ReadOptions;
+import org.cardwright.fit.FitInputException;
+import org.cardwright.fit.FitPoint;
+import org.cardwright.fit.FitResult;
+import org.cardwright.fit.FitSettings;
+import org.cardwright.fit.ForwardExtraction;
+import org.cardwright.fit.ParameterRule;
+import org.cardwright.model.DiodeParameters;
+import org.cardwright.model.Param;
+
+/**
+ * The fit job: read the data, fit, write one card per dialect (refitting without the terms a dialect cannot
+ * carry, and saying what that costs), and the JSON result. Nothing is written unless everything succeeded.
+ */
+public final class FitWorkflow {
+    /**
+     * Voltage uncertainty assumed for points without a stated one [V]: one millivolt, a typical 4.5-digit meter
+     * on its 2 V range (common practice, no source). Uniform weights make the fitted values independent of it;
+     * the standard errors are scaled by the reduced chi-square.
+     */
+    public static final double DEFAULT_VOLTAGE_SIGMA = 1e-3;
+
+    /** Runs the job; see the class comment. */
+    public FitOutcome run(FitRequest request, java.util.function.Function<FitOutcome, String> jsonRenderer)
+            throws DataFileException, FitInputException, OutputException {
+        List<Path> targets = new ArrayList<>();
+        request.dialects().forEach(d -> targets.add(request.cardPath(d)));
+        request.json().ifPresent(targets::add);
+        OutputFiles.checkWritable(targets, request.force());
+
+        ReadOptions options = ReadOptions.defaults();
+        if (request.temperature().isPresent()) {
+            options = options.withDefaultTemperature(request.temperature().getAsDouble());
+        }
+        Inputs inputs = Inputs.read(request.data(), options);
+        List<FitPoint> points = new ArrayList<>();
+        for (Inputs.Located l : inputs.forward()) {
+            points.add(new FitPoint(l.point().current(), l.point().voltage(), l.point().temperature(),
+                    DEFAULT_VOLTAGE_SIGMA, l.source(), l.point().line()));
+        }
+        if (points.isEmpty()) {
+            throw new FitInputException(request.data().stream().map(Inputs::displayName).collect(Collectors.joining(", "))
+                    + ": no forward I-V points (positive current) to fit");
+        }
+        FitSettings settings = FitSettings.defaults().withKind(request.kind()).withRules(request.rules());
+        FitResult full = new ForwardExtraction(settings).fit(points);
+
+        CardWriter writer = new CardWriter(request.templates());
+        List<FitOutcome.WrittenCard> cards = new ArrayList<>();
+        for (Dialect d : request.dialects()) {
+            List<Param> leftOut = new ArrayList<>();
+            for (Param p : full.parameters().givenParameters()) {
+                if (!d.carries(p) && full.parameters().get(p) != defaultOf(full.parameters(), p)) {
+                    leftOut.add(p);
+                }
+            }
+            FitResult forCard = full;
+            Optional<FitResult> refit = Optional.empty();
+            if (!leftOut.isEmpty()) {
+                List<ParameterRule> rules = new ArrayList<>(request.rules());
+                for (Param p : leftOut) {
+                    if (p.activeOnlyWhenGiven()) {
+                        rules.add(new ParameterRule(p, ParameterRule.Kind.OFF, Double.NaN,
+                                Double.NEGATIVE_INFINITY, Double.POSITIVE_INFINITY));
+                    } else if (!(p == Param.NR && leftOut.contains(Param.ISR))) {
+                        rules.add(ParameterRule.fixed(p, p.defaultValue()));
+                    }
+                }
+                forCard = new ForwardExtraction(settings.withRules(rules)).fit(points);
+                refit = Optional.of(forCard);
+            }
+            ModelCard card = new ModelCard(request.name(), forCard.parameters(),
+                    provenance(request, inputs, full, forCard, d, leftOut));
+            CardWriter.Rendered rendered = writer.render(card, d, request.digits());
+            cards.add(new FitOutcome.WrittenCard(d, request.cardPath(d), rendered.text(), leftOut, refit));
+        }
+
+        for (FitOutcome.WrittenCard c : cards) {
+            OutputFiles.writeAtomically(c.file(), c.text());
+        }
+        FitOutcome outcome = new FitOutcome(full, cards, inputs);
+        if (request.json().isPresent()) {
+            OutputFiles.writeAtomically(request.json().get(), jsonRenderer.apply(outcome));
+        }
+        return outcome;
+    }
+
+    private static double defaultOf(DiodeParameters p, Param q) {
+        return q == Param.NBV ? p.get(Param.N) : q.defaultValue();
+    }
+
+    private static List<String> provenance(FitRequest request, Inputs inputs, FitResult full, FitResult forCard,
+                                           Dialect d, List<Param> leftOut) {
+        List<String> lines = new ArrayList<>();
+        lines.add("model " + request.name() + ": junction diode for " + d.simulator() + ", written by cardwright "
+                + ToolVersion.get());
+        lines.add("device kind: " + request.kind().description());
+        for (MeasurementFile f : inputs.files()) {
+            lines.add("data: " + Inputs.displayName(f.file()) + " sha256 " + f.sha256());
+        }
+        lines.add(String.format(Locale.ROOT, "fit: %d forward points at %s degC; worst RMS residual %s mV",
+                full.points(), temperatures(full), mv(forCard.worstRms(), 3)));
+        if (!request.rules().isEmpty()) {
+            lines.add("rules: " + request.rules().stream().map(ParameterRule::text).collect(Collectors.joining(" ")));
+        }
+        if (!leftOut.isEmpty()) {
+            lines.add(String.format(Locale.ROOT,
+                    "%s cannot carry %s: refitted without; worst RMS residual %s mV instead of %s mV",
+                    d.shortName(), leftOut.stream().map(Param::keyword).collect(Collectors.joining(" ")),
+                    mv(forCard.worstRms(), 3), mv(full.worstRms(), 3)));
+        }
+        lines.add("verify: cardwright verify " + request.cardPath(d).toString().replace('\\', '/') + " "
+                + inputs.files().stream().map(f -> Inputs.displayName(f.file())).collect(Collectors.joining(" ")));
+        return lines;
+    }
+
+    private static String mv(double volts, int decimals) {
+        return String.format(Locale.ROOT, "%." + decimals + "f", volts * 1e3);
+    }
+
+    private static String temperatures(FitResult r) {
+        return r.residuals().stream().map(s -> String.format(Locale.ROOT, "%.1f", s.temperature() - org.cardwright.model.Ngspice39.CELSIUS_TO_KELVIN))
+                .collect(Collectors.joining(", "));
+    }
+}

@@ -1,0 +1,31 @@
+package org.cardwright.workflow;
+
+import java.nio.file.Path;
+import java.util.List;
+import java.util.Optional;
+import java.util.OptionalDouble;
+import org.cardwright.card.Dialect;
+import org.cardwright.verify.Tolerance;
+
+/**
+ * Everything the verify job needs.
+ *
+ * @param card        the card file
+ * @param data        measurement files
+ * @param engine      engine name: builtin or ngspice
+ * @param model       which model of a multi-model file, if more than one
+ * @param dialect     the dialect to read the card in
+ * @param temperature device temperature for files without a T column [K]
+ * @param tolerance   pass limits
+ * @param json        where to write the machine-readable result, if anywhere
+ * @param force       allow replacing an existing JSON file
+ */
+public record VerifyRequest(Path card, List<Path> data, String engine, Optional<String> model, Dialect dialect,
+                            OptionalDouble temperature, Tolerance tolerance, Optional<Path> json, boolean force) {
+    public VerifyRequest {
+        data = List.copyOf(data);
+        if (data.isEmpty()) {
+            throw new IllegalArgumentException("no data files given");
+        }
+    }
+}
