@@ -128,7 +128,11 @@ final class StartValues {
             double dv = s.get(i + 1).voltage() - s.get(i - 1).voltage();
             double dl = Math.log(s.get(i + 1).current() / s.get(i - 1).current());
             if (dl > 0) {
-                xy.add(new double[] {s.get(i).current(), dv / dl});
+                // abscissa: the secant of I over the same difference, dI/d(ln I) = I taken consistently with the
+                // finite difference of V, so the I·RS part is differenced exactly (a plain I_i would bias RS by
+                // sinh(h)/h, 0.2 % at 20 points per decade)
+                double di = s.get(i + 1).current() - s.get(i - 1).current();
+                xy.add(new double[] {di / dl, dv / dl});
             }
         }
         if (xy.size() >= 3) {

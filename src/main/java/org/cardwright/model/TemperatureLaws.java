@@ -96,7 +96,17 @@ public final class TemperatureLaws {
      */
     public static double saturationCurrentAt(double isNominal, double emission, double eg, double xti,
                                              double t, double tnom) {
-        double vt = Ngspice39.thermalVoltage(t);
+        return saturationCurrentAt(isNominal, emission, eg, xti, t, tnom, Ngspice39.K_OVER_Q);
+    }
+
+    /**
+     * The same law with an explicit k/q, for simulators and references that use other constants.
+     *
+     * @param kOverQ Boltzmann constant over elementary charge [V/K]
+     */
+    public static double saturationCurrentAt(double isNominal, double emission, double eg, double xti,
+                                             double t, double tnom, double kOverQ) {
+        double vt = kOverQ * t;
         double ratio = t / tnom;
         return isNominal * Math.exp((ratio - 1) * eg / (emission * vt) + xti / emission * Math.log(ratio));
     }

@@ -1,0 +1,78 @@
+package org.cardwright.model;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.params.ParameterizedTest;
+import org.junit.jupiter.params.provider.CsvSource;
+
+/**
+ * The model against values from outside the project (shared/reference/check-values.md, each with its source
+ * mark: READ from the named source, COMPUTED independently, RECALLED from memory).
+ */
+class PublishedValuesTest {
+    /** The tables are printed to seven significant digits. */
+    private static final double SEVEN_DIGITS = 5e-7;
+    /** k/q from the exact SI 2019 values k = 1.380649e-23 J/K, q = 1.602176634e-19 C (check-values.md) [V/K]. */
+    private static final double CODATA_2018_K_OVER_Q = 1.380649e-23 / 1.602176634e-19;
+
+    @ParameterizedTest(name = "Eg({0} K)")
+    @CsvSource({"77, 1.1564876", "300, 1.1151278", "300.15, 1.1150877", "400, 1.0855172"})
+    void bandGapMatchesTheSpiceFormula(double kelvin, double eV) {
+        // check-values.md "Silicon and SPICE facts": Eg(T) = 1.16 - 7.02e-4 T^2/(T + 1108), values COMPUTED
+        assertEquals(eV, Ngspice39.bandGap(kelvin), 5e-8);
+    }
+
+    @ParameterizedTest(name = "IS({0} K), N={1}, EG={2}, XTI={3}")
+    @CsvSource({
+        "250.15, 1, 1.11, 3, 1.089556e-18",
+        "273.15, 1, 1.11, 3, 1.083667e-16",
+        "350.15, 1, 1.11, 3, 7.280450e-12",
+        "400.15, 1, 1.11, 3, 1.077387e-09",
+        "250.15, 2, 1.11, 3, 1.043818e-16",
+        "273.15, 2, 1.11, 3, 1.040993e-15",
+        "350.15, 2, 1.11, 3, 2.698231e-13",
+        "400.15, 2, 1.11, 3, 3.282358e-12",
+        "250.15, 1, 0.69, 2, 3.357178e-17",
+        "273.15, 1, 0.69, 2, 5.928117e-16",
+        "350.15, 1, 0.69, 2, 6.140760e-13",
+        "400.15, 1, 0.69, 2, 1.396714e-11"})
+    void saturationCurrentFollowsTheSpiceTemperatureLaw(double kelvin, double n, double eg, double xti, double expected) {
+        // check-values.md "IS temperature law": ngspice manual (READ), table COMPUTED, IS = 1e-14 A,
+        // TNOM = 300.15 K. The page says "with the ngspice constants", but its numbers follow the CODATA 2018
+        // k/q exactly (ngspice's CODATA 2014 k/q moves the 400 K value by 3.9e-6 relative, beyond the seven
+        // printed digits), so the law is checked here with the constant the table was evidently made with.
+        double got = TemperatureLaws.saturationCurrentAt(1e-14, n, eg, xti, kelvin, 300.15, CODATA_2018_K_OVER_Q);
+        assertEquals(expected, got, SEVEN_DIGITS * expected);
+        // with the ngspice constants the full temperature update gives the same law up to that constant
+        DiodeParameters p = DiodeParameters.of(java.util.Map.of(Param.IS, 1e-14, Param.N, n, Param.EG, eg, Param.XTI, xti));
+        DiodeAtTemperature d = TemperatureLaws.at(p, kelvin, SimulatorOptions.NGSPICE_DEFAULTS);
+        assertEquals(TemperatureLaws.saturationCurrentAt(1e-14, n, eg, xti, kelvin, 300.15, Ngspice39.K_OVER_Q),
+                d.saturationCurrent(), 1e-13 * expected, "through the full temperature update");
+        assertEquals(expected, d.saturationCurrent(), 1e-5 * expected, "ngspice constants: within the k/q difference");
+    }
+
+    @Test
+    void forwardVoltageTemperatureCoefficientAtOneMilliamp() {
+        // check-values.md: dVF/dT at constant current = (VF - EG - XTI kT/q)/T (derived), -1.774 mV/K at 1 mA for
+        // IS = 1e-14, N = 1 (COMPUTED); the model's own finite difference must agree
+        DiodeParameters p = DiodeParameters.of(java.util.Map.of(Param.IS, 1e-14));
+        double t = 300.15;
+        double h = 0.01;
+        double up = DiodeSolver.voltageAtCurrent(TemperatureLaws.at(p, t + h, SimulatorOptions.NGSPICE_DEFAULTS), 1e-3);
+        double down = DiodeSolver.voltageAtCurrent(TemperatureLaws.at(p, t - h, SimulatorOptions.NGSPICE_DEFAULTS), 1e-3);
+        assertEquals(-1.774e-3, (up - down) / (2 * h), 0.0005e-3);
+    }
+
+    @Test
+    void banwellJayakumarWorkedNumberThroughTheSolver() {
+        // Banwell & Jayakumar, Electron. Lett. 36(4) (2000) 291-292: Is = 25 fA, n = 1, R = 249.3 ohm, V = 0.9 V,
+        // Vt = 0.0257025 V gives I = 1.08485e-3 A (check-values.md, READ via the Boost.Math examples; COMPUTED
+        // 1.08485174e-3 A). The solver uses kT/q, so the temperature is chosen to give that Vt, and GMIN is 0
+        // because the worked number has none.
+        double t = 0.0257025 / Ngspice39.K_OVER_Q;
+        DiodeParameters p = DiodeParameters.of(java.util.Map.of(Param.IS, 25e-15, Param.RS, 249.3, Param.TNOM, t));
+        DiodeAtTemperature d = TemperatureLaws.at(p, t, new SimulatorOptions(0, 1e-3));
+        assertEquals(1.08485174e-3, DiodeSolver.currentAtVoltage(d, 0.9), 5e-12);
+    }
+}
