@@ -198,14 +198,17 @@ public final class CardReader {
     }
 
     private static String noticeFor(String keyword, String raw, Dialect dialect) {
-        if (dialect.isKnownUnsupported(keyword)) {
-            return "'" + raw + "' is a " + dialect.simulator()
-                    + " keyword that cardwright does not carry for this simulator; ignored";
-        }
         Optional<Param> elsewhere = Dialect.NGSPICE.resolve(keyword);
+        if (elsewhere.isPresent() && dialect.carries(elsewhere.get())) {
+            return "'" + raw + "' is not a " + dialect.simulator() + " spelling of " + elsewhere.get().keyword()
+                    + "; ignored";
+        }
         if (elsewhere.isPresent()) {
-            return "'" + raw + "' (" + elsewhere.get().keyword() + ") is not a " + dialect.simulator()
-                    + " parameter; ignored";
+            return "'" + raw + "' (" + elsewhere.get().keyword() + ") is not carried by " + dialect.simulator()
+                    + "; ignored";
+        }
+        if (dialect.isKnownUnsupported(keyword)) {
+            return "'" + raw + "' is known to " + dialect.simulator() + " but not modelled by cardwright; ignored";
         }
         return "unknown parameter '" + raw + "' for " + dialect.simulator() + "; ignored";
     }
