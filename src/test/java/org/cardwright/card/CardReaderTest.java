@@ -37,8 +37,8 @@ class CardReaderTest {
     static Stream<Arguments> corpus() {
         return Stream.of(
                 Arguments.of("one-line.mod", Dialect.NGSPICE, "DSIG1", values(
-                        Param.IS, 4.35e-9, Param.N, 1.906, Param.RS, 0.6458, Param.CJO, 1.25e-12, Param.VJ, 0.75,
-                        Param.M, 0.333, Param.TT, 5.76e-9, Param.BV, 75.0, Param.IBV, 1e-6), 0),
+                        Param.IS, 3.1e-9, Param.N, 1.84, Param.RS, 0.82, Param.CJO, 1.6e-12, Param.VJ, 0.71,
+                        Param.M, 0.36, Param.TT, 4.2e-9, Param.BV, 80.0, Param.IBV, 2e-6), 0),
                 Arguments.of("continuation.mod", Dialect.NGSPICE, "drect2", values(
                         Param.IS, 12.5e-9, Param.N, 1.72, Param.RS, 28e-3, Param.CJO, 55e-12, Param.VJ, 0.42,
                         Param.M, 0.38, Param.TT, 3.1e-6, Param.BV, 400.0, Param.IBV, 10e-6), 0),
