@@ -180,7 +180,8 @@ public final class ForwardExtraction {
         }
 
         // ---- stage 2: global fit of the base model ------------------------------------------------------
-        Run best = run(points, DiodeParameters.of(start), free);
+        List<ResidualBlock> blocks = List.of(new ForwardBlock(points, settings.options()));
+        Run best = run(blocks, DiodeParameters.of(start), free);
         int n = points.size();
         double bestBic = bic(best.rss(), n, best.layout().size());
 
@@ -199,7 +200,7 @@ public final class ForwardExtraction {
                 trialFree.addAll(term.params());
                 Run r;
                 try {
-                    r = run(points, DiodeParameters.of(trial), trialFree);
+                    r = run(blocks, DiodeParameters.of(trial), trialFree);
                 } catch (RuntimeException e) {
                     lastDelta.put(term, Double.NaN);
                     continue;
@@ -228,7 +229,7 @@ public final class ForwardExtraction {
                             : String.format(Locale.ROOT, "not warranted: BIC changed by %+.1f (needs below -%.0f)", d, BIC_THRESHOLD)));
         }
 
-        return summarise(points, best, sweeps, decisions, warnings, start);
+        return summarise(points, blocks, best, sweeps, decisions, warnings, start);
     }
 
     // ---------------------------------------------------------------------------------------------------
@@ -376,7 +377,7 @@ public final class ForwardExtraction {
         };
     }
 
-    private Run run(List<FitPoint> points, DiodeParameters start, List<Param> free) {
+    private Run run(List<ResidualBlock> blocks, DiodeParameters start, List<Param> free) {
         // start values outside the bounds are brought inside before the fit starts
         DiodeParameters clamped = start;
         for (Param p : free) {
@@ -391,15 +392,15 @@ public final class ForwardExtraction {
             }
         }
         FreeParameters layout = new FreeParameters(clamped, free, FreeParameters.boundsOf(free, this::bounds));
-        ForwardModel model = new ForwardModel(points, layout, settings.options());
+        JointProblem model = new JointProblem(blocks, layout);
         double[] x0 = layout.toInternal(clamped);
         if (free.isEmpty()) {
-            double rss = rss(model, clamped);
+            double rss = model.chiSquare(clamped);
             return new Run(clamped, layout, x0, rss, 1, 0, "nothing to fit: every parameter is held");
         }
         LeastSquaresProblem problem = new LeastSquaresBuilder()
                 .model(model)
-                .target(model.target())
+                .target(new double[model.rows()])
                 .start(x0)
                 .parameterValidator(v -> new ArrayRealVector(layout.clamp(v.toArray()), false))
                 .maxEvaluations(MAX_EVALUATIONS)
@@ -426,29 +427,20 @@ public final class ForwardExtraction {
             throw new IllegalStateException("the fit stopped: " + e.getMessage());
         }
         DiodeParameters result = layout.toParameters(x);
-        return new Run(result, layout, x, rss(model, result), evals, iters, stop);
-    }
-
-    private static double rss(ForwardModel model, DiodeParameters p) {
-        double[] v = model.voltages(p);
-        List<FitPoint> pts = model.points();
-        double s = 0;
-        for (int i = 0; i < v.length; i++) {
-            double r = (v[i] - pts.get(i).voltage()) / pts.get(i).sigma();
-            s += r * r;
-        }
-        return s;
+        return new Run(result, layout, x, model.chiSquare(result), evals, iters, stop);
     }
 
     private static double bic(double rss, int n, int k) {
         return n * Math.log(Math.max(rss / n, RESIDUAL_FLOOR_SQUARED)) + k * Math.log(n);
     }
 
-    private FitResult summarise(List<FitPoint> points, Run best, Map<Double, List<FitPoint>> sweeps,
-                                List<TermDecision> decisions, List<String> warnings, Map<Param, Double> start) {
+    private FitResult summarise(List<FitPoint> points, List<ResidualBlock> blocks, Run best,
+                                Map<Double, List<FitPoint>> sweeps, List<TermDecision> decisions,
+                                List<String> warnings, Map<Param, Double> start) {
         FreeParameters layout = best.layout();
-        ForwardModel model = new ForwardModel(points, layout, settings.options());
-        int n = points.size();
+        JointProblem model = new JointProblem(blocks, layout);
+        ForwardBlock forward = new ForwardBlock(points, settings.options());
+        int n = model.rows();
         int k = layout.size();
         int dof = n - k;
         double chi2 = best.rss();
@@ -457,7 +449,7 @@ public final class ForwardExtraction {
         double[] se = new double[k];
         double[][] corr = new double[k][k];
         if (k > 0) {
-            RealMatrix j = model.value(new ArrayRealVector(best.x(), false)).getSecond();
+            RealMatrix j = model.jacobian(best.x());
             RealMatrix jtj = j.transpose().multiply(j);
             SingularValueDecomposition svd = new SingularValueDecomposition(jtj);
             RealMatrix cov = svd.getSolver().getInverse();
@@ -519,7 +511,7 @@ public final class ForwardExtraction {
             }
         }
 
-        double[] v = model.voltages(p);
+        double[] v = forward.voltages(p);
         List<SweepResiduals> residuals = new ArrayList<>();
         for (Map.Entry<Double, List<FitPoint>> e : sweeps.entrySet()) {
             double sum = 0;
@@ -528,7 +520,7 @@ public final class ForwardExtraction {
             double lo = Double.POSITIVE_INFINITY;
             double hi = 0;
             int count = 0;
-            for (int i = 0; i < n; i++) {
+            for (int i = 0; i < points.size(); i++) {
                 FitPoint pt = points.get(i);
                 if (pt.temperature() != e.getKey()) {
                     continue;

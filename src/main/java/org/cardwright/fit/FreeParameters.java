@@ -10,7 +10,7 @@ import org.cardwright.model.Param;
  * (natural logarithm for positive values that span decades, linear otherwise), and within which bounds. The
  * parameters that do not vary come from {@code base}.
  */
-final class FreeParameters {
+public final class FreeParameters {
     private final DiodeParameters base;
     private final List<Param> free;
     private final boolean[] logScale;
@@ -34,11 +34,11 @@ final class FreeParameters {
         }
     }
 
-    List<Param> free() {
+    public List<Param> free() {
         return free;
     }
 
-    int size() {
+    public int size() {
         return free.size();
     }
 
@@ -46,7 +46,7 @@ final class FreeParameters {
         return base;
     }
 
-    boolean isLog(int j) {
+    public boolean isLog(int j) {
         return logScale[j];
     }
 
@@ -61,7 +61,7 @@ final class FreeParameters {
     }
 
     /** The parameter set for the optimiser's vector {@code x}. */
-    DiodeParameters toParameters(double[] x) {
+    public DiodeParameters toParameters(double[] x) {
         DiodeParameters p = base;
         for (int j = 0; j < x.length; j++) {
             p = p.with(free.get(j), value(j, x[j]));

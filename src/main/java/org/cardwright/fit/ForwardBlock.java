@@ -1,44 +1,41 @@
 package org.cardwright.fit;
 
-import java.util.ArrayList;
+import java.util.EnumSet;
 import java.util.List;
 import java.util.Map;
+import java.util.Set;
 import java.util.TreeMap;
-import org.apache.commons.math3.linear.Array2DRowRealMatrix;
-import org.apache.commons.math3.linear.ArrayRealVector;
-import org.apache.commons.math3.linear.RealMatrix;
-import org.apache.commons.math3.linear.RealVector;
-import org.apache.commons.math3.fitting.leastsquares.MultivariateJacobianFunction;
-import org.apache.commons.math3.util.Pair;
 import org.cardwright.model.DiodeAtTemperature;
 import org.cardwright.model.DiodeParameters;
 import org.cardwright.model.DiodeSolver;
 import org.cardwright.model.JunctionCurrent;
+import org.cardwright.model.Param;
 import org.cardwright.model.SimulatorOptions;
 import org.cardwright.model.TemperatureLaws;
 
 /**
- * Weighted terminal voltages of the model at the measured currents, and their derivatives with respect to
- * the free parameters, for the optimiser.
+ * Forward I-V: terminal-voltage residuals at the measured currents. Voltage at forced current is the
+ * natural log-space residual of an exponential characteristic: every decade of current weighs the same.
  *
  * <p>The derivative of the terminal voltage V = vd(I) + I·RS(T) at fixed current uses implicit
  * differentiation of the junction equation I = Ij(vd; p): dvd/dp = -(dIj/dp at fixed vd)/(dIj/dvd). Only the
  * explicit dIj/dp and dRS(T)/dp are taken by central differences, which needs no extra solves and is accurate
- * to about 1e-10 relative (checked against whole finite differences in the tests).
+ * to about 1e-10 relative.
  */
-final class ForwardModel implements MultivariateJacobianFunction {
+final class ForwardBlock implements ResidualBlock {
     /** Central-difference step on the optimiser's scale (log or linear). */
     private static final double STEP = 1e-6;
+    private static final Set<Param> DEPENDS = EnumSet.of(Param.IS, Param.N, Param.RS, Param.ISR, Param.NR,
+            Param.IKF, Param.EG, Param.XTI, Param.TRS1, Param.TRS2, Param.VJ, Param.M, Param.BV, Param.IBV, Param.NBV,
+            Param.TCV);
 
     private final FitPoint[] points;
     private final double[] temperatures;
     private final int[] group;
-    private final FreeParameters layout;
     private final SimulatorOptions options;
 
-    ForwardModel(List<FitPoint> points, FreeParameters layout, SimulatorOptions options) {
+    ForwardBlock(List<FitPoint> points, SimulatorOptions options) {
         this.points = points.toArray(new FitPoint[0]);
-        this.layout = layout;
         this.options = options;
         TreeMap<Double, Integer> index = new TreeMap<>();
         for (FitPoint pt : points) {
@@ -56,13 +53,19 @@ final class ForwardModel implements MultivariateJacobianFunction {
         }
     }
 
-    /** The weighted measured voltages V/sigma, the optimiser's target. */
-    double[] target() {
-        double[] t = new double[points.length];
-        for (int i = 0; i < t.length; i++) {
-            t[i] = points[i].voltage() / points[i].sigma();
-        }
-        return t;
+    @Override
+    public String label() {
+        return "forward I-V";
+    }
+
+    @Override
+    public int size() {
+        return points.length;
+    }
+
+    @Override
+    public Set<Param> dependsOn() {
+        return DEPENDS;
     }
 
     /** Model terminal voltages at the measured currents for parameters {@code p} [V]. */
@@ -71,6 +74,15 @@ final class ForwardModel implements MultivariateJacobianFunction {
         double[] v = new double[points.length];
         for (int i = 0; i < v.length; i++) {
             v[i] = DiodeSolver.voltageAtCurrent(at[group[i]], points[i].current());
+        }
+        return v;
+    }
+
+    @Override
+    public double[] residuals(DiodeParameters p) {
+        double[] v = voltages(p);
+        for (int i = 0; i < v.length; i++) {
+            v[i] = (v[i] - points[i].voltage()) / points[i].sigma();
         }
         return v;
     }
@@ -84,8 +96,7 @@ final class ForwardModel implements MultivariateJacobianFunction {
     }
 
     @Override
-    public Pair<RealVector, RealMatrix> value(RealVector point) {
-        double[] x = point.toArray();
+    public double[][] jacobian(FreeParameters layout, double[] x) {
         DiodeParameters p = layout.toParameters(x);
         DiodeAtTemperature[] at = scaled(p);
         int nFree = layout.size();
@@ -93,6 +104,9 @@ final class ForwardModel implements MultivariateJacobianFunction {
         DiodeAtTemperature[][] minus = new DiodeAtTemperature[nFree][];
         double[] steps = new double[nFree];
         for (int j = 0; j < nFree; j++) {
+            if (!DEPENDS.contains(layout.free().get(j))) {
+                continue;
+            }
             double h = layout.isLog(j) ? STEP : STEP * Math.max(Math.abs(x[j]), 1e-3);
             steps[j] = h;
             double[] xp = x.clone();
@@ -102,16 +116,17 @@ final class ForwardModel implements MultivariateJacobianFunction {
             plus[j] = scaled(layout.toParameters(xp));
             minus[j] = scaled(layout.toParameters(xm));
         }
-        double[] model = new double[points.length];
         double[][] jac = new double[points.length][nFree];
         for (int i = 0; i < points.length; i++) {
             DiodeAtTemperature d = at[group[i]];
             double current = points[i].current();
             double w = 1 / points[i].sigma();
             double vd = DiodeSolver.junctionVoltageAtCurrent(d, current);
-            model[i] = (vd + current * d.seriesResistance()) * w;
             double g = JunctionCurrent.conductance(d, vd);
             for (int j = 0; j < nFree; j++) {
+                if (plus[j] == null) {
+                    continue;
+                }
                 DiodeAtTemperature dp = plus[j][group[i]];
                 DiodeAtTemperature dm = minus[j][group[i]];
                 double dIdp = (JunctionCurrent.current(dp, vd) - JunctionCurrent.current(dm, vd)) / (2 * steps[j]);
@@ -119,7 +134,7 @@ final class ForwardModel implements MultivariateJacobianFunction {
                 jac[i][j] = (-dIdp / g + current * dRdp) * w;
             }
         }
-        return new Pair<>(new ArrayRealVector(model, false), new Array2DRowRealMatrix(jac, false));
+        return jac;
     }
 
     /** Distinct temperatures of the points, ascending [K]. */
@@ -128,6 +143,6 @@ final class ForwardModel implements MultivariateJacobianFunction {
     }
 
     List<FitPoint> points() {
-        return new ArrayList<>(List.of(points));
+        return List.of(points);
     }
 }
