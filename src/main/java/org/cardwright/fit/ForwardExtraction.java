@@ -8,14 +8,6 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.TreeMap;
-import org.apache.commons.math3.exception.ConvergenceException;
-import org.apache.commons.math3.exception.TooManyEvaluationsException;
-import org.apache.commons.math3.exception.TooManyIterationsException;
-import org.apache.commons.math3.fitting.leastsquares.LeastSquaresBuilder;
-import org.apache.commons.math3.fitting.leastsquares.LeastSquaresOptimizer;
-import org.apache.commons.math3.fitting.leastsquares.LeastSquaresProblem;
-import org.apache.commons.math3.fitting.leastsquares.LevenbergMarquardtOptimizer;
-import org.apache.commons.math3.linear.ArrayRealVector;
 import org.apache.commons.math3.linear.RealMatrix;
 import org.apache.commons.math3.linear.SingularValueDecomposition;
 import org.cardwright.model.DiodeParameters;
@@ -48,8 +40,7 @@ public final class ForwardExtraction {
     public static final double MIN_DECADES = 2;
     /** A correlation beyond this is reported [1]. */
     private static final double STRONG_CORRELATION = 0.995;
-    private static final int MAX_EVALUATIONS = 4000;
-
+    
     private final FitSettings settings;
 
     public ForwardExtraction(FitSettings settings) {
@@ -63,11 +54,6 @@ public final class ForwardExtraction {
     private static final Term RECOMBINATION = new Term("recombination current", List.of(Param.ISR, Param.NR));
     private static final Term HIGH_INJECTION = new Term("high injection", List.of(Param.IKF));
     private static final Term RS_TEMPCO = new Term("RS temperature coefficient", List.of(Param.TRS1));
-
-    /** Outcome of one least-squares run. */
-    private record Run(DiodeParameters parameters, FreeParameters layout, double[] x, double rss, int evaluations,
-                       int iterations, String stopReason) {
-    }
 
     /**
      * Fits the forward parameters to {@code points}.
@@ -181,7 +167,7 @@ public final class ForwardExtraction {
 
         // ---- stage 2: global fit of the base model ------------------------------------------------------
         List<ResidualBlock> blocks = List.of(new ForwardBlock(points, settings.options()));
-        Run best = run(blocks, DiodeParameters.of(start), free);
+        Optimiser.Run best = run(blocks, DiodeParameters.of(start), free);
         int n = points.size();
         double bestBic = bic(best.rss(), n, best.layout().size());
 
@@ -189,7 +175,7 @@ public final class ForwardExtraction {
         Map<Term, Double> lastDelta = new LinkedHashMap<>();
         while (!candidates.isEmpty()) {
             Term chosen = null;
-            Run chosenRun = null;
+            Optimiser.Run chosenRun = null;
             double chosenBic = Double.POSITIVE_INFINITY;
             for (Term term : candidates) {
                 EnumMap<Param, Double> trial = new EnumMap<>(Param.class);
@@ -198,7 +184,7 @@ public final class ForwardExtraction {
                         best.parameters().get(Param.EG), best.parameters().get(Param.XTI));
                 List<Param> trialFree = new ArrayList<>(best.layout().free());
                 trialFree.addAll(term.params());
-                Run r;
+                Optimiser.Run r;
                 try {
                     r = run(blocks, DiodeParameters.of(trial), trialFree);
                 } catch (RuntimeException e) {
@@ -377,64 +363,15 @@ public final class ForwardExtraction {
         };
     }
 
-    private Run run(List<ResidualBlock> blocks, DiodeParameters start, List<Param> free) {
-        // start values outside the bounds are brought inside before the fit starts
-        DiodeParameters clamped = start;
-        for (Param p : free) {
-            double[] b = bounds(p);
-            double v = start.get(p);
-            double c = Math.min(b[1], Math.max(b[0], v));
-            if (p.fitScale() == Param.Scale.LOG && c <= 0) {
-                c = b[0];
-            }
-            if (c != v) {
-                clamped = clamped.with(p, c);
-            }
-        }
-        FreeParameters layout = new FreeParameters(clamped, free, FreeParameters.boundsOf(free, this::bounds));
-        JointProblem model = new JointProblem(blocks, layout);
-        double[] x0 = layout.toInternal(clamped);
-        if (free.isEmpty()) {
-            double rss = model.chiSquare(clamped);
-            return new Run(clamped, layout, x0, rss, 1, 0, "nothing to fit: every parameter is held");
-        }
-        LeastSquaresProblem problem = new LeastSquaresBuilder()
-                .model(model)
-                .target(new double[model.rows()])
-                .start(x0)
-                .parameterValidator(v -> new ArrayRealVector(layout.clamp(v.toArray()), false))
-                .maxEvaluations(MAX_EVALUATIONS)
-                .maxIterations(MAX_EVALUATIONS)
-                .lazyEvaluation(false)
-                .build();
-        LevenbergMarquardtOptimizer lm = new LevenbergMarquardtOptimizer()
-                .withCostRelativeTolerance(1e-13)
-                .withParameterRelativeTolerance(1e-13)
-                .withOrthoTolerance(1e-13);
-        String stop;
-        double[] x;
-        int evals;
-        int iters;
-        try {
-            LeastSquaresOptimizer.Optimum opt = lm.optimize(problem);
-            x = layout.clamp(opt.getPoint().toArray());
-            evals = opt.getEvaluations();
-            iters = opt.getIterations();
-            stop = "converged: relative change of cost and parameters below 1e-13 after " + iters + " iterations";
-        } catch (TooManyEvaluationsException | TooManyIterationsException e) {
-            throw new IllegalStateException("the fit did not converge within " + MAX_EVALUATIONS + " evaluations");
-        } catch (ConvergenceException e) {
-            throw new IllegalStateException("the fit stopped: " + e.getMessage());
-        }
-        DiodeParameters result = layout.toParameters(x);
-        return new Run(result, layout, x, model.chiSquare(result), evals, iters, stop);
+    private Optimiser.Run run(List<ResidualBlock> blocks, DiodeParameters start, List<Param> free) {
+        return Optimiser.run(blocks, start, free, this::bounds);
     }
 
     private static double bic(double rss, int n, int k) {
         return n * Math.log(Math.max(rss / n, RESIDUAL_FLOOR_SQUARED)) + k * Math.log(n);
     }
 
-    private FitResult summarise(List<FitPoint> points, List<ResidualBlock> blocks, Run best,
+    private FitResult summarise(List<FitPoint> points, List<ResidualBlock> blocks, Optimiser.Run best,
                                 Map<Double, List<FitPoint>> sweeps, List<TermDecision> decisions,
                                 List<String> warnings, Map<Param, Double> start) {
         FreeParameters layout = best.layout();

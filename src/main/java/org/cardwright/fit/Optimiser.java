@@ -1,0 +1,92 @@
+package org.cardwright.fit;
+
+import java.util.List;
+import java.util.function.Function;
+import org.apache.commons.math3.exception.ConvergenceException;
+import org.apache.commons.math3.exception.TooManyEvaluationsException;
+import org.apache.commons.math3.exception.TooManyIterationsException;
+import org.apache.commons.math3.fitting.leastsquares.LeastSquaresBuilder;
+import org.apache.commons.math3.fitting.leastsquares.LeastSquaresOptimizer;
+import org.apache.commons.math3.fitting.leastsquares.LeastSquaresProblem;
+import org.apache.commons.math3.fitting.leastsquares.LevenbergMarquardtOptimizer;
+import org.apache.commons.math3.linear.ArrayRealVector;
+import org.cardwright.model.DiodeParameters;
+import org.cardwright.model.Param;
+
+/**
+ * One Levenberg-Marquardt minimisation (Levenberg, Q. Appl. Math. 2 (1944) 164-168; Marquardt, J. SIAM 11
+ * (1963) 431-441; the Commons Math implementation follows Moré, LNM 630 (1978)) of stacked residual blocks,
+ * with bounds kept by clamping the optimiser's vector.
+ */
+final class Optimiser {
+    private static final int MAX_EVALUATIONS = 4000;
+
+    private Optimiser() {
+    }
+
+    /** Outcome of one least-squares run. */
+    record Run(DiodeParameters parameters, FreeParameters layout, double[] x, double rss, int evaluations,
+               int iterations, String stopReason) {
+    }
+
+    /**
+     * Minimises the stacked weighted residuals of {@code blocks} over the {@code free} parameters, starting
+     * from {@code start}, within {@code bounds}.
+     *
+     * @throws IllegalStateException when the optimiser does not converge
+     */
+    static Run run(List<ResidualBlock> blocks, DiodeParameters start, List<Param> free,
+                   Function<Param, double[]> bounds) {
+        // start values outside the bounds are brought inside before the fit starts
+        DiodeParameters clamped = start;
+        for (Param p : free) {
+            double[] b = bounds.apply(p);
+            double v = start.get(p);
+            double c = Math.min(b[1], Math.max(b[0], v));
+            if (p.fitScale() == Param.Scale.LOG && c <= 0) {
+                c = b[0];
+            }
+            if (c != v) {
+                clamped = clamped.with(p, c);
+            }
+        }
+        FreeParameters layout = new FreeParameters(clamped, free, FreeParameters.boundsOf(free, bounds));
+        JointProblem model = new JointProblem(blocks, layout);
+        double[] x0 = layout.toInternal(clamped);
+        if (free.isEmpty()) {
+            double rss = model.chiSquare(clamped);
+            return new Run(clamped, layout, x0, rss, 1, 0, "nothing to fit: every parameter is held");
+        }
+        LeastSquaresProblem problem = new LeastSquaresBuilder()
+                .model(model)
+                .target(new double[model.rows()])
+                .start(x0)
+                .parameterValidator(v -> new ArrayRealVector(layout.clamp(v.toArray()), false))
+                .maxEvaluations(MAX_EVALUATIONS)
+                .maxIterations(MAX_EVALUATIONS)
+                .lazyEvaluation(false)
+                .build();
+        LevenbergMarquardtOptimizer lm = new LevenbergMarquardtOptimizer()
+                .withCostRelativeTolerance(1e-13)
+                .withParameterRelativeTolerance(1e-13)
+                .withOrthoTolerance(1e-13);
+        String stop;
+        double[] x;
+        int evals;
+        int iters;
+        try {
+            LeastSquaresOptimizer.Optimum opt = lm.optimize(problem);
+            x = layout.clamp(opt.getPoint().toArray());
+            evals = opt.getEvaluations();
+            iters = opt.getIterations();
+            stop = "converged: relative change of cost and parameters below 1e-13 after " + iters + " iterations";
+        } catch (TooManyEvaluationsException | TooManyIterationsException e) {
+            throw new IllegalStateException("the fit did not converge within " + MAX_EVALUATIONS + " evaluations");
+        } catch (ConvergenceException e) {
+            throw new IllegalStateException("the fit stopped: " + e.getMessage());
+        }
+        DiodeParameters result = layout.toParameters(x);
+        return new Run(result, layout, x, model.chiSquare(result), evals, iters, stop);
+    }
+
+}
