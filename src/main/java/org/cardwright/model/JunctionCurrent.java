@@ -36,6 +36,41 @@ public final class JunctionCurrent {
         return evaluate(d, vd, true);
     }
 
+    /**
+     * The conductance ngspice 39 reports for the junction ({@code @d1[gd]}, the AC conductance, and the g of
+     * its diffusion capacitance TT·g) [S]. It equals {@link #conductance} except where the recombination term
+     * (ISR) is active: there ngspice takes the derivative of the factor f = ((1 - vd/VJ)^2 + 0.005)^(M/2)
+     * without its 1/VJ and multiplies it by the already scaled current I_rec·f (docs/model.md, "DC current",
+     * the reported-conductance quirk). The high-injection derivative and GMIN then apply as usual.
+     *
+     * @param d  parameters at the device temperature
+     * @param vd intrinsic junction voltage [V]
+     */
+    public static double reportedConductance(DiodeAtTemperature d, double vd) {
+        double vte = d.emissionCoefficient() * d.thermalVoltage();
+        if (!d.hasRecombination() || vd < -3 * vte) {
+            return conductance(d, vd);
+        }
+        double is = d.saturationCurrent();
+        double e = Math.exp(vd / vte);
+        double vtr = d.recombinationEmission() * d.thermalVoltage();
+        double er = Math.exp(vd / vtr);
+        double u = 1 - vd / d.junctionPotential();
+        double mHalf = d.gradingCoefficient() / 2;
+        double t = u * u + 0.005;
+        double f = Math.pow(t, mHalf);
+        double irec = d.recombinationCurrent() * (er - 1);
+        // ngspice's slip: the derivative of f lacks 1/VJ and multiplies the already scaled current irec·f
+        double slippedDf = -d.gradingCoefficient() * u * Math.pow(t, mHalf - 1);
+        double i = is * (e - 1) + irec * f;
+        double g = is * e / vte + d.recombinationCurrent() * er / vtr * f + irec * f * slippedDf;
+        if (d.hasForwardKnee() && i > KNEE_THRESHOLD) {
+            double s = Math.sqrt(i / d.forwardKneeCurrent());
+            g = g * (1 + s / 2) / ((1 + s) * (1 + s));
+        }
+        return g + d.gmin();
+    }
+
     private static double evaluate(DiodeAtTemperature d, double vd, boolean wantConductance) {
         double is = d.saturationCurrent();
         double vt = d.thermalVoltage();
