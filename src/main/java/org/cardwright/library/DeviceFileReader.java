@@ -1,0 +1,359 @@
+package org.cardwright.library;
+
+import com.fasterxml.jackson.annotation.JsonProperty;
+import com.fasterxml.jackson.core.JsonLocation;
+import com.fasterxml.jackson.core.JsonParser;
+import com.fasterxml.jackson.core.JsonProcessingException;
+import com.fasterxml.jackson.core.JsonToken;
+import com.fasterxml.jackson.databind.DeserializationContext;
+import com.fasterxml.jackson.databind.DeserializationFeature;
+import com.fasterxml.jackson.databind.JsonMappingException;
+import com.fasterxml.jackson.databind.annotation.JsonDeserialize;
+import com.fasterxml.jackson.databind.deser.std.StdDeserializer;
+import com.fasterxml.jackson.databind.exc.MismatchedInputException;
+import com.fasterxml.jackson.databind.exc.UnrecognizedPropertyException;
+import com.fasterxml.jackson.dataformat.yaml.YAMLMapper;
+import java.io.IOException;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.HashSet;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.Optional;
+import java.util.OptionalDouble;
+import java.util.Set;
+import java.util.stream.Collectors;
+import org.cardwright.card.Dialect;
+import org.cardwright.card.SpiceNumbers;
+import org.cardwright.fit.DeviceKind;
+import org.cardwright.fit.ParameterRule;
+import org.cardwright.model.Ngspice39;
+import org.cardwright.verify.Tolerance;
+
+/**
+ * Reads device files: YAML (through Jackson's YAML module), one part per file. Every key must be one this
+ * version knows; an unknown key, a repeated key, a value of the wrong form or an invalid value is a
+ * {@link DeviceFileException} naming the file, the line and the key or raw value. The format is documented in
+ * docs/device-files.md.
+ */
+public final class DeviceFileReader {
+    /** Device files end with this, e.g. {@code RX10.device.yaml}. */
+    public static final String SUFFIX = ".device.yaml";
+
+    private static final YAMLMapper MAPPER = YAMLMapper.builder()
+            .enable(DeserializationFeature.FAIL_ON_UNKNOWN_PROPERTIES)
+            .enable(DeserializationFeature.FAIL_ON_NULL_FOR_PRIMITIVES)
+            .enable(DeserializationFeature.FAIL_ON_TRAILING_TOKENS)
+            .enable(JsonParser.Feature.STRICT_DUPLICATE_DETECTION)
+            .build();
+
+    /** A scalar as written and the line it stands on. */
+    record Located(String text, int line) {
+    }
+
+    /** Reads any scalar (string, number, boolean) as text, remembering its line. */
+    static final class LocatedDeserializer extends StdDeserializer<Located> {
+        private static final long serialVersionUID = 1L;
+
+        LocatedDeserializer() {
+            super(Located.class);
+        }
+
+        @Override
+        public Located deserialize(JsonParser p, DeserializationContext ctxt) throws IOException {
+            JsonToken t = p.currentToken();
+            int line = p.currentTokenLocation().getLineNr();
+            if (t != null && t.isScalarValue()) {
+                return new Located(p.getText(), line);
+            }
+            return (Located) ctxt.handleUnexpectedToken(Located.class, p);
+        }
+    }
+
+    record DataEntry(@JsonProperty("file") @JsonDeserialize(using = LocatedDeserializer.class) Located file,
+                     @JsonProperty("kind") @JsonDeserialize(using = LocatedDeserializer.class) Located kind,
+                     @JsonProperty("temperature") @JsonDeserialize(using = LocatedDeserializer.class) Located temperature,
+                     @JsonProperty("options") @JsonDeserialize(contentUsing = LocatedDeserializer.class) Map<String, Located> options) {
+    }
+
+    record ToleranceEntry(
+            @JsonProperty("forward-rms-mv") @JsonDeserialize(using = LocatedDeserializer.class) Located forwardRms,
+            @JsonProperty("forward-max-mv") @JsonDeserialize(using = LocatedDeserializer.class) Located forwardMax,
+            @JsonProperty("leakage-factor") @JsonDeserialize(using = LocatedDeserializer.class) Located leakageFactor,
+            @JsonProperty("capacitance-percent") @JsonDeserialize(using = LocatedDeserializer.class) Located capacitance,
+            @JsonProperty("breakdown-percent") @JsonDeserialize(using = LocatedDeserializer.class) Located breakdown) {
+    }
+
+    record Document(@JsonProperty("model") @JsonDeserialize(using = LocatedDeserializer.class) Located model,
+                    @JsonProperty("kind") @JsonDeserialize(using = LocatedDeserializer.class) Located kind,
+                    @JsonProperty("data") List<DataEntry> data,
+                    @JsonProperty("rules") @JsonDeserialize(contentUsing = LocatedDeserializer.class) List<Located> rules,
+                    @JsonProperty("dialects") @JsonDeserialize(contentUsing = LocatedDeserializer.class) List<Located> dialects,
+                    @JsonProperty("digits") @JsonDeserialize(using = LocatedDeserializer.class) Located digits,
+                    @JsonProperty("cards") @JsonDeserialize(using = LocatedDeserializer.class) Located cards,
+                    @JsonProperty("templates") @JsonDeserialize(using = LocatedDeserializer.class) Located templates,
+                    @JsonProperty("tolerance") ToleranceEntry tolerance) {
+    }
+
+    /** Reads and checks one device file. */
+    public DeviceFile read(Path path) throws DeviceFileException {
+        String text;
+        try {
+            text = Files.readString(path, StandardCharsets.UTF_8);
+        } catch (IOException e) {
+            throw new DeviceFileException(path, 0, "cannot read the device file (" + e.getMessage() + ")", e);
+        }
+        return parse(text, path);
+    }
+
+    /** Checks one device file's text; {@code path} names it in messages and anchors its relative paths. */
+    public DeviceFile parse(String text, Path path) throws DeviceFileException {
+        Document doc;
+        try {
+            doc = MAPPER.readValue(text, Document.class);
+        } catch (UnrecognizedPropertyException e) {
+            String known = e.getKnownPropertyIds() == null ? "" : e.getKnownPropertyIds().stream()
+                    .map(Object::toString).sorted().collect(Collectors.joining(", "));
+            throw new DeviceFileException(path, line(e.getLocation()), "unknown key '" + e.getPropertyName() + "'"
+                    + where(e) + (known.isEmpty() ? "" : "; known keys here: " + known), e);
+        } catch (MismatchedInputException e) {
+            throw new DeviceFileException(path, line(e.getLocation()), "wrong form for "
+                    + (e.getPath().isEmpty() ? "the document" : "key '" + pathText(e) + "'") + ": expected "
+                    + expected(e.getTargetType()), e);
+        } catch (JsonProcessingException e) {
+            throw new DeviceFileException(path, line(e.getLocation()), firstLine(e.getOriginalMessage()), e);
+        }
+        if (doc == null) {
+            throw new DeviceFileException(path, 0, "empty device file: it needs at least the keys model and data");
+        }
+        return check(doc, path);
+    }
+
+    private static DeviceFile check(Document doc, Path path) throws DeviceFileException {
+        if (doc.model() == null) {
+            throw new DeviceFileException(path, 1, "missing key 'model' (the model name on the cards)");
+        }
+        String model = doc.model().text().trim();
+        if (!org.cardwright.card.ModelCard.isSpiceIdentifier(model)) {
+            throw new DeviceFileException(path, doc.model().line(),
+                    "model name is not a SPICE identifier (a letter, then letters, digits, _ . - +): '" + model + "'");
+        }
+        DeviceKind kind = DeviceKind.SILICON_PN;
+        if (doc.kind() != null) {
+            try {
+                kind = DeviceKind.byOptionName(doc.kind().text());
+            } catch (IllegalArgumentException e) {
+                throw new DeviceFileException(path, doc.kind().line(), e.getMessage());
+            }
+        }
+        if (doc.data() == null || doc.data().isEmpty()) {
+            throw new DeviceFileException(path, 1, "missing key 'data' (the measurement files, at least one)");
+        }
+        List<DataSource> data = new ArrayList<>();
+        Set<String> seen = new HashSet<>();
+        for (DataEntry e : doc.data()) {
+            if (e == null || e.file() == null || e.file().text().isBlank()) {
+                int at = e == null ? 0 : firstLine(e);
+                throw new DeviceFileException(path, at, "a data entry needs 'file'");
+            }
+            String file = e.file().text().trim().replace('\\', '/');
+            if (!seen.add(file)) {
+                throw new DeviceFileException(path, e.file().line(), "data file listed twice: '" + file + "'");
+            }
+            DataKindName dk = DataKindName.FORWARD;
+            if (e.kind() != null) {
+                dk = DataKindName.bySpelling(e.kind().text()).orElseThrow(() -> new DeviceFileException(path,
+                        e.kind().line(), "unknown data kind '" + e.kind().text() + "'; choose one of "
+                                + DataKindName.spellings()));
+            }
+            OptionalDouble temperature = OptionalDouble.empty();
+            if (e.temperature() != null) {
+                double c = number(path, e.temperature(), "temperature");
+                double k = c + Ngspice39.CELSIUS_TO_KELVIN;
+                if (!(k > 0)) {
+                    throw new DeviceFileException(path, e.temperature().line(),
+                            "temperature is below absolute zero: '" + e.temperature().text() + "' degC");
+                }
+                temperature = OptionalDouble.of(k);
+            }
+            Map<String, String> options = new LinkedHashMap<>();
+            if (e.options() != null) {
+                for (Map.Entry<String, Located> o : e.options().entrySet()) {
+                    if (dk.readable()) {
+                        int at = o.getValue() == null ? e.file().line() : o.getValue().line();
+                        throw new DeviceFileException(path, at, "unknown option '" + o.getKey() + "' for "
+                                + dk.spelling() + " data: this kind takes no options");
+                    }
+                    options.put(o.getKey(), o.getValue() == null ? "" : o.getValue().text());
+                }
+            }
+            data.add(new DataSource(file, dk, temperature, options, e.file().line()));
+        }
+        List<ParameterRule> rules = new ArrayList<>();
+        Set<org.cardwright.model.Param> ruled = new HashSet<>();
+        for (Located r : doc.rules() == null ? List.<Located>of() : doc.rules()) {
+            ParameterRule rule;
+            try {
+                rule = ParameterRule.parse(r.text().trim(), SpiceNumbers::parse);
+            } catch (IllegalArgumentException ex) {
+                throw new DeviceFileException(path, r.line(), ex.getMessage());
+            }
+            if (!ruled.add(rule.param())) {
+                throw new DeviceFileException(path, r.line(), "a second rule for " + rule.param() + ": '" + r.text() + "'");
+            }
+            rules.add(rule);
+        }
+        List<Dialect> dialects = new ArrayList<>();
+        if (doc.dialects() == null || doc.dialects().isEmpty()) {
+            dialects.add(Dialect.NGSPICE);
+            dialects.add(Dialect.SPICE3);
+        } else {
+            for (Located d : doc.dialects()) {
+                Dialect dialect;
+                try {
+                    dialect = Dialect.byName(d.text());
+                } catch (IllegalArgumentException ex) {
+                    throw new DeviceFileException(path, d.line(), ex.getMessage());
+                }
+                if (dialects.contains(dialect)) {
+                    throw new DeviceFileException(path, d.line(), "dialect listed twice: '" + d.text() + "'");
+                }
+                dialects.add(dialect);
+            }
+        }
+        int digits = DeviceFile.DEFAULT_DIGITS;
+        if (doc.digits() != null) {
+            try {
+                digits = Integer.parseInt(doc.digits().text().trim());
+            } catch (NumberFormatException ex) {
+                throw new DeviceFileException(path, doc.digits().line(), "digits is not a whole number: '" + doc.digits().text() + "'");
+            }
+            if (digits < 4 || digits > 15) {
+                throw new DeviceFileException(path, doc.digits().line(), "digits must lie in 4..15, got " + digits);
+            }
+        }
+        String cards = doc.cards() == null ? "." : relative(path, doc.cards(), "cards");
+        Optional<String> templates = doc.templates() == null ? Optional.empty()
+                : Optional.of(relative(path, doc.templates(), "templates"));
+        PartTolerances tolerances = tolerances(path, doc.tolerance());
+        try {
+            return new DeviceFile(path, model, kind, data, rules, dialects, digits, cards, templates, tolerances);
+        } catch (IllegalArgumentException ex) {
+            throw new DeviceFileException(path, 1, ex.getMessage());
+        }
+    }
+
+    private static PartTolerances tolerances(Path path, ToleranceEntry t) throws DeviceFileException {
+        PartTolerances d = PartTolerances.DEFAULT;
+        if (t == null) {
+            return d;
+        }
+        double rms = t.forwardRms() == null ? d.forward().rms() : positive(path, t.forwardRms(), "forward-rms-mv") * 1e-3;
+        double max = t.forwardMax() == null ? d.forward().max() : positive(path, t.forwardMax(), "forward-max-mv") * 1e-3;
+        double leak = d.leakageFactor();
+        if (t.leakageFactor() != null) {
+            leak = number(path, t.leakageFactor(), "leakage-factor");
+            if (!(leak > 1)) {
+                throw new DeviceFileException(path, t.leakageFactor().line(),
+                        "leakage-factor must be above 1 (a ratio), got '" + t.leakageFactor().text() + "'");
+            }
+        }
+        double cap = t.capacitance() == null ? d.capacitanceRelative() : positive(path, t.capacitance(), "capacitance-percent") / 100;
+        double bv = t.breakdown() == null ? d.breakdownRelative() : positive(path, t.breakdown(), "breakdown-percent") / 100;
+        return new PartTolerances(new Tolerance(rms, max), leak, cap, bv);
+    }
+
+    private static double positive(Path path, Located v, String key) throws DeviceFileException {
+        double x = number(path, v, key);
+        if (!(x > 0)) {
+            throw new DeviceFileException(path, v.line(), key + " must be positive, got '" + v.text() + "'");
+        }
+        return x;
+    }
+
+    private static double number(Path path, Located v, String key) throws DeviceFileException {
+        try {
+            double x = Double.parseDouble(v.text().trim());
+            if (!Double.isFinite(x)) {
+                throw new NumberFormatException();
+            }
+            return x;
+        } catch (NumberFormatException e) {
+            throw new DeviceFileException(path, v.line(), key + " is not a number: '" + v.text() + "'");
+        }
+    }
+
+    private static String relative(Path path, Located v, String key) throws DeviceFileException {
+        String s = v.text().trim().replace('\\', '/');
+        if (s.isEmpty() || s.startsWith("/") || s.matches("^[A-Za-z]:.*")) {
+            throw new DeviceFileException(path, v.line(), key + " must be a folder relative to the device file, got '" + v.text() + "'");
+        }
+        return s;
+    }
+
+    private static int firstLine(DataEntry e) {
+        for (Located l : new Located[] {e.file(), e.kind(), e.temperature()}) {
+            if (l != null) {
+                return l.line();
+            }
+        }
+        return 0;
+    }
+
+    private static int line(JsonLocation location) {
+        return location == null || location.getLineNr() < 0 ? 0 : location.getLineNr();
+    }
+
+    private static String pathText(JsonMappingException e) {
+        StringBuilder sb = new StringBuilder();
+        for (JsonMappingException.Reference r : e.getPath()) {
+            if (r.getFieldName() != null) {
+                sb.append(sb.length() == 0 ? "" : ".").append(r.getFieldName());
+            } else if (r.getIndex() >= 0) {
+                sb.append('[').append(r.getIndex() + 1).append(']');
+            }
+        }
+        return sb.toString();
+    }
+
+    private static String where(JsonMappingException e) {
+        List<JsonMappingException.Reference> refs = e.getPath();
+        if (refs.size() <= 1) {
+            return "";
+        }
+        StringBuilder sb = new StringBuilder();
+        for (JsonMappingException.Reference r : refs.subList(0, refs.size() - 1)) {
+            if (r.getFieldName() != null) {
+                sb.append(sb.length() == 0 ? "" : ".").append(r.getFieldName());
+            } else if (r.getIndex() >= 0) {
+                sb.append('[').append(r.getIndex() + 1).append(']');
+            }
+        }
+        return " under '" + sb + "'";
+    }
+
+    private static String expected(Class<?> type) {
+        if (type == null) {
+            return "another form";
+        }
+        if (List.class.isAssignableFrom(type)) {
+            return "a list ('- item' lines)";
+        }
+        if (type == Located.class) {
+            return "a single value";
+        }
+        return "a mapping ('key: value' lines)";
+    }
+
+    private static String firstLine(String message) {
+        if (message == null) {
+            return "malformed YAML";
+        }
+        String m = message.strip();
+        int end = m.indexOf('\n');
+        return end < 0 ? m : m.substring(0, end);
+    }
+}

@@ -1,0 +1,241 @@
+package org.cardwright.library;
+
+import java.io.IOException;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.LinkedHashSet;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.Optional;
+import java.util.Set;
+import java.util.function.Consumer;
+import org.cardwright.card.Dialect;
+import org.cardwright.fit.FitInputException;
+import org.cardwright.fit.SweepResiduals;
+import org.cardwright.workflow.OutputException;
+import org.cardwright.workflow.OutputFiles;
+
+/**
+ * Builds a model library: every device file under a root, one part after the other, in the order of their
+ * library-relative names.
+ *
+ * <p>A part is fitted only when its recipe ({@link Recipe}: settings, data hashes, templates, tool version) differs
+ * from its build record, or a card is missing. A card whose text comes out as it already is on disk is not
+ * written at all. A card whose text on disk is not one cardwright wrote (by the record's hashes) was edited by
+ * hand: the part is refused, unless the build was told to replace edited cards. Every file is written to a
+ * temporary file beside it and renamed into place.
+ */
+public final class LibraryBuilder {
+
+    /** Writes one file whole or not at all. */
+    @FunctionalInterface
+    interface FileWriting {
+        void write(Path target, String text) throws OutputException;
+    }
+
+    private final boolean replaceEdited;
+    private final FileWriting files;
+
+    /** @param replaceEdited replace cards edited by hand (the build refuses them otherwise) */
+    public LibraryBuilder(boolean replaceEdited) {
+        this(replaceEdited, OutputFiles::writeAtomically);
+    }
+
+    LibraryBuilder(boolean replaceEdited, FileWriting files) {
+        this.replaceEdited = replaceEdited;
+        this.files = files;
+    }
+
+    /**
+     * Builds every part under {@code root}.
+     *
+     * @param progress receives one line per part as it finishes, e.g. {@code [ 3/20] diodes/RX10 built in 1.2 s ...}
+     */
+    public List<PartOutcome> build(Path root, Consumer<String> progress) throws IOException {
+        List<Path> devices = LibraryPaths.deviceFiles(root);
+        List<PartOutcome> out = new ArrayList<>();
+        int width = Integer.toString(devices.size()).length();
+        for (int i = 0; i < devices.size(); i++) {
+            PartOutcome o = buildPart(root, devices.get(i));
+            out.add(o);
+            progress.accept(String.format(Locale.ROOT, "[%" + width + "d/%d] %s", i + 1, devices.size(), line(o)));
+        }
+        return out;
+    }
+
+    /** The progress line of a part. */
+    public static String line(PartOutcome o) {
+        String status = switch (o.status()) {
+            case UP_TO_DATE -> "up to date";
+            case BUILT -> String.format(Locale.ROOT, "built in %.1f s", o.seconds());
+            case REFUSED_EDITED -> "REFUSED";
+            case BAD_INPUT -> "BAD INPUT";
+            case FIT_FAILED -> "FIT FAILED";
+            case WRITE_FAILED -> "WRITE FAILED";
+        };
+        return o.device() + " (" + o.model() + "): " + status + (o.message().isEmpty() ? "" : ": " + o.message());
+    }
+
+    /** Builds the one part described by {@code device}. */
+    PartOutcome buildPart(Path root, Path device) {
+        long start = System.nanoTime();
+        String name = LibraryPaths.display(root, device);
+        DeviceFile part;
+        try {
+            part = new DeviceFileReader().read(device);
+        } catch (DeviceFileException e) {
+            return failed(name, device.getFileName().toString(), PartOutcome.Status.BAD_INPUT, e.getMessage(), start);
+        }
+        try {
+            Recipe recipe = Recipe.of(part);
+            Optional<BuildState> state;
+            try {
+                state = BuildState.read(part.statePath());
+            } catch (IOException e) {
+                return failed(name, part.model(), PartOutcome.Status.BAD_INPUT, e.getMessage(), start);
+            }
+            List<String> edited = new ArrayList<>();
+            boolean missing = false;
+            for (Dialect d : part.dialects()) {
+                Path card = part.cardPath(d);
+                if (!Files.exists(card)) {
+                    missing = true;
+                    continue;
+                }
+                String hash = Hashes.sha256(card);
+                if (state.isEmpty() || !state.get().wrote(card.getFileName().toString(), hash)) {
+                    edited.add(LibraryPaths.display(root, card));
+                }
+            }
+            if (!edited.isEmpty() && !replaceEdited) {
+                String why = state.isEmpty() ? "exists but has no build record (" + LibraryPaths.display(root, part.statePath())
+                        + "), so it was not written by cardwright build" : "was changed since cardwright wrote it";
+                return failed(name, part.model(), PartOutcome.Status.REFUSED_EDITED, String.join(", ", edited) + " " + why
+                        + "; to keep the change, put it in the device file (e.g. a rule such as RS=0.5) and build again;"
+                        + " to overwrite it, build with --replace-edited", start);
+            }
+            if (edited.isEmpty() && !missing && state.isPresent() && state.get().recipe().equals(recipe.sha256())
+                    && settled(part, state.get())) {
+                return new PartOutcome(name, part.model(), PartOutcome.Status.UP_TO_DATE, "", List.of(), List.of(),
+                        seconds(start), List.of());
+            }
+            PartFitter.Fitted fitted = new PartFitter().fit(part, root, recipe, List.of());
+            return write(root, name, part, recipe, state, fitted, edited, start);
+        } catch (DeviceFileException | LibraryInputException e) {
+            return failed(name, part.model(), PartOutcome.Status.BAD_INPUT, e.getMessage(), start);
+        } catch (FitInputException | IllegalStateException e) {
+            return failed(name, part.model(), PartOutcome.Status.FIT_FAILED, e.getMessage(), start);
+        } catch (OutputException e) {
+            return failed(name, part.model(), PartOutcome.Status.WRITE_FAILED, e.getMessage(), start);
+        } catch (IOException e) {
+            return failed(name, part.model(), PartOutcome.Status.BAD_INPUT, e.getMessage(), start);
+        } catch (IllegalArgumentException e) {
+            return failed(name, part.model(), PartOutcome.Status.BAD_INPUT, e.getMessage(), start);
+        }
+    }
+
+    private PartOutcome write(Path root, String name, DeviceFile part, Recipe recipe, Optional<BuildState> old,
+                              PartFitter.Fitted fitted, List<String> edited, long start) throws OutputException, IOException {
+        Map<String, Set<String>> finalCards = new LinkedHashMap<>();
+        Map<String, Set<String>> pendingCards = new LinkedHashMap<>();
+        Map<String, List<BuildState.Residual>> residuals = new LinkedHashMap<>();
+        List<PartFitter.Card> changed = new ArrayList<>();
+        List<String> unchanged = new ArrayList<>();
+        for (PartFitter.Card c : fitted.cards()) {
+            String file = c.file().getFileName().toString();
+            String hash = Hashes.sha256(c.text());
+            finalCards.put(file, Set.of(hash));
+            Set<String> pending = new LinkedHashSet<>();
+            pending.add(hash);
+            if (Files.exists(c.file())) {
+                String onDisk = Hashes.sha256(c.file());
+                if (onDisk.equals(hash)) {
+                    unchanged.add(LibraryPaths.display(root, c.file()));
+                } else {
+                    pending.add(onDisk);
+                    changed.add(c);
+                }
+            } else {
+                changed.add(c);
+            }
+            pendingCards.put(file, pending);
+            List<BuildState.Residual> r = new ArrayList<>();
+            for (SweepResiduals s : c.fit().residuals()) {
+                r.add(new BuildState.Residual(DeviceFile.celsiusText(s.temperature()), PartFitter.mv(s.rms()),
+                        PartFitter.mv(s.max())));
+            }
+            residuals.put(file, r);
+        }
+        Path statePath = part.statePath();
+        if (!changed.isEmpty()) {
+            // first record both texts of every card about to change, so an interrupted build is never taken for a hand edit
+            files.write(statePath, new BuildState(recipe.sha256(), pendingCards, residuals).text(part.model()));
+        }
+        List<String> written = new ArrayList<>();
+        for (PartFitter.Card c : changed) {
+            files.write(c.file(), c.text());
+            written.add(LibraryPaths.display(root, c.file()));
+        }
+        String finalText = new BuildState(recipe.sha256(), finalCards, residuals).text(part.model());
+        if (!Files.exists(statePath) || !Files.readString(statePath, StandardCharsets.UTF_8).equals(finalText)) {
+            files.write(statePath, finalText);
+        }
+        StringBuilder msg = new StringBuilder();
+        msg.append(written.isEmpty() ? "cards unchanged" : "wrote " + String.join(" ", written));
+        if (!unchanged.isEmpty() && !written.isEmpty()) {
+            msg.append("; unchanged ").append(String.join(" ", unchanged));
+        }
+        PartFitter.Card first = fitted.cards().get(0);
+        String before = old.map(s -> worst(s.residuals().get(first.file().getFileName().toString()))).orElse("");
+        msg.append("; worst RMS ");
+        if (!before.isEmpty()) {
+            msg.append(before).append(" -> ");
+        }
+        msg.append(PartFitter.mv(first.fit().worstRms())).append(" mV (").append(first.dialect().shortName()).append(')');
+        if (!edited.isEmpty()) {
+            msg.append("; replaced hand-edited ").append(String.join(" ", edited));
+        }
+        return new PartOutcome(name, part.model(), PartOutcome.Status.BUILT, msg.toString(), written, unchanged,
+                seconds(start), fitted.notes());
+    }
+
+    /** True when every card has exactly one recorded hash (no build was interrupted) and it is the card's. */
+    private static boolean settled(DeviceFile part, BuildState state) throws IOException {
+        for (Dialect d : part.dialects()) {
+            Path card = part.cardPath(d);
+            Set<String> hashes = state.cards().getOrDefault(card.getFileName().toString(), Set.of());
+            if (hashes.size() != 1 || !hashes.contains(Hashes.sha256(card))) {
+                return false;
+            }
+        }
+        return true;
+    }
+
+    private static String worst(List<BuildState.Residual> rs) {
+        if (rs == null || rs.isEmpty()) {
+            return "";
+        }
+        double w = 0;
+        String text = "";
+        for (BuildState.Residual r : rs) {
+            double v = Double.parseDouble(r.rmsMillivolts());
+            if (v >= w) {
+                w = v;
+                text = r.rmsMillivolts();
+            }
+        }
+        return text;
+    }
+
+    private static PartOutcome failed(String name, String model, PartOutcome.Status status, String message, long start) {
+        return new PartOutcome(name, model, status, message, List.of(), List.of(), seconds(start), List.of());
+    }
+
+    private static double seconds(long start) {
+        return (System.nanoTime() - start) / 1e9;
+    }
+}

@@ -1,0 +1,59 @@
+package org.cardwright.library;
+
+import java.io.IOException;
+import java.io.InputStream;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import org.cardwright.card.Dialect;
+import org.cardwright.workflow.ToolVersion;
+
+/**
+ * Everything that decides a part's cards, as canonical text: the tool version, the device file's settings (not
+ * its layout or comments), the SHA-256 of every data file it lists and of every card template used. Two builds
+ * with the same recipe write the same cards, so a build compares the recipe's hash with the build record's and
+ * skips the part when they agree. Time stamps play no part.
+ *
+ * @param text the canonical text
+ * @param sha256 its SHA-256
+ */
+public record Recipe(String text, String sha256) {
+    /** Bump when the meaning of the recipe text changes. */
+    static final String FORMAT = "cardwright build recipe 1";
+
+    /** The recipe of {@code part}. */
+    public static Recipe of(DeviceFile part) throws DeviceFileException, IOException {
+        StringBuilder sb = new StringBuilder();
+        sb.append(FORMAT).append('\n');
+        sb.append("tool ").append(ToolVersion.get()).append('\n');
+        sb.append("device-file ").append(part.path().getFileName()).append('\n');
+        sb.append(part.canonicalSettings());
+        for (DataSource s : part.data()) {
+            Path p = s.resolve(part.folder());
+            if (!Files.isRegularFile(p)) {
+                throw new DeviceFileException(part.path(), s.line(), "data file not found: '" + s.file() + "'");
+            }
+            sb.append("data-sha256 ").append(s.file()).append(' ').append(Hashes.sha256(p)).append('\n');
+        }
+        for (Dialect d : part.dialects()) {
+            sb.append("template ").append(d.shortName()).append(' ').append(Hashes.sha256(templateBytes(part, d))).append('\n');
+        }
+        String text = sb.toString();
+        return new Recipe(text, Hashes.sha256(text));
+    }
+
+    /** The template the card writer will use for {@code d}: the part's template folder first, then the bundled one. */
+    private static byte[] templateBytes(DeviceFile part, Dialect d) throws IOException {
+        if (part.templates().isPresent()) {
+            Path own = part.folder().resolve(part.templates().get()).resolve(d.templateFileName());
+            if (Files.isRegularFile(own)) {
+                return Files.readAllBytes(own);
+            }
+        }
+        try (InputStream in = Recipe.class.getResourceAsStream("/org/cardwright/templates/" + d.templateFileName())) {
+            if (in == null) {
+                throw new IOException("bundled template " + d.templateFileName() + " is missing from this build");
+            }
+            return in.readAllBytes();
+        }
+    }
+}
