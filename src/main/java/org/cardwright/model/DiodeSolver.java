@@ -102,18 +102,36 @@ public final class DiodeSolver {
             start = Math.min(hi, Math.max(lo, voltage - r * i0));
         }
         double vd = solve(d, voltage, r, lo, hi, start);
-        return (voltage - vd) / r;
+        // where the junction is stiffer than RS the drop across RS carries the current precisely; where it is
+        // softer (reverse bias, tiny currents) V - vd cancels, and the junction equation is the precise side
+        return r * JunctionCurrent.conductance(d, vd) > 1 ? (voltage - vd) / r : JunctionCurrent.current(d, vd);
     }
 
     /**
      * Bracketed Newton iteration for vd + r·I(vd) = target (r = 0: I(vd) = target). The left side rises
-     * with vd, so a bracket [lo, hi] with opposite signs always holds the root.
+     * with vd, so a bracket [lo, hi] with opposite signs always holds the root. For r = 0 the residual is taken
+     * through asinh(I/s), which is logarithmic in the exponential regions (so Newton converges there in a few
+     * steps from either side) and linear near zero. A step that leaves the bracket, or that does not at least
+     * halve the residual's predicted distance as fast as bisection would, is replaced by bisection (the
+     * safeguard of Press et al., "Numerical Recipes", routine rtsafe; recalled).
      */
     private static double solve(DiodeAtTemperature d, double target, double r, double lo, double hi, double start) {
+        double scale = Math.max(Math.abs(target) * 1e-6, 1e-300);
+        double goal = r == 0 ? asinh(target / scale) : target;
         double x = start;
+        double stepBefore = hi - lo;
         for (int iter = 0; iter < MAX_ITERATIONS; iter++) {
             double i = JunctionCurrent.current(d, x);
-            double f = (r == 0 ? i : x + r * i) - target;
+            double g = JunctionCurrent.conductance(d, x);
+            double f;
+            double slope;
+            if (r == 0) {
+                f = asinh(i / scale) - goal;
+                slope = g / Math.hypot(i, scale);
+            } else {
+                f = x + r * i - goal;
+                slope = 1 + r * g;
+            }
             if (f == 0) {
                 return x;
             }
@@ -122,17 +140,22 @@ public final class DiodeSolver {
             } else {
                 lo = x;
             }
-            double g = JunctionCurrent.conductance(d, x);
-            double slope = r == 0 ? g : 1 + r * g;
             double next = x - f / slope;
-            if (!(next > lo && next < hi)) {
+            if (!(next > lo && next < hi) || Math.abs(2 * (next - x)) > Math.abs(stepBefore)) {
                 next = 0.5 * (lo + hi);
             }
+            stepBefore = next - x;
             if (Math.abs(next - x) <= VOLTAGE_TOLERANCE * Math.max(1, Math.abs(x)) || hi - lo <= VOLTAGE_TOLERANCE) {
                 return next;
             }
             x = next;
         }
         return x;
+    }
+
+    private static double asinh(double v) {
+        double a = Math.abs(v);
+        double r = a > 1e8 ? Math.log(2 * a) : Math.log(a + Math.sqrt(a * a + 1));
+        return Math.copySign(r, v);
     }
 }
