@@ -11,8 +11,11 @@ import java.util.Objects;
  * an offset. Conversion is done in decimal arithmetic on the cell's own text, so "1 mA" is exactly the double
  * nearest 1e-3 A and "25 degC" exactly the double nearest 298.15 K.
  *
- * <p>Unit spellings match without regard to case, with one exception: a capital {@code M} prefix is refused
- * as ambiguous, because SPICE and many instruments read {@code M} as milli while SI reads it as mega.
+ * <p>A spelling written exactly as the table has it is taken as written. Otherwise spellings match without
+ * regard to case, unless that leaves a prefix in doubt: a capital {@code M} before V, A or F is refused as
+ * ambiguous, because SPICE and many instruments read {@code M} as milli while SI reads it as mega; and a
+ * resistance unit that matches both milliohm ({@code mohm}) and megohm ({@code Mohm}) when case is ignored,
+ * such as {@code MOHM}, is refused too. Written exactly, {@code Mohm} and {@code MOhm} are megohm as in SI.
  *
  * @param quantity   what the column holds
  * @param written    the unit as the header writes it, or empty when the header gives none
@@ -73,7 +76,24 @@ record ColumnUnit(Quantity quantity, String written, int powerOfTen, Scale scale
             new Spelling("celsius", Quantity.TEMPERATURE, 0, Scale.CELSIUS),
             new Spelling("degF", Quantity.TEMPERATURE, 0, Scale.FAHRENHEIT),
             new Spelling("\u00b0F", Quantity.TEMPERATURE, 0, Scale.FAHRENHEIT),
-            new Spelling("fahrenheit", Quantity.TEMPERATURE, 0, Scale.FAHRENHEIT));
+            new Spelling("fahrenheit", Quantity.TEMPERATURE, 0, Scale.FAHRENHEIT),
+            new Spelling("ohm", Quantity.RESISTANCE, 0, Scale.LINEAR),
+            new Spelling("ohms", Quantity.RESISTANCE, 0, Scale.LINEAR),
+            new Spelling("\u03a9", Quantity.RESISTANCE, 0, Scale.LINEAR),
+            new Spelling("\u2126", Quantity.RESISTANCE, 0, Scale.LINEAR),
+            new Spelling("mohm", Quantity.RESISTANCE, -3, Scale.LINEAR),
+            new Spelling("mOhm", Quantity.RESISTANCE, -3, Scale.LINEAR),
+            new Spelling("m\u03a9", Quantity.RESISTANCE, -3, Scale.LINEAR),
+            new Spelling("kohm", Quantity.RESISTANCE, 3, Scale.LINEAR),
+            new Spelling("kOhm", Quantity.RESISTANCE, 3, Scale.LINEAR),
+            new Spelling("k\u03a9", Quantity.RESISTANCE, 3, Scale.LINEAR),
+            new Spelling("Mohm", Quantity.RESISTANCE, 6, Scale.LINEAR),
+            new Spelling("MOhm", Quantity.RESISTANCE, 6, Scale.LINEAR),
+            new Spelling("M\u03a9", Quantity.RESISTANCE, 6, Scale.LINEAR),
+            new Spelling("megohm", Quantity.RESISTANCE, 6, Scale.LINEAR),
+            new Spelling("Gohm", Quantity.RESISTANCE, 9, Scale.LINEAR),
+            new Spelling("GOhm", Quantity.RESISTANCE, 9, Scale.LINEAR),
+            new Spelling("G\u03a9", Quantity.RESISTANCE, 9, Scale.LINEAR));
 
     ColumnUnit {
         Objects.requireNonNull(quantity, "quantity");
@@ -104,9 +124,13 @@ record ColumnUnit(Quantity quantity, String written, int powerOfTen, Scale scale
         if (found == null) {
             for (Spelling s : SPELLINGS) {
                 if (s.quantity == quantity && s.text.equalsIgnoreCase(text)) {
-                    if (s.text.startsWith("m") && text.startsWith("M")) {
+                    boolean milliAsCapital = s.text.startsWith("m") && text.startsWith("M");
+                    boolean prefixesDisagree = found != null && found.powerOfTen != s.powerOfTen;
+                    if (milliAsCapital || prefixesDisagree) {
+                        String advice = quantity == Quantity.RESISTANCE ? "mohm for milli, Mohm for mega"
+                                : s.text + " for milli";
                         throw new CellProblem("ambiguous unit '" + text + "' for " + quantity.word()
-                                + ": M may mean mega or milli; write " + s.text + " for milli");
+                                + ": M may mean mega or milli; write " + advice);
                     }
                     found = s;
                 }
@@ -115,12 +139,12 @@ record ColumnUnit(Quantity quantity, String written, int powerOfTen, Scale scale
         if (found == null) {
             for (Spelling s : SPELLINGS) {
                 if (s.quantity != quantity && s.text.equalsIgnoreCase(text)) {
-                    throw new CellProblem("unknown unit '" + text + "' for " + quantity.word() + " column "
-                            + quantity.columnName() + ": it is a " + s.quantity.word() + " unit");
+                    throw new CellProblem("unknown unit '" + text + "' for " + quantity.word()
+                            + ": it is a " + s.quantity.word() + " unit");
                 }
             }
-            throw new CellProblem("unknown unit '" + text + "' for " + quantity.word() + " column "
-                    + quantity.columnName() + "; known: " + String.join(", ", spellingsOf(quantity)));
+            throw new CellProblem("unknown unit '" + text + "' for " + quantity.word()
+                    + "; known: " + String.join(", ", spellingsOf(quantity)));
         }
         return new ColumnUnit(quantity, text, found.powerOfTen, found.scale);
     }
@@ -143,6 +167,11 @@ record ColumnUnit(Quantity quantity, String written, int powerOfTen, Scale scale
             case CELSIUS -> prefixed.add(CELSIUS_ZERO);
             case FAHRENHEIT -> prefixed.add(FAHRENHEIT_OFFSET).multiply(FIVE).divide(NINE, MathContext.DECIMAL128);
         };
+    }
+
+    /** Whether the unit carries a prefix other than none (mV, kohm, ...). */
+    boolean hasPrefix() {
+        return powerOfTen != 0;
     }
 
     /** The unit as a reader would name it in a message: as written, or the implicit one. */

@@ -15,9 +15,10 @@ import java.util.regex.Pattern;
  * @param iv      I-V points in file order (reverse points included); empty for a C-V file
  * @param cv      C-V points in file order; empty for an I-V file
  * @param notices everything the reader did that the user must be told about, in file order
+ * @param layout  how the file recorded its points: a point table, or a series-resistor log (I-V only)
  */
 public record MeasurementFile(Path file, String sha256, DataKind kind, List<IvPoint> iv, List<CvPoint> cv,
-                              List<Notice> notices) {
+                              List<Notice> notices, FileLayout layout) {
 
     private static final Pattern SHA256_HEX = Pattern.compile("[0-9a-f]{64}");
 
@@ -26,6 +27,10 @@ public record MeasurementFile(Path file, String sha256, DataKind kind, List<IvPo
         Objects.requireNonNull(file, "file");
         Objects.requireNonNull(sha256, "sha256");
         Objects.requireNonNull(kind, "kind");
+        Objects.requireNonNull(layout, "layout");
+        if (layout == FileLayout.SERIES_RESISTOR_LOG && kind != DataKind.IV) {
+            throw new IllegalArgumentException("a series-resistor log gives I-V points, not " + kind);
+        }
         iv = List.copyOf(iv);
         cv = List.copyOf(cv);
         notices = List.copyOf(notices);
@@ -40,6 +45,12 @@ public record MeasurementFile(Path file, String sha256, DataKind kind, List<IvPo
         if (!other.isEmpty()) {
             throw new IllegalArgumentException(kind + " file " + file + " must not hold points of the other kind");
         }
+    }
+
+    /** A point table: as the canonical constructor with layout {@link FileLayout#POINT_TABLE}. */
+    public MeasurementFile(Path file, String sha256, DataKind kind, List<IvPoint> iv, List<CvPoint> cv,
+                           List<Notice> notices) {
+        this(file, sha256, kind, iv, cv, notices, FileLayout.POINT_TABLE);
     }
 
     /** How many points the file holds [1]. */

@@ -1,20 +1,32 @@
 package org.cardwright.data;
 
+import java.math.BigDecimal;
 import java.nio.file.Path;
 import java.util.ArrayList;
+import java.util.EnumSet;
 import java.util.List;
 import java.util.Objects;
+import java.util.Optional;
 import java.util.OptionalDouble;
+import java.util.Set;
 
 /**
  * Reads a measurement file (CSV with one header row) into SI records.
  *
- * <p>The header names the columns, without regard to case: V and I for I-V data, V and C for C-V data, and
- * optionally T, the device temperature of each row. A unit may follow a name in brackets or parentheses
- * ({@code I [mA]}, {@code C (pF)}, {@code T [degC]}); without one a column is in V, A, F, and degrees Celsius
- * for T. Lines whose first non-blank character is {@code #} are comments; blank lines are skipped; a UTF-8
- * byte-order mark is accepted. Line numbers everywhere are physical 1-based lines of the file, comments and
- * blank lines included.
+ * <p>The header names the columns, without regard to case: V and I for I-V data, V and C for C-V data, or
+ * Vsupply, Rseries and Vmeter for a series-resistor bench log (read as I-V points, corrected for the meter's
+ * draw by Kirchhoff's current law); optionally T, the device temperature of each row, dV and dI, stated 1-sigma
+ * uncertainties, and a status or compliance flag column whose flagged rows are set aside. A unit may follow a
+ * name in brackets or parentheses ({@code I [mA]}, {@code C (pF)}, {@code T [degC]}, {@code Rseries [kohm]});
+ * without one a column is in V, A, F, ohm, and degrees Celsius for T. Cells may carry a SPICE suffix
+ * ({@code 1.2m}, {@code 10meg}).
+ *
+ * <p>Cells are separated by commas, semicolons or tabs, detected from the header row unless the options fix
+ * the delimiter; where it is not a comma, a decimal comma is read. Before the header row, {@code # key = value}
+ * comment lines and plain {@code key: value} lines state settings (temperature, instrument accuracy, meter
+ * input resistance, lead resistance, ...; docs/bench-logs.md lists them). Lines whose first non-blank
+ * character is {@code #} are comments; blank lines are skipped; a UTF-8 byte-order mark is accepted. Line
+ * numbers everywhere are physical 1-based lines of the file, comments and blank lines included.
  *
  * <p>Nothing is dropped or changed silently: anything refused is a {@link DataFileException} naming file, line
  * and raw text, and anything done that the user should know about is a {@link Notice} in the result.
@@ -22,6 +34,14 @@ import java.util.OptionalDouble;
 public final class MeasurementReader {
     /** Offset between the Celsius and Kelvin scales, used only to show temperatures in messages [K]. */
     private static final double CELSIUS_ZERO = 273.15;
+
+    private static final Set<SettingKey> USED_BY_IV_TABLE = EnumSet.of(SettingKey.TEMPERATURE,
+            SettingKey.VOLTMETER_ACCURACY, SettingKey.AMMETER_ACCURACY, SettingKey.LEAD_RESISTANCE);
+    private static final Set<SettingKey> USED_BY_CV_TABLE = EnumSet.of(SettingKey.TEMPERATURE);
+    private static final Set<SettingKey> USED_BY_LOG = EnumSet.of(SettingKey.TEMPERATURE,
+            SettingKey.METER_INPUT_RESISTANCE, SettingKey.METER_INPUT_RESISTANCE_TOLERANCE,
+            SettingKey.SUPPLY_SOURCE_RESISTANCE, SettingKey.RESISTOR_TOLERANCE, SettingKey.SUPPLY_ACCURACY,
+            SettingKey.VOLTMETER_ACCURACY);
 
     private final ReadOptions options;
 
@@ -42,27 +62,45 @@ public final class MeasurementReader {
         Objects.requireNonNull(file, "file");
         SourceText source = SourceText.read(file);
         List<String> lines = source.lines();
-        CsvLine splitter = new CsvLine(options.delimiter());
 
-        int headerIndex = nextContentLine(lines, 0);
+        Preamble preamble = Preamble.scan(lines);
+        int headerIndex = preamble.headerIndex();
         if (headerIndex < 0) {
             String why = lines.isEmpty() ? "empty file: no header row"
-                    : "no header row: the file holds only comments and blank lines";
+                    : "no header row: the file holds only comments, settings and blank lines";
             throw new DataFileException(file, 0, why, null);
         }
         int headerLine = headerIndex + 1;
         String headerText = lines.get(headerIndex);
+        char delimiter = options.delimiter().orElseGet(() -> detectDelimiter(headerText));
+        boolean decimalComma = delimiter != ReadOptions.COMMA;
+        CsvLine splitter = new CsvLine(delimiter);
         HeaderLayout header = HeaderLayout.parse(file, headerLine, headerText,
                 split(splitter, file, headerLine, headerText));
 
         List<Notice> notices = new ArrayList<>();
         noteIgnoredColumns(file, headerLine, header, notices);
-        noteTemperatureSource(file, headerLine, headerText, header, notices);
+        if (options.delimiter().isEmpty() && delimiter != ReadOptions.COMMA) {
+            notices.add(new Notice(file, headerLine, "cells separated by " + (delimiter == '\t' ? "tabs" : "semicolons")
+                    + " (detected from the header row); a decimal comma is read"));
+        }
+        FileSettings settings = FileSettings.read(file, preamble.settings(), decimalComma, notices);
+        RowConverter.TemperatureFallback fallback = temperatureSource(file, headerLine, headerText, header,
+                settings, notices);
+        RowConverter.Rules rules = rules(file, headerLine, headerText, header, settings, notices);
 
-        RowConverter rows = new RowConverter(file, header, options.defaultTemperature(), notices);
-        for (int i = nextContentLine(lines, headerIndex + 1); i >= 0; i = nextContentLine(lines, i + 1)) {
+        RowConverter rows = new RowConverter(file, header, decimalComma, fallback, rules, notices);
+        for (int i = headerIndex + 1; i < lines.size(); i++) {
             int line = i + 1;
             String text = lines.get(i);
+            String stripped = text.strip();
+            if (stripped.isEmpty()) {
+                continue;
+            }
+            if (stripped.startsWith("#")) {
+                noteLateSetting(file, line, stripped, notices);
+                continue;
+            }
             List<String> cells = split(splitter, file, line, text);
             if (cells.size() != header.width()) {
                 throw new DataFileException(file, line, "row has " + cells.size() + " cells, the header on line "
@@ -70,22 +108,25 @@ public final class MeasurementReader {
             }
             rows.add(line, text, cells);
         }
+        rows.finish(headerLine, headerText);
         if (rows.count() == 0) {
             throw new DataFileException(file, headerLine, "header but no data rows", headerText);
         }
+        noteUncertaintySources(file, headerLine, header, settings, notices);
         return new MeasurementFile(file, source.sha256(), header.kind(), rows.ivPoints(), rows.cvPoints(),
-                notices);
+                notices, header.layout());
     }
 
-    /** Index of the first line at or after {@code from} that is neither blank nor a comment, or -1. */
-    private static int nextContentLine(List<String> lines, int from) {
-        for (int i = from; i < lines.size(); i++) {
-            String stripped = lines.get(i).strip();
-            if (!stripped.isEmpty() && !stripped.startsWith("#")) {
-                return i;
-            }
+    /** The delimiter a header row uses: tab if it holds one, else semicolon if it holds one, else comma. */
+    static char detectDelimiter(String headerText) {
+        String unquoted = headerText.replaceAll("\"[^\"]*\"", "");
+        if (unquoted.indexOf('\t') >= 0) {
+            return '\t';
         }
-        return -1;
+        if (unquoted.indexOf(';') >= 0) {
+            return ';';
+        }
+        return ReadOptions.COMMA;
     }
 
     private static List<String> split(CsvLine splitter, Path file, int line, String text) throws DataFileException {
@@ -108,21 +149,142 @@ public final class MeasurementReader {
         notices.add(new Notice(file, headerLine, "ignoring " + columns + ": " + String.join(", ", names)));
     }
 
-    private void noteTemperatureSource(Path file, int headerLine, String headerText, HeaderLayout header,
-                                       List<Notice> notices) throws DataFileException {
+    /** A known setting written as a comment after the header row is not read; say so. */
+    private static void noteLateSetting(Path file, int line, String stripped, List<Notice> notices) {
+        Optional<Preamble.Line> late = Preamble.commentSetting(line, stripped);
+        if (late.isPresent() && late.get().known().isPresent()) {
+            notices.add(new Notice(file, line, "setting '" + late.get().known().get().key() + "' after the header "
+                    + "row is not read; settings go above the header row"));
+        }
+    }
+
+    private RowConverter.TemperatureFallback temperatureSource(Path file, int headerLine, String headerText,
+                                                               HeaderLayout header, FileSettings settings,
+                                                               List<Notice> notices) throws DataFileException {
         OptionalDouble given = options.defaultTemperature();
+        OptionalDouble stated = settings.value(SettingKey.TEMPERATURE);
+        if (stated.isPresent()) {
+            int at = settings.line(SettingKey.TEMPERATURE);
+            String source = "the file's temperature (line " + at + ")";
+            if (given.isPresent() && given.getAsDouble() != stated.getAsDouble()) {
+                notices.add(new Notice(file, at, "the file states its temperature " + kelvinText(stated.getAsDouble())
+                        + "; the given temperature " + kelvinText(given.getAsDouble()) + " is not used"));
+            }
+            if (header.temperature().isPresent()) {
+                notices.add(new Notice(file, headerLine, "the file has a T column; its temperature setting "
+                        + kelvinText(stated.getAsDouble()) + " (line " + at + ") is used only for empty T cells"));
+            } else {
+                notices.add(new Notice(file, headerLine, "no T column: every point is at " + source + " "
+                        + kelvinText(stated.getAsDouble())));
+            }
+            return new RowConverter.TemperatureFallback(stated, source);
+        }
         if (header.temperature().isPresent()) {
             if (given.isPresent()) {
                 notices.add(new Notice(file, headerLine, "the file has a T column; the given temperature "
                         + kelvinText(given.getAsDouble()) + " is used only for empty T cells"));
             }
-            return;
+            return new RowConverter.TemperatureFallback(given, "the given temperature");
         }
         if (given.isEmpty()) {
-            throw new DataFileException(file, headerLine, "no T column and no --temp given", headerText);
+            throw new DataFileException(file, headerLine, "no T column and no --temp given (nor a '# temperature "
+                    + "= ...' line above the header)", headerText);
         }
         notices.add(new Notice(file, headerLine, "no T column: every point is at the given temperature "
                 + kelvinText(given.getAsDouble())));
+        return new RowConverter.TemperatureFallback(given, "the given temperature");
+    }
+
+    private RowConverter.Rules rules(Path file, int headerLine, String headerText, HeaderLayout header,
+                                     FileSettings settings, List<Notice> notices) throws DataFileException {
+        if (header.layout() == FileLayout.POINT_TABLE) {
+            if (header.kind() == DataKind.CV) {
+                settings.noteUnused(USED_BY_CV_TABLE, "a C-V file", notices);
+                return new RowConverter.Rules(null, null, null, null);
+            }
+            settings.noteUnused(USED_BY_IV_TABLE, "an I-V point table", notices);
+            BigDecimal lead = settings.exact(SettingKey.LEAD_RESISTANCE).orElse(null);
+            return new RowConverter.Rules(settings.accuracy(SettingKey.VOLTMETER_ACCURACY).orElse(null),
+                    settings.accuracy(SettingKey.AMMETER_ACCURACY).orElse(null), lead, null);
+        }
+        if (settings.has(SettingKey.LEAD_RESISTANCE)) {
+            throw new DataFileException(file, settings.line(SettingKey.LEAD_RESISTANCE), "'lead resistance' is for "
+                    + "2-wire V-I exports; in a series-resistor log the meter reads across the diode, and a "
+                    + "resistance in series with Rseries belongs in 'supply source resistance'",
+                    settings.written(SettingKey.LEAD_RESISTANCE));
+        }
+        settings.noteUnused(USED_BY_LOG, "a series-resistor log", notices);
+        OptionalDouble meter = settings.value(SettingKey.METER_INPUT_RESISTANCE);
+        OptionalDouble given = options.meterResistance();
+        if (meter.isPresent() && given.isPresent() && meter.getAsDouble() != given.getAsDouble()) {
+            notices.add(new Notice(file, settings.line(SettingKey.METER_INPUT_RESISTANCE), "the file states its meter "
+                    + "input resistance " + RowConverter.fmt(meter.getAsDouble()) + " ohm; the given "
+                    + RowConverter.fmt(given.getAsDouble()) + " ohm is not used"));
+        }
+        if (meter.isEmpty()) {
+            meter = given;
+        }
+        if (meter.isEmpty() && options.meterLoadingCorrection()) {
+            throw new DataFileException(file, headerLine, "series-resistor log without the meter input resistance: "
+                    + "add '# meter input resistance = 10 Mohm' (your meter's value) above the header row, or "
+                    + "give --meter-resistance", headerText);
+        }
+        SeriesResistorLog.Setup setup = new SeriesResistorLog.Setup(meter.orElse(Double.NaN),
+                settings.value(SettingKey.METER_INPUT_RESISTANCE_TOLERANCE).orElse(0),
+                settings.value(SettingKey.SUPPLY_SOURCE_RESISTANCE).orElse(0),
+                settings.value(SettingKey.RESISTOR_TOLERANCE).orElse(0),
+                settings.accuracy(SettingKey.SUPPLY_ACCURACY).orElse(null),
+                settings.accuracy(SettingKey.VOLTMETER_ACCURACY).orElse(null),
+                options.meterLoadingCorrection());
+        return new RowConverter.Rules(null, null, null, setup);
+    }
+
+    /** One notice saying where the points' uncertainties come from, when any does. */
+    private static void noteUncertaintySources(Path file, int headerLine, HeaderLayout header,
+                                               FileSettings settings, List<Notice> notices) {
+        if (header.kind() != DataKind.IV) {
+            return;
+        }
+        final String rule = "; stated bounds are read as uniform, 1 sigma = bound / sqrt(3) (GUM 4.3.7)";
+        if (header.layout() == FileLayout.SERIES_RESISTOR_LOG) {
+            List<String> used = new ArrayList<>();
+            List<String> missing = new ArrayList<>();
+            for (SettingKey k : List.of(SettingKey.RESISTOR_TOLERANCE, SettingKey.VOLTMETER_ACCURACY,
+                    SettingKey.SUPPLY_ACCURACY, SettingKey.METER_INPUT_RESISTANCE_TOLERANCE)) {
+                if (settings.has(k)) {
+                    used.add(k.key() + " '" + settings.written(k) + "' (line " + settings.line(k) + ")");
+                } else {
+                    missing.add(k.key());
+                }
+            }
+            if (used.isEmpty()) {
+                notices.add(new Notice(file, headerLine, "no tolerance stated (" + String.join(", ", missing)
+                        + "), so the points carry no uncertainty; see docs/bench-logs.md"));
+            } else {
+                notices.add(new Notice(file, headerLine, "per-point uncertainty propagated from " + String.join(", ", used)
+                        + (missing.isEmpty() ? "" : "; not stated, taken as exact: " + String.join(", ", missing))
+                        + rule));
+            }
+            return;
+        }
+        String v = source(header, ColumnRole.VOLTAGE_SIGMA, settings, SettingKey.VOLTMETER_ACCURACY);
+        String i = source(header, ColumnRole.CURRENT_SIGMA, settings, SettingKey.AMMETER_ACCURACY);
+        if (v == null && i == null) {
+            return;
+        }
+        notices.add(new Notice(file, headerLine, "per-point uncertainty: V from " + (v == null ? "nothing (unknown)" : v)
+                + "; I from " + (i == null ? "nothing (unknown)" : i)
+                + (settings.has(SettingKey.VOLTMETER_ACCURACY) || settings.has(SettingKey.AMMETER_ACCURACY) ? rule : "")));
+    }
+
+    private static String source(HeaderLayout header, ColumnRole column, FileSettings settings, SettingKey accuracy) {
+        String c = header.column(column).map(x -> "the " + column.columnName() + " column").orElse(null);
+        String a = settings.has(accuracy) ? accuracy.key() + " '" + settings.written(accuracy) + "' (line "
+                + settings.line(accuracy) + ")" : null;
+        if (c != null && a != null) {
+            return c + ", and " + a + " where its cell is empty";
+        }
+        return c != null ? c : a;
     }
 
     /** A temperature for messages, in K and degrees Celsius. */

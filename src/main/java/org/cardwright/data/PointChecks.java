@@ -18,6 +18,14 @@ final class PointChecks {
         }
     }
 
+    /** A standard uncertainty: NaN (unknown), or positive and finite. */
+    static void sigma(String quantity, double sigma, String unit) {
+        if (!Double.isNaN(sigma) && !(sigma > 0 && Double.isFinite(sigma))) {
+            throw new IllegalArgumentException("uncertainty of the " + quantity
+                    + " must be positive and finite, or NaN when unknown, got " + sigma + " " + unit);
+        }
+    }
+
     static void line(int line) {
         if (line < 0) {
             throw new IllegalArgumentException("line must not be negative, got " + line);

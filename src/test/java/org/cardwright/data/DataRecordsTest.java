@@ -3,10 +3,12 @@ package org.cardwright.data;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertNull;
 import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.Optional;
 import java.util.OptionalDouble;
 import org.junit.jupiter.api.Test;
 
@@ -64,7 +66,13 @@ class DataRecordsTest {
 
     @Test
     void readOptionsRefuseImpossibleTemperaturesAndDelimiters() {
-        assertEquals(new ReadOptions(OptionalDouble.empty(), ','), ReadOptions.defaults());
+        assertEquals(new ReadOptions(OptionalDouble.empty(), ','), ReadOptions.defaults().withDelimiter(','));
+        assertEquals(Optional.empty(), ReadOptions.defaults().delimiter(), "defaults detect the delimiter");
+        assertTrue(ReadOptions.defaults().meterLoadingCorrection());
+        assertThrows(IllegalArgumentException.class, () -> ReadOptions.defaults().withMeterResistance(0));
+        assertThrows(IllegalArgumentException.class, () -> ReadOptions.defaults().withMeterResistance(-1e7));
+        assertThrows(IllegalArgumentException.class,
+                () -> ReadOptions.defaults().withMeterResistance(Double.POSITIVE_INFINITY));
         assertEquals(300.0, ReadOptions.defaults().withDefaultTemperature(300).defaultTemperature().getAsDouble());
         assertThrows(IllegalArgumentException.class, () -> ReadOptions.defaults().withDefaultTemperature(0));
         assertThrows(IllegalArgumentException.class, () -> ReadOptions.defaults().withDefaultTemperature(-5));
@@ -74,7 +82,8 @@ class DataRecordsTest {
             assertThrows(IllegalArgumentException.class, () -> ReadOptions.defaults().withDelimiter(bad),
                     "delimiter " + (int) bad);
         }
-        assertEquals('\t', ReadOptions.defaults().withDelimiter('\t').delimiter());
+        assertEquals(Optional.of('\t'), ReadOptions.defaults().withDelimiter('\t').delimiter());
+        assertEquals(Optional.empty(), ReadOptions.defaults().withDelimiter(';').withDetectedDelimiter().delimiter());
     }
 
     @Test

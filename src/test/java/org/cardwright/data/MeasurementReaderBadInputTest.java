@@ -196,9 +196,9 @@ class MeasurementReaderBadInputTest {
     }
 
     @Test
-    void semicolonFileReadWithCommasGetsAHint() throws IOException {
+    void semicolonFileReadWithForcedCommasGetsAHint() throws IOException {
         Path file = write("semicolons.csv", "V;I;T\n0.5;1e-3;25\n");
-        DataFileException e = assertRejected(file, ReadOptions.defaults(), 1, "V;I;T");
+        DataFileException e = assertRejected(file, ReadOptions.defaults().withDelimiter(','), 1, "V;I;T");
         assertMentions(e.getMessage(), "separated by semicolons?");
     }
 

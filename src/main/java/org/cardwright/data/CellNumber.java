@@ -1,0 +1,96 @@
+package org.cardwright.data;
+
+import java.math.BigDecimal;
+import java.util.Locale;
+import java.util.regex.Matcher;
+import java.util.regex.Pattern;
+
+/**
+ * Reads one cell or setting value as a number the way instrument exports and SPICE decks write it: a plain
+ * decimal ({@link DecimalText}), optionally followed by a SPICE scale suffix, and with a decimal comma where
+ * the file allows one. The value stays exact (decimal); the caller converts it to SI once.
+ *
+ * <p>Suffixes, without regard to case, as SPICE reads them (Holger Vogt et al., "Ngspice User's Manual",
+ * version 39, 2023, chapter 2, table "Ngspice scale factors"; {@code mil} is left out):
+ * {@code t} 1e12, {@code g} 1e9, {@code meg} 1e6, {@code k} 1e3, {@code m} 1e-3, {@code u} 1e-6, {@code n}
+ * 1e-9, {@code p} 1e-12, {@code f} 1e-15. So {@code M} is milli, never mega; {@code meg} is mega. Nothing may
+ * follow the suffix (SPICE would skip trailing letters such as a unit; we refuse them so that {@code 5 mA}
+ * cannot be read as 5 milli of the column's unit by accident).
+ *
+ * <p>A decimal comma ({@code 0,65}) is read only when the caller says the file may use one, that is when
+ * cells are not separated by commas; a number holding both a comma and a point is refused.
+ */
+final class CellNumber {
+    private static final Pattern NUMBER_AND_SUFFIX = Pattern.compile(
+            "([+-]?(?:\\d+[.,]?\\d*|[.,]\\d+)(?:[eE][+-]?\\d+)?)((?i:meg|[tgkmunpf]))?");
+
+    /**
+     * A number as written.
+     *
+     * @param value  the number with its suffix applied, exactly
+     * @param suffix the suffix as written, empty when there is none
+     */
+    record Reading(BigDecimal value, String suffix) {
+        /** Whether the suffix is a lone capital M, which SPICE reads as milli while a reader may mean mega. */
+        boolean capitalMilli() {
+            return suffix.equals("M");
+        }
+    }
+
+    private CellNumber() {
+    }
+
+    /**
+     * The number a cell writes.
+     *
+     * @param text         the cell
+     * @param decimalComma whether a comma may stand for the decimal point
+     * @throws CellProblem when the text is empty, not a number, NaN or infinite, or uses a decimal comma where
+     *                     the file's delimiter is a comma
+     */
+    static Reading parse(String text, boolean decimalComma) throws CellProblem {
+        String t = text.strip();
+        if (t.isEmpty()) {
+            throw new CellProblem("empty cell");
+        }
+        Matcher m = NUMBER_AND_SUFFIX.matcher(t);
+        if (!m.matches()) {
+            DecimalText.parse(t); // throws the reason: not a finite number, or not a number
+            throw new CellProblem("not a number");
+        }
+        String number = m.group(1);
+        if (number.indexOf(',') >= 0) {
+            if (!decimalComma) {
+                throw new CellProblem("not a number (a decimal comma is read only in files whose cells are "
+                        + "separated by semicolons or tabs)");
+            }
+            number = number.replace(',', '.');
+        }
+        String suffix = m.group(2) == null ? "" : m.group(2);
+        BigDecimal value;
+        try {
+            value = new BigDecimal(number);
+        } catch (NumberFormatException e) {
+            // only an exponent beyond the int range gets here
+            throw new CellProblem("number out of range");
+        }
+        return new Reading(value.scaleByPowerOfTen(suffixPower(suffix)), suffix);
+    }
+
+    /** The power of ten of a SPICE suffix [1]. */
+    static int suffixPower(String suffix) {
+        return switch (suffix.toLowerCase(Locale.ROOT)) {
+            case "" -> 0;
+            case "t" -> 12;
+            case "g" -> 9;
+            case "meg" -> 6;
+            case "k" -> 3;
+            case "m" -> -3;
+            case "u" -> -6;
+            case "n" -> -9;
+            case "p" -> -12;
+            case "f" -> -15;
+            default -> throw new IllegalArgumentException("not a SPICE suffix: '" + suffix + "'");
+        };
+    }
+}
