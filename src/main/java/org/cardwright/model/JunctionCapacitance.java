@@ -61,4 +61,39 @@ public final class JunctionCapacitance {
         double tt = d.transitTime();
         return tt == 0 ? 0 : tt * JunctionCurrent.reportedConductance(d, vd);
     }
+
+    /**
+     * Parallel capacitance at the terminals, as an LCR meter in parallel mode reads it: with the junction
+     * admittance Y_j = g + jB (B = 2 pi f C, g from {@link JunctionCurrent#reportedConductance}) in series
+     * with RS(T), Y = Y_j/(1 + RS Y_j) and Im(Y)/(2 pi f) = C/((1 + RS g)^2 + (RS B)^2) [F]. Without RS this
+     * is {@link #total} at the terminal voltage.
+     *
+     * @param d               parameters at the device temperature
+     * @param terminalVoltage DC terminal voltage, anode to cathode [V]
+     * @param frequency       test-signal frequency, positive [Hz]
+     */
+    public static double terminalParallel(DiodeAtTemperature d, double terminalVoltage, double frequency) {
+        double rs = d.seriesResistance();
+        double vd = junctionVoltage(d, terminalVoltage);
+        double c = total(d, vd);
+        if (rs == 0) {
+            return c;
+        }
+        double g = JunctionCurrent.reportedConductance(d, vd);
+        double real = 1 + rs * g;
+        double imag = rs * 2 * Math.PI * frequency * c;
+        return c / (real * real + imag * imag);
+    }
+
+    /**
+     * Junction voltage vd inside RS(T) at DC terminal voltage {@code terminalVoltage} [V]: the terminal voltage
+     * itself without RS, else V - RS·I(V) from {@link DiodeSolver#currentAtVoltage}.
+     *
+     * @param d               parameters at the device temperature
+     * @param terminalVoltage DC terminal voltage, anode to cathode [V]
+     */
+    public static double junctionVoltage(DiodeAtTemperature d, double terminalVoltage) {
+        double rs = d.seriesResistance();
+        return rs == 0 ? terminalVoltage : terminalVoltage - rs * DiodeSolver.currentAtVoltage(d, terminalVoltage);
+    }
 }
