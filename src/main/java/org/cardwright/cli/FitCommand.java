@@ -29,7 +29,7 @@ import picocli.CommandLine.Parameters;
             "only when the data call for them; the summary says which and why."},
         footerHeading = "%nExamples%n",
         footer = {
-            "  cardwright fit fixtures/demo/ks1-fwd-*.csv --name KS1 --out models",
+            "  cardwright fit fixtures/demo/ks1-forward-*.csv --name KS1 --out models",
             "  cardwright fit sweep.csv --temp 25 --name D7 --set RS=0.5 --set IKF=off --json d7.json",
             "  cardwright fit cold.csv hot.csv --name D9 --set N=1..2 --set TNOM=25 --dialect ngspice",
             "",

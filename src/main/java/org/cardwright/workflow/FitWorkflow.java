@@ -52,8 +52,7 @@ public final class FitWorkflow {
                     DEFAULT_VOLTAGE_SIGMA, l.source(), l.point().line()));
         }
         if (points.isEmpty()) {
-            throw new FitInputException(request.data().stream().map(Inputs::displayName).collect(Collectors.joining(", "))
-                    + ": no forward I-V points (positive current) to fit");
+            throw new FitInputException(noForwardPoints(inputs));
         }
         FitSettings settings = FitSettings.defaults().withKind(request.kind()).withRules(request.rules());
         FitResult full = new ForwardExtraction(settings).fit(points);
@@ -96,6 +95,20 @@ public final class FitWorkflow {
             OutputFiles.writeAtomically(request.json().get(), jsonRenderer.apply(outcome));
         }
         return outcome;
+    }
+
+    /** The one-line error for data without a single forward point: names the first I-V point's file, line and current. */
+    private static String noForwardPoints(Inputs inputs) {
+        for (MeasurementFile f : inputs.files()) {
+            if (!f.iv().isEmpty()) {
+                org.cardwright.data.IvPoint first = f.iv().get(0);
+                return String.format(Locale.ROOT,
+                        "%s:%d: no forward I-V points (positive current) to fit: its %d points all have I <= 0, the first I = %.4g A",
+                        Inputs.displayName(f.file()), first.line(), f.iv().size(), first.current());
+            }
+        }
+        return inputs.files().stream().map(f -> Inputs.displayName(f.file())).collect(Collectors.joining(", "))
+                + ":0: no forward I-V points to fit: the files hold C-V data only";
     }
 
     private static double defaultOf(DiodeParameters p, Param q) {

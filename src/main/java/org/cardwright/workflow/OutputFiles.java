@@ -6,7 +6,9 @@ import java.nio.file.AtomicMoveNotSupportedException;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.nio.file.StandardCopyOption;
+import java.nio.file.StandardOpenOption;
 import java.util.List;
+import java.util.concurrent.ThreadLocalRandom;
 
 /** Writing results: nothing overwritten without permission, every file written whole or not at all. */
 public final class OutputFiles {
@@ -30,9 +32,11 @@ public final class OutputFiles {
         Path dir = target.toAbsolutePath().getParent();
         try {
             Files.createDirectories(dir);
-            Path tmp = Files.createTempFile(dir, "." + target.getFileName(), ".tmp");
+            // not Files.createTempFile: it makes the file owner-only (rw-------), and the card would keep that
+            Path tmp = dir.resolve("." + target.getFileName() + "."
+                    + Long.toUnsignedString(ThreadLocalRandom.current().nextLong(), 36) + ".tmp");
             try {
-                Files.writeString(tmp, text, StandardCharsets.UTF_8);
+                Files.writeString(tmp, text, StandardCharsets.UTF_8, StandardOpenOption.CREATE_NEW, StandardOpenOption.WRITE);
                 try {
                     Files.move(tmp, target, StandardCopyOption.REPLACE_EXISTING, StandardCopyOption.ATOMIC_MOVE);
                 } catch (AtomicMoveNotSupportedException e) {
