@@ -1,0 +1,81 @@
+package org.cardwright.cli;
+
+import java.io.PrintWriter;
+import java.nio.file.Path;
+import java.util.List;
+import java.util.concurrent.Callable;
+import org.cardwright.library.LibraryBuilder;
+import org.cardwright.library.PartOutcome;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
+
+/** {@code cardwright build}: fit every part of a model library whose inputs changed. */
+@Command(name = "build", mixinStandardHelpOptions = true, sortOptions = false,
+        description = {
+            "Walks a folder tree for device files (*.device.yaml), fits each part whose settings, data or",
+            "templates changed since its last build (by SHA-256, not time stamps), and writes its cards and",
+            "build record (MODEL.state). Cards whose text comes out the same are left untouched. A card",
+            "changed by hand is not replaced unless --replace-edited is given. One line per part."},
+        footerHeading = "%nExamples%n",
+        footer = {
+            "  cardwright build fixtures/library",
+            "  cardwright build models --replace-edited",
+            "",
+            "Device files: docs/device-files.md. Builds and records: docs/library.md."})
+final class BuildCommand implements Callable<Integer> {
+
+    @Parameters(index = "0", paramLabel = "ROOT", description = "The library folder.")
+    Path root;
+
+    @Option(names = "--replace-edited", description = "Overwrite cards that were changed by hand since they were built.")
+    boolean replaceEdited;
+
+    @Option(names = "--notes", description = "Also print what each fit set aside or changed in the data.")
+    boolean notes;
+
+    @picocli.CommandLine.Spec
+    picocli.CommandLine.Model.CommandSpec spec;
+
+    @Override
+    public Integer call() throws Exception {
+        PrintWriter out = spec.commandLine().getOut();
+        PrintWriter err = spec.commandLine().getErr();
+        List<PartOutcome> parts = new LibraryBuilder(replaceEdited).build(root, line -> {
+            out.println(line);
+            out.flush();
+        });
+        if (notes) {
+            for (PartOutcome p : parts) {
+                p.notes().forEach(n -> out.println("note: " + p.device() + ": " + n));
+            }
+        }
+        long built = parts.stream().filter(p -> p.status() == PartOutcome.Status.BUILT).count();
+        long current = parts.stream().filter(p -> p.status() == PartOutcome.Status.UP_TO_DATE).count();
+        long bad = parts.size() - built - current;
+        out.println(parts.size() + " parts: " + built + " built, " + current + " up to date, " + bad + " not built");
+        out.flush();
+        if (parts.isEmpty()) {
+            err.println("cardwright: no device files (*.device.yaml) under " + root);
+            err.flush();
+            return ExitCodes.BAD_INPUT;
+        }
+        int code = ExitCodes.OK;
+        for (PartOutcome p : parts) {
+            int c = switch (p.status()) {
+                case UP_TO_DATE, BUILT -> ExitCodes.OK;
+                case BAD_INPUT -> ExitCodes.BAD_INPUT;
+                case FIT_FAILED -> ExitCodes.FIT_FAILED;
+                case REFUSED_EDITED, WRITE_FAILED -> ExitCodes.OUTPUT_REFUSED;
+            };
+            if (code == ExitCodes.OK) {
+                code = c;
+            }
+        }
+        if (code != ExitCodes.OK) {
+            err.println("cardwright: " + bad + " of " + parts.size() + " parts not built; see the lines above");
+            err.flush();
+        }
+        return code;
+    }
+}

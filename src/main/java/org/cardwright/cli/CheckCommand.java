@@ -1,0 +1,66 @@
+package org.cardwright.cli;
+
+import java.io.PrintWriter;
+import java.nio.file.Path;
+import java.util.List;
+import java.util.concurrent.Callable;
+import org.cardwright.library.CardCheck;
+import org.cardwright.library.CheckReport;
+import org.cardwright.library.LibraryCheck;
+import org.cardwright.workflow.Engines;
+import org.cardwright.workflow.OutputFiles;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
+
+/** {@code cardwright check}: does every card of a library still reproduce its data? For CI. */
+@Command(name = "check", mixinStandardHelpOptions = true, sortOptions = false,
+        description = {
+            "Re-simulates every card of a model library at its part's measured points and holds it to the",
+            "part's tolerances. Prints one line per card and a summary table; writes a JUnit XML report on",
+            "request. Exits 0 when every card passes, 1 when any card fails, is missing, or is stale (its",
+            "device file, data or templates changed since it was built)."},
+        footerHeading = "%nExamples%n",
+        footer = {
+            "  cardwright check fixtures/library",
+            "  cardwright check models --junit target/cardwright-check.xml --engine ngspice"})
+final class CheckCommand implements Callable<Integer> {
+
+    @Parameters(index = "0", paramLabel = "ROOT", description = "The library folder.")
+    Path root;
+
+    @Option(names = "--engine", paramLabel = "E", defaultValue = "builtin",
+            description = "Who simulates: " + Engines.NAMES + " (default: ${DEFAULT-VALUE}).")
+    String engine;
+
+    @Option(names = "--junit", paramLabel = "FILE", description = "Also write a JUnit XML report (replaced if it exists).")
+    Path junit;
+
+    @Option(names = "--allow-stale", description = "Let cards built from older inputs pass when they reproduce the data.")
+    boolean allowStale;
+
+    @picocli.CommandLine.Spec
+    picocli.CommandLine.Model.CommandSpec spec;
+
+    @Override
+    public Integer call() throws Exception {
+        Engines.byName(engine);
+        PrintWriter out = spec.commandLine().getOut();
+        List<CardCheck> checks = new LibraryCheck(engine, allowStale).check(root, line -> {
+            out.println(line);
+            out.flush();
+        });
+        out.println();
+        out.print(CheckReport.table(checks));
+        out.flush();
+        if (junit != null) {
+            OutputFiles.writeAtomically(junit, CheckReport.junitXml("cardwright check " + root.toString().replace('\\', '/'), checks));
+        }
+        if (checks.isEmpty()) {
+            spec.commandLine().getErr().println("cardwright: no device files (*.device.yaml) under " + root);
+            spec.commandLine().getErr().flush();
+            return ExitCodes.BAD_INPUT;
+        }
+        return checks.stream().allMatch(CardCheck::passed) ? ExitCodes.OK : ExitCodes.NOT_REPRODUCED;
+    }
+}
