@@ -20,17 +20,19 @@ import org.cardwright.model.Param;
  * @param evaluations      model evaluations of the final fit
  * @param iterations       optimiser iterations of the final fit
  * @param stopReason       why the optimiser stopped, in words
- * @param residuals        residual statistics per temperature
+ * @param residuals        forward residual statistics per temperature
+ * @param otherResiduals   residual statistics of the other data kinds, in their own units
  * @param terms            decisions about optional terms
  * @param warnings         plain-language warnings
  */
 public record FitResult(DiodeParameters parameters, List<FittedParameter> fitted, Correlations correlations,
                         double chiSquare, double reducedChiSquare, int points, int degreesOfFreedom,
                         int evaluations, int iterations, String stopReason, List<SweepResiduals> residuals,
-                        List<TermDecision> terms, List<String> warnings) {
+                        List<KindResiduals> otherResiduals, List<TermDecision> terms, List<String> warnings) {
     public FitResult {
         fitted = List.copyOf(fitted);
         residuals = List.copyOf(residuals);
+        otherResiduals = List.copyOf(otherResiduals);
         terms = List.copyOf(terms);
         warnings = List.copyOf(warnings);
     }
@@ -40,8 +42,8 @@ public record FitResult(DiodeParameters parameters, List<FittedParameter> fitted
         return fitted.stream().filter(f -> f.param() == p).findFirst();
     }
 
-    /** Largest RMS residual over the temperatures [V]. */
+    /** Largest forward RMS residual over the temperatures [V]; 0 when there were no forward data. */
     public double worstRms() {
-        return residuals.stream().mapToDouble(SweepResiduals::rms).max().orElse(Double.NaN);
+        return residuals.stream().mapToDouble(SweepResiduals::rms).max().orElse(0);
     }
 }

@@ -8,8 +8,6 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.TreeMap;
-import org.apache.commons.math3.linear.RealMatrix;
-import org.apache.commons.math3.linear.SingularValueDecomposition;
 import org.cardwright.model.DiodeParameters;
 import org.cardwright.model.Ngspice39;
 import org.cardwright.model.Param;
@@ -38,9 +36,6 @@ public final class ForwardExtraction {
     private static final double RESIDUAL_FLOOR_SQUARED = 1e-6;
     /** The widest sweep must span at least this much current [decades]. */
     public static final double MIN_DECADES = 2;
-    /** A correlation beyond this is reported [1]. */
-    private static final double STRONG_CORRELATION = 0.995;
-    
     private final FitSettings settings;
 
     public ForwardExtraction(FitSettings settings) {
@@ -61,6 +56,18 @@ public final class ForwardExtraction {
      * @throws FitInputException when the data cannot support a fit (the message names file, line and value)
      */
     public FitResult fit(List<FitPoint> points) throws FitInputException {
+        Stage st = stage(points);
+        return ResultAssembly.assemble(settings, st.blocks(), st.run(), points, st.decisions(), st.warnings(),
+                st.start(), this::bounds);
+    }
+
+    /** The forward stage's outcome, before assembly into a result. */
+    record Stage(Optimiser.Run run, List<ResidualBlock> blocks, List<TermDecision> decisions, List<String> warnings,
+                 Map<Param, Double> start) {
+    }
+
+    /** Runs the forward stages (start values, global fit, term selection). */
+    Stage stage(List<FitPoint> points) throws FitInputException {
         Map<Double, List<FitPoint>> sweeps = checkInput(points);
         double tnom = settings.nominalTemperature();
         List<String> warnings = new ArrayList<>();
@@ -215,7 +222,7 @@ public final class ForwardExtraction {
                             : String.format(Locale.ROOT, "not warranted: BIC changed by %+.1f (needs below -%.0f)", d, BIC_THRESHOLD)));
         }
 
-        return summarise(points, blocks, best, sweeps, decisions, warnings, start);
+        return new Stage(best, blocks, decisions, warnings, start);
     }
 
     // ---------------------------------------------------------------------------------------------------
@@ -340,7 +347,7 @@ public final class ForwardExtraction {
         }
     }
 
-    private double[] bounds(Param p) {
+    double[] bounds(Param p) {
         ParameterRule r = settings.rule(p);
         if (r != null && r.kind() == ParameterRule.Kind.BOUNDED) {
             double[] d = defaultBounds(p);
@@ -359,6 +366,15 @@ public final class ForwardExtraction {
             case EG -> new double[] {0.1, 5};
             case XTI -> new double[] {-50, 100};
             case TRS1 -> new double[] {-0.1, 0.1};
+            case BV -> new double[] {0.1, 1e5};
+            case NBV -> new double[] {0.1, 100};
+            case IBV -> new double[] {1e-15, 10};
+            case TCV -> new double[] {-1, 1};
+            case TT -> new double[] {1e-18, 1e-2};
+            case CJO -> new double[] {1e-18, 1e-5};
+            case VJ -> new double[] {0.05, 5};
+            case M -> new double[] {0.01, 0.9};
+            case FC -> new double[] {0, 0.95};
             default -> new double[] {Double.NEGATIVE_INFINITY, Double.POSITIVE_INFINITY};
         };
     }
@@ -371,110 +387,4 @@ public final class ForwardExtraction {
         return n * Math.log(Math.max(rss / n, RESIDUAL_FLOOR_SQUARED)) + k * Math.log(n);
     }
 
-    private FitResult summarise(List<FitPoint> points, List<ResidualBlock> blocks, Optimiser.Run best,
-                                Map<Double, List<FitPoint>> sweeps, List<TermDecision> decisions,
-                                List<String> warnings, Map<Param, Double> start) {
-        FreeParameters layout = best.layout();
-        JointProblem model = new JointProblem(blocks, layout);
-        ForwardBlock forward = new ForwardBlock(points, settings.options());
-        int n = model.rows();
-        int k = layout.size();
-        int dof = n - k;
-        double chi2 = best.rss();
-        double reduced = dof > 0 ? chi2 / dof : Double.NaN;
-
-        double[] se = new double[k];
-        double[][] corr = new double[k][k];
-        if (k > 0) {
-            RealMatrix j = model.jacobian(best.x());
-            RealMatrix jtj = j.transpose().multiply(j);
-            SingularValueDecomposition svd = new SingularValueDecomposition(jtj);
-            RealMatrix cov = svd.getSolver().getInverse();
-            // Commons Math gives the unscaled covariance; multiply by the reduced chi-square (see
-            // Hipparchus EvaluationTest.testComputeSigma for the same convention)
-            double scale = Double.isFinite(reduced) ? reduced : 1;
-            boolean singular = svd.getConditionNumber() > 1e15;
-            for (int a = 0; a < k; a++) {
-                double var = cov.getEntry(a, a) * scale;
-                double sx = singular ? Double.POSITIVE_INFINITY : Math.sqrt(Math.max(var, 0));
-                se[a] = layout.isLog(a) ? layout.value(a, best.x()[a]) * sx : sx;
-                for (int b = 0; b < k; b++) {
-                    corr[a][b] = cov.getEntry(a, b) / Math.sqrt(cov.getEntry(a, a) * cov.getEntry(b, b));
-                }
-            }
-            if (singular) {
-                warnings.add("the fitted parameters are not all independent for this data (the curvature matrix is singular); standard errors are not available");
-            }
-        }
-
-        List<FittedParameter> fitted = new ArrayList<>();
-        DiodeParameters p = best.parameters();
-        for (Param q : p.givenParameters()) {
-            int idx = layout.free().indexOf(q);
-            FittedParameter.Origin origin;
-            ParameterRule rule = settings.rule(q);
-            if (idx >= 0) {
-                origin = FittedParameter.Origin.FITTED;
-            } else if (rule != null && rule.kind() == ParameterRule.Kind.FIXED) {
-                origin = FittedParameter.Origin.FIXED_BY_USER;
-            } else {
-                origin = FittedParameter.Origin.PRESET;
-            }
-            fitted.add(new FittedParameter(q, p.get(q), idx >= 0 ? se[idx] : Double.NaN, origin,
-                    idx >= 0 ? start.getOrDefault(q, Double.NaN) : Double.NaN));
-            if (idx >= 0) {
-                double rel = layout.isLog(idx) ? se[idx] / p.get(q) : se[idx] / Math.max(Math.abs(p.get(q)), 1e-30);
-                boolean undetermined = layout.isLog(idx) ? rel > 1.0 : (q == Param.TRS1 || q == Param.XTI
-                        ? se[idx] > Math.max(Math.abs(p.get(q)), q == Param.TRS1 ? 1e-3 : 1.0) : rel > 0.5);
-                if (undetermined) {
-                    warnings.add(String.format(Locale.ROOT,
-                            "%s is not determined by this data: %s +/- %s; pin it (%s=value) or add data that exercises it",
-                            q, num(q.toCardValue(p.get(q))), num(se[idx]), q));
-                }
-                if (layout.atBound(idx, best.x()[idx])) {
-                    double[] b = bounds(q);
-                    warnings.add(String.format(Locale.ROOT, "%s stopped at its bound (%s .. %s): the data pull it further than the model allows",
-                            q, num(b[0]), num(b[1])));
-                }
-            }
-        }
-        for (int a = 0; a < k; a++) {
-            for (int b = a + 1; b < k; b++) {
-                if (Math.abs(corr[a][b]) > STRONG_CORRELATION) {
-                    warnings.add(String.format(Locale.ROOT,
-                            "%s and %s are strongly correlated (r = %.4f): the data fix a combination of them better than each alone",
-                            layout.free().get(a), layout.free().get(b), corr[a][b]));
-                }
-            }
-        }
-
-        double[] v = forward.voltages(p);
-        List<SweepResiduals> residuals = new ArrayList<>();
-        for (Map.Entry<Double, List<FitPoint>> e : sweeps.entrySet()) {
-            double sum = 0;
-            double max = 0;
-            double worstI = Double.NaN;
-            double lo = Double.POSITIVE_INFINITY;
-            double hi = 0;
-            int count = 0;
-            for (int i = 0; i < points.size(); i++) {
-                FitPoint pt = points.get(i);
-                if (pt.temperature() != e.getKey()) {
-                    continue;
-                }
-                double r = v[i] - pt.voltage();
-                sum += r * r;
-                count++;
-                if (Math.abs(r) >= max) {
-                    max = Math.abs(r);
-                    worstI = pt.current();
-                }
-                lo = Math.min(lo, pt.current());
-                hi = Math.max(hi, pt.current());
-            }
-            residuals.add(new SweepResiduals(e.getKey(), count, lo, hi, Math.sqrt(sum / count), max, worstI));
-        }
-        return new FitResult(p, fitted, new Correlations(layout.free(), corr), chi2, reduced, n, dof,
-                best.evaluations(), best.iterations(), best.stopReason(), residuals, decisions, warnings);
-    }
 }

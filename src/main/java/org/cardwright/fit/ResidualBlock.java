@@ -51,4 +51,9 @@ public interface ResidualBlock {
         }
         return jac;
     }
+
+    /** Residual statistics per temperature in this kind's own unit; forward I-V reports separately. */
+    default java.util.List<KindResiduals> summary(DiodeParameters p) {
+        return java.util.List.of();
+    }
 }

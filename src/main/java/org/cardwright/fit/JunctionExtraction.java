@@ -1,0 +1,205 @@
+package org.cardwright.fit;
+
+import java.util.ArrayList;
+import java.util.EnumMap;
+import java.util.LinkedHashSet;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.Set;
+import org.cardwright.model.DiodeAtTemperature;
+import org.cardwright.model.DiodeParameters;
+import org.cardwright.model.JunctionCurrent;
+import org.cardwright.model.Ngspice39;
+import org.cardwright.model.Param;
+import org.cardwright.model.TemperatureLaws;
+
+/**
+ * The whole junction in one fit: forward I-V, reverse breakdown, C-V and reverse-recovery records together.
+ *
+ * <p>Each data kind first gets its own stage with the others held (forward: {@link ForwardExtraction};
+ * breakdown: closed-form start from {@link ReverseAnalysis}, then BV, NBV and TCV; C-V:
+ * {@link CapacitanceExtraction}; recovery: the charge-control relation, linear in TT). Then one joint
+ * Levenberg-Marquardt fit moves every free parameter against every residual at once, each residual divided by
+ * its own measurement uncertainty, so that shared parameters (VJ and M in both the recombination current and
+ * the capacitance; IS in forward current and in the breakdown knee) serve all the data.
+ */
+public final class JunctionExtraction {
+    /** Fewest breakdown points for a breakdown fit. */
+    static final int MIN_BREAKDOWN_POINTS = 3;
+    /** Measured leakage this many times the model's is reported [1]. */
+    static final double LEAKAGE_EXCESS = 10;
+
+    private final FitSettings settings;
+    private final CapacitanceOptions capacitanceOptions;
+
+    public JunctionExtraction(FitSettings settings, CapacitanceOptions capacitanceOptions) {
+        this.settings = settings;
+        this.capacitanceOptions = capacitanceOptions;
+    }
+
+    /**
+     * Fits everything in {@code data}.
+     *
+     * @throws FitInputException when the data cannot support a fit (the message names file, line and value)
+     */
+    public FitResult fit(ExtractionData data) throws FitInputException {
+        if (data.isEmpty()) {
+            throw new FitInputException("no data to fit");
+        }
+        ForwardExtraction forward = new ForwardExtraction(settings);
+        List<ResidualBlock> blocks = new ArrayList<>();
+        List<TermDecision> decisions = new ArrayList<>();
+        List<String> warnings = new ArrayList<>();
+        Set<Param> free = new LinkedHashSet<>();
+        Map<Param, Double> start = new EnumMap<>(Param.class);
+        DiodeParameters params;
+        Optimiser.Run lastRun = null;
+
+        if (!data.forward().isEmpty()) {
+            ForwardExtraction.Stage st = forward.stage(data.forward());
+            blocks.addAll(st.blocks());
+            decisions.addAll(st.decisions());
+            warnings.addAll(st.warnings());
+            start.putAll(st.start());
+            free.addAll(st.run().layout().free());
+            params = st.run().parameters();
+            lastRun = st.run();
+        } else {
+            params = DiodeParameters.defaults().with(Param.TNOM, settings.nominalTemperature());
+            for (ParameterRule r : settings.rules().values()) {
+                if (r.kind() == ParameterRule.Kind.FIXED) {
+                    params = params.with(r.param(), r.value());
+                }
+            }
+            warnings.add("no forward I-V data: IS, N and RS keep their " + (settings.rules().isEmpty() ? "defaults" : "given values")
+                    + ", and the card describes only what the other data determine");
+        }
+
+        // ---- reverse: breakdown fit and leakage check ----------------------------------------------------
+        ReverseAnalysis.Split split = ReverseAnalysis.split(data.reverse());
+        ParameterRule bvRule = settings.rule(Param.BV);
+        boolean bvOff = bvRule != null && bvRule.kind() == ParameterRule.Kind.OFF;
+        if (!data.reverse().isEmpty() && split.breakdown().size() < MIN_BREAKDOWN_POINTS && !bvOff) {
+            ReversePoint deepest = data.reverse().stream()
+                    .min(java.util.Comparator.comparingDouble(ReversePoint::current)).orElseThrow();
+            warnings.add(String.format(Locale.ROOT,
+                    "%s: the reverse data never reach breakdown (largest current %s A at %s V; the current must rise faster than |V|^%.0f); BV is not fitted",
+                    deepest.where(), num(-deepest.current()), num(deepest.voltage()), ReverseAnalysis.BREAKDOWN_EXPONENT));
+        }
+        if (split.breakdown().size() >= MIN_BREAKDOWN_POINTS && !bvOff) {
+            long temps = split.breakdown().stream().mapToDouble(ReversePoint::temperature).distinct().count();
+            boolean tempco = temps >= 2 && isVariable(Param.TCV);
+            double[] s = ReverseAnalysis.start(split.breakdown(), params.get(Param.RS), settings.nominalTemperature(), tempco);
+            params = put(params, start, Param.BV, s[0]);
+            params = put(params, start, Param.NBV, s[1]);
+            params = put(params, start, Param.IBV, s[2]);
+            List<Param> stageFree = new ArrayList<>();
+            for (Param p : List.of(Param.BV, Param.NBV)) {
+                if (isVariable(p)) {
+                    stageFree.add(p);
+                }
+            }
+            if (tempco) {
+                params = put(params, start, Param.TCV, s[3]);
+                stageFree.add(Param.TCV);
+            } else if (temps >= 2) {
+                warnings.add("TCV held by your rule although breakdown was measured at " + temps + " temperatures");
+            }
+            if (isFreedByUser(Param.IBV)) {
+                stageFree.add(Param.IBV);
+                warnings.add("IBV was set free: with BV free as well the two are nearly interchangeable (the data fix the voltage at a current, not both); expect a strong correlation");
+            }
+            BreakdownBlock block = new BreakdownBlock(split.breakdown(), settings.options());
+            Optimiser.Run run = Optimiser.run(List.of(block), params, stageFree, forward::bounds);
+            params = run.parameters();
+            blocks.add(block);
+            free.addAll(stageFree);
+            decisions.add(new TermDecision("breakdown", List.of(Param.BV, Param.IBV, Param.NBV), true, Double.NaN,
+                    String.format(Locale.ROOT, "%d points in breakdown at %d temperature(s); IBV held at %s A, where the data lie",
+                            split.breakdown().size(), temps, num(params.get(Param.IBV)))));
+        }
+
+        // ---- C-V ----------------------------------------------------------------------------------------------
+        if (!data.capacitance().isEmpty()) {
+            CapacitanceFit cf = new CapacitanceExtraction(settings, capacitanceOptions).fit(data.capacitance(), params);
+            for (FittedParameter fp : cf.fitted()) {
+                if (fp.fitted()) {
+                    params = put(params, start, fp.param(), fp.value());
+                    free.add(fp.param());
+                }
+            }
+            warnings.addAll(cf.warnings());
+            blocks.add(new CapacitanceBlock(data.capacitance(), capacitanceOptions.strayCapacitance(),
+                    capacitanceOptions.frequency(), settings.options()));
+        }
+
+        // ---- recovery ---------------------------------------------------------------------------------------
+        if (!data.recovery().isEmpty()) {
+            RecoveryBlock block = new RecoveryBlock(data.recovery());
+            if (isVariable(Param.TT)) {
+                double tt = RecoveryBlock.closedForm(data.recovery());
+                params = put(params, start, Param.TT, tt);
+                free.add(Param.TT);
+            }
+            blocks.add(block);
+        }
+
+        // ---- the joint fit ------------------------------------------------------------------------------------
+        Optimiser.Run joint;
+        if (blocks.size() == 1 && lastRun != null) {
+            joint = lastRun;
+        } else {
+            joint = Optimiser.run(blocks, params, new ArrayList<>(free), forward::bounds);
+        }
+        leakageCheck(split.leakage(), joint.parameters(), warnings);
+        return ResultAssembly.assemble(settings, blocks, joint, data.forward(), decisions, warnings, start, forward::bounds);
+    }
+
+    private DiodeParameters put(DiodeParameters p, Map<Param, Double> start, Param q, double value) {
+        ParameterRule r = settings.rule(q);
+        double v = r != null && Double.isFinite(r.value()) ? r.value() : value;
+        start.put(q, v);
+        return p.with(q, v);
+    }
+
+    /** True unless the user fixed or switched off {@code p}. */
+    private boolean isVariable(Param p) {
+        ParameterRule r = settings.rule(p);
+        return r == null || r.kind() == ParameterRule.Kind.FREE || r.kind() == ParameterRule.Kind.BOUNDED;
+    }
+
+    private boolean isFreedByUser(Param p) {
+        ParameterRule r = settings.rule(p);
+        return r != null && (r.kind() == ParameterRule.Kind.FREE || r.kind() == ParameterRule.Kind.BOUNDED);
+    }
+
+    /** Warns when measured leakage far exceeds what the card predicts (surface or shunt leakage). */
+    private void leakageCheck(List<ReversePoint> leakage, DiodeParameters p, List<String> warnings) {
+        ReversePoint worst = null;
+        double worstRatio = LEAKAGE_EXCESS;
+        double worstModel = 0;
+        for (ReversePoint r : leakage) {
+            DiodeAtTemperature d = TemperatureLaws.at(p, r.temperature(), settings.options());
+            if (r.voltage() > -3 * d.emissionCoefficient() * Ngspice39.thermalVoltage(r.temperature())) {
+                continue;
+            }
+            double model = -JunctionCurrent.current(d, r.voltage());
+            double ratio = -r.current() / model;
+            if (ratio > worstRatio) {
+                worstRatio = ratio;
+                worst = r;
+                worstModel = model;
+            }
+        }
+        if (worst != null) {
+            warnings.add(String.format(Locale.ROOT,
+                    "%s: measured leakage %s A at %s V is %.0f times what the card predicts (%s A, IS plus GMIN): surface or shunt leakage that a level-1 card cannot carry",
+                    worst.where(), num(-worst.current()), num(worst.voltage()), worstRatio, num(worstModel)));
+        }
+    }
+
+    private static String num(double v) {
+        return String.format(Locale.ROOT, "%.4g", v);
+    }
+}

@@ -1,0 +1,144 @@
+package org.cardwright.fit;
+
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.TreeMap;
+import java.util.function.Function;
+import org.apache.commons.math3.linear.RealMatrix;
+import org.apache.commons.math3.linear.SingularValueDecomposition;
+import org.cardwright.model.DiodeParameters;
+import org.cardwright.model.Param;
+
+/**
+ * Turns the optimiser's final state into a {@link FitResult}: standard errors from the curvature matrix
+ * scaled by the reduced chi-square, correlations, residual statistics, and the warnings a user must see.
+ */
+final class ResultAssembly {
+    /** A correlation beyond this is reported [1]. */
+    private static final double STRONG_CORRELATION = 0.995;
+
+    private ResultAssembly() {
+    }
+
+    private static String num(double v) {
+        return String.format(Locale.ROOT, "%.4g", v);
+    }
+
+    static FitResult assemble(FitSettings settings, List<ResidualBlock> blocks, Optimiser.Run best,
+                              List<FitPoint> points, List<TermDecision> decisions, List<String> warningsIn,
+                              Map<Param, Double> start, Function<Param, double[]> bounds) {
+        List<String> warnings = new ArrayList<>(warningsIn);
+        Map<Double, List<FitPoint>> sweeps = new TreeMap<>();
+        for (FitPoint pt : points) {
+            sweeps.computeIfAbsent(pt.temperature(), t -> new ArrayList<>()).add(pt);
+        }
+        FreeParameters layout = best.layout();
+        JointProblem model = new JointProblem(blocks, layout);
+        ForwardBlock forward = new ForwardBlock(points, settings.options());
+        int n = model.rows();
+        int k = layout.size();
+        int dof = n - k;
+        double chi2 = best.rss();
+        double reduced = dof > 0 ? chi2 / dof : Double.NaN;
+
+        double[] se = new double[k];
+        double[][] corr = new double[k][k];
+        if (k > 0) {
+            RealMatrix j = model.jacobian(best.x());
+            RealMatrix jtj = j.transpose().multiply(j);
+            SingularValueDecomposition svd = new SingularValueDecomposition(jtj);
+            RealMatrix cov = svd.getSolver().getInverse();
+            // Commons Math gives the unscaled covariance; multiply by the reduced chi-square (see
+            // Hipparchus EvaluationTest.testComputeSigma for the same convention)
+            double scale = Double.isFinite(reduced) ? reduced : 1;
+            boolean singular = svd.getConditionNumber() > 1e15;
+            for (int a = 0; a < k; a++) {
+                double var = cov.getEntry(a, a) * scale;
+                double sx = singular ? Double.POSITIVE_INFINITY : Math.sqrt(Math.max(var, 0));
+                se[a] = layout.isLog(a) ? layout.value(a, best.x()[a]) * sx : sx;
+                for (int b = 0; b < k; b++) {
+                    corr[a][b] = cov.getEntry(a, b) / Math.sqrt(cov.getEntry(a, a) * cov.getEntry(b, b));
+                }
+            }
+            if (singular) {
+                warnings.add("the fitted parameters are not all independent for this data (the curvature matrix is singular); standard errors are not available");
+            }
+        }
+
+        List<FittedParameter> fitted = new ArrayList<>();
+        DiodeParameters p = best.parameters();
+        for (Param q : p.givenParameters()) {
+            int idx = layout.free().indexOf(q);
+            FittedParameter.Origin origin;
+            ParameterRule rule = settings.rule(q);
+            if (idx >= 0) {
+                origin = FittedParameter.Origin.FITTED;
+            } else if (rule != null && rule.kind() == ParameterRule.Kind.FIXED) {
+                origin = FittedParameter.Origin.FIXED_BY_USER;
+            } else {
+                origin = FittedParameter.Origin.PRESET;
+            }
+            fitted.add(new FittedParameter(q, p.get(q), idx >= 0 ? se[idx] : Double.NaN, origin,
+                    idx >= 0 ? start.getOrDefault(q, Double.NaN) : Double.NaN));
+            if (idx >= 0) {
+                double rel = layout.isLog(idx) ? se[idx] / p.get(q) : se[idx] / Math.max(Math.abs(p.get(q)), 1e-30);
+                boolean undetermined = layout.isLog(idx) ? rel > 1.0 : (q == Param.TRS1 || q == Param.XTI
+                        ? se[idx] > Math.max(Math.abs(p.get(q)), q == Param.TRS1 ? 1e-3 : 1.0) : rel > 0.5);
+                if (undetermined) {
+                    warnings.add(String.format(Locale.ROOT,
+                            "%s is not determined by this data: %s +/- %s; pin it (%s=value) or add data that exercises it",
+                            q, num(q.toCardValue(p.get(q))), num(se[idx]), q));
+                }
+                if (layout.atBound(idx, best.x()[idx])) {
+                    double[] b = bounds.apply(q);
+                    warnings.add(String.format(Locale.ROOT, "%s stopped at its bound (%s .. %s): the data pull it further than the model allows",
+                            q, num(b[0]), num(b[1])));
+                }
+            }
+        }
+        for (int a = 0; a < k; a++) {
+            for (int b = a + 1; b < k; b++) {
+                if (Math.abs(corr[a][b]) > STRONG_CORRELATION) {
+                    warnings.add(String.format(Locale.ROOT,
+                            "%s and %s are strongly correlated (r = %.4f): the data fix a combination of them better than each alone",
+                            layout.free().get(a), layout.free().get(b), corr[a][b]));
+                }
+            }
+        }
+
+        double[] v = forward.voltages(p);
+        List<SweepResiduals> residuals = new ArrayList<>();
+        for (Map.Entry<Double, List<FitPoint>> e : sweeps.entrySet()) {
+            double sum = 0;
+            double max = 0;
+            double worstI = Double.NaN;
+            double lo = Double.POSITIVE_INFINITY;
+            double hi = 0;
+            int count = 0;
+            for (int i = 0; i < points.size(); i++) {
+                FitPoint pt = points.get(i);
+                if (pt.temperature() != e.getKey()) {
+                    continue;
+                }
+                double r = v[i] - pt.voltage();
+                sum += r * r;
+                count++;
+                if (Math.abs(r) >= max) {
+                    max = Math.abs(r);
+                    worstI = pt.current();
+                }
+                lo = Math.min(lo, pt.current());
+                hi = Math.max(hi, pt.current());
+            }
+            residuals.add(new SweepResiduals(e.getKey(), count, lo, hi, Math.sqrt(sum / count), max, worstI));
+        }
+        List<KindResiduals> other = new ArrayList<>();
+        for (ResidualBlock b : blocks) {
+            other.addAll(b.summary(p));
+        }
+        return new FitResult(p, fitted, new Correlations(layout.free(), corr), chi2, reduced, n, dof,
+                best.evaluations(), best.iterations(), best.stopReason(), residuals, other, decisions, warnings);
+    }
+}
