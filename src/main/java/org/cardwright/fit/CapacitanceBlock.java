@@ -1,5 +1,6 @@
 package org.cardwright.fit;
 
+import java.util.ArrayList;
 import java.util.EnumSet;
 import java.util.List;
 import java.util.Map;
@@ -105,6 +106,42 @@ public final class CapacitanceBlock implements ResidualBlock {
             c[i] = (c[i] + strayCapacitance - points[i].capacitance()) / points[i].sigma();
         }
         return c;
+    }
+
+    /**
+     * Residual statistics per temperature, ascending, in % of the measured device capacitance (reading minus
+     * stray), for parameters {@code p}.
+     */
+    public List<CapacitanceResiduals> statistics(DiodeParameters p) {
+        double[] c = capacitances(p);
+        List<CapacitanceResiduals> out = new ArrayList<>();
+        for (int k = 0; k < temperatures.length; k++) {
+            double sum = 0;
+            double max = -1;
+            int count = 0;
+            double lo = Double.POSITIVE_INFINITY;
+            double hi = Double.NEGATIVE_INFINITY;
+            CapacitancePoint worst = null;
+            for (int i = 0; i < points.length; i++) {
+                if (group[i] != k) {
+                    continue;
+                }
+                CapacitancePoint pt = points[i];
+                double device = pt.capacitance() - strayCapacitance;
+                double r = 100 * (c[i] - device) / device;
+                sum += r * r;
+                count++;
+                if (Math.abs(r) > max) {
+                    max = Math.abs(r);
+                    worst = pt;
+                }
+                lo = Math.min(lo, pt.voltage());
+                hi = Math.max(hi, pt.voltage());
+            }
+            out.add(new CapacitanceResiduals(temperatures[k], count, lo, hi, Math.sqrt(sum / count), max,
+                    worst.voltage(), worst.where()));
+        }
+        return out;
     }
 
     /** The measurements, in the order of the residuals. */

@@ -443,35 +443,7 @@ public final class CapacitanceExtraction {
             }
         }
 
-        double[] c = block.capacitances(p);
-        List<CapacitancePoint> pts = block.points();
-        List<CapacitanceResiduals> residuals = new ArrayList<>();
-        for (double t : byT.keySet()) {
-            double sum = 0;
-            double max = -1;
-            int count = 0;
-            double lo = Double.POSITIVE_INFINITY;
-            double hi = Double.NEGATIVE_INFINITY;
-            CapacitancePoint worst = null;
-            for (int i = 0; i < pts.size(); i++) {
-                CapacitancePoint pt = pts.get(i);
-                if (pt.temperature() != t) {
-                    continue;
-                }
-                double device = pt.capacitance() - block.strayCapacitance();
-                double r = 100 * (c[i] - device) / device;
-                sum += r * r;
-                count++;
-                if (Math.abs(r) > max) {
-                    max = Math.abs(r);
-                    worst = pt;
-                }
-                lo = Math.min(lo, pt.voltage());
-                hi = Math.max(hi, pt.voltage());
-            }
-            residuals.add(new CapacitanceResiduals(t, count, lo, hi, Math.sqrt(sum / count), max, worst.voltage(),
-                    worst.where()));
-        }
+        List<CapacitanceResiduals> residuals = block.statistics(p);
         return new CapacitanceFit(p, fitted, new Correlations(layout.free(), corr), chi2, reduced, n, dof,
                 best.evaluations(), best.iterations(), best.stopReason(), residuals, decisions, warnings, options);
     }
