@@ -8,6 +8,7 @@ import java.util.OptionalDouble;
 import java.util.concurrent.Callable;
 import org.cardwright.card.Dialect;
 import org.cardwright.card.SpiceNumbers;
+import org.cardwright.fit.CapacitanceOptions;
 import org.cardwright.fit.DeviceKind;
 import org.cardwright.fit.ParameterRule;
 import org.cardwright.model.Ngspice39;
@@ -71,6 +72,14 @@ final class FitCommand implements Callable<Integer> {
     @Option(names = "--templates", paramLabel = "DIR", description = "Folder of card templates overriding the bundled ones.")
     Path templates;
 
+    @Option(names = "--stray-capacitance", paramLabel = "C", defaultValue = "0",
+            description = "Fixture/stray capacitance included in every C-V reading, subtracted by the fit (SPICE suffixes: 1.5p).")
+    String stray;
+
+    @Option(names = "--cv-frequency", paramLabel = "HZ", defaultValue = "1meg",
+            description = "Test frequency of the C-V readings (default: ${DEFAULT-VALUE}).")
+    String cvFrequency;
+
     @Option(names = "--force", description = "Replace existing output files.")
     boolean force;
 
@@ -92,7 +101,8 @@ final class FitCommand implements Callable<Integer> {
         }
         FitRequest request = new FitRequest(data, name, ds, out, Optional.ofNullable(json),
                 temperature == null ? OptionalDouble.empty() : OptionalDouble.of(temperature + Ngspice39.CELSIUS_TO_KELVIN),
-                DeviceKind.byOptionName(kind), parsed, digits, force, Optional.ofNullable(templates));
+                DeviceKind.byOptionName(kind), parsed, digits, force, Optional.ofNullable(templates),
+                new CapacitanceOptions(SpiceNumbers.parse(stray), SpiceNumbers.parse(cvFrequency)));
         FitOutcome outcome = new FitWorkflow().run(request, o -> FitJson.write(name, o));
         spec.commandLine().getOut().print(FitText.render(name, outcome));
         spec.commandLine().getOut().flush();

@@ -5,6 +5,7 @@ import java.util.Map;
 import org.cardwright.data.MeasurementFile;
 import org.cardwright.fit.FitResult;
 import org.cardwright.fit.FittedParameter;
+import org.cardwright.fit.KindResiduals;
 import org.cardwright.fit.SweepResiduals;
 import org.cardwright.fit.TermDecision;
 import org.cardwright.workflow.FitOutcome;
@@ -93,6 +94,19 @@ public final class FitJson {
             res.add(t);
         }
         o.put("residuals", res);
+        List<Object> other = Json.array();
+        for (KindResiduals k : r.otherResiduals()) {
+            Map<String, Object> t = Json.object();
+            t.put("kind", k.kind());
+            t.put("temperature", k.temperature());
+            t.put("points", k.points());
+            t.put("rms_residual", k.rms());
+            t.put("max_residual", k.max());
+            t.put("unit", k.unit());
+            t.put("worst_at", k.worst());
+            other.add(t);
+        }
+        o.put("other_residuals", other);
         List<Object> terms = Json.array();
         for (TermDecision d : r.terms()) {
             Map<String, Object> t = Json.object();

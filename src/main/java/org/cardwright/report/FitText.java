@@ -3,6 +3,7 @@ package org.cardwright.report;
 import java.util.Locale;
 import org.cardwright.fit.FitResult;
 import org.cardwright.fit.FittedParameter;
+import org.cardwright.fit.KindResiduals;
 import org.cardwright.fit.SweepResiduals;
 import org.cardwright.fit.TermDecision;
 import org.cardwright.model.Param;
@@ -20,8 +21,8 @@ public final class FitText {
         for (String note : outcome.inputs().notes()) {
             sb.append("note: ").append(note).append('\n');
         }
-        sb.append(String.format(Locale.ROOT, "Model %s: %d forward points at %d temperature(s)%n%n", name, r.points(),
-                r.residuals().size()));
+        sb.append(String.format(Locale.ROOT, "Model %s: %d points fitted (%d forward I-V at %d temperature(s))%n%n", name,
+                r.points(), outcome.inputs().forward().size(), r.residuals().size()));
         sb.append(parameterTable(r));
         sb.append("\nOptional terms\n");
         for (TermDecision d : r.terms()) {
@@ -35,6 +36,15 @@ public final class FitText {
             sb.append(String.format(Locale.ROOT, "  %8s %6d %-22s %9s %9s  %s%n", Units.celsius(s.temperature()),
                     s.points(), Units.engineering(s.lowCurrent(), "A") + " .. " + Units.engineering(s.highCurrent(), "A"),
                     Units.millivolts(s.rms(), 3), Units.millivolts(s.max(), 3), Units.engineering(s.worstCurrent(), "A")));
+        }
+        if (!r.otherResiduals().isEmpty()) {
+            sb.append("\nResiduals of the other data, model minus measured\n");
+            sb.append(String.format(Locale.ROOT, "  %-18s %8s %6s %10s %10s  %s%n", "data", "T [degC]", "points", "RMS", "max", "largest at"));
+            for (KindResiduals k : r.otherResiduals()) {
+                sb.append(String.format(Locale.ROOT, "  %-18s %8s %6d %10s %10s  %s%n", k.kind(), Units.celsius(k.temperature()),
+                        k.points(), String.format(Locale.ROOT, "%.3f %s", k.rms(), k.unit()),
+                        String.format(Locale.ROOT, "%.3f %s", k.max(), k.unit()), k.worst()));
+            }
         }
         sb.append(String.format(Locale.ROOT, "%nOptimiser: %s; %d evaluations; chi-square %.4g, reduced %.4g (%d degrees of freedom)%n",
                 r.stopReason(), r.evaluations(), r.chiSquare(), r.reducedChiSquare(), r.degreesOfFreedom()));

@@ -5,6 +5,7 @@ import java.util.List;
 import java.util.Optional;
 import java.util.OptionalDouble;
 import org.cardwright.card.Dialect;
+import org.cardwright.fit.CapacitanceOptions;
 import org.cardwright.fit.DeviceKind;
 import org.cardwright.fit.ParameterRule;
 
@@ -22,10 +23,12 @@ import org.cardwright.fit.ParameterRule;
  * @param digits      significant digits on the card
  * @param force       allow replacing existing files
  * @param templates   folder of user templates overriding the bundled ones
+ * @param capacitance how the C-V readings were taken (stray capacitance, test frequency)
  */
 public record FitRequest(List<Path> data, String name, List<Dialect> dialects, Path outDir, Optional<Path> json,
                          OptionalDouble temperature, DeviceKind kind, List<ParameterRule> rules, int digits,
-                         boolean force, Optional<Path> templates) {
+                         boolean force, Optional<Path> templates,
+                         CapacitanceOptions capacitance) {
     public FitRequest {
         data = List.copyOf(data);
         dialects = List.copyOf(dialects);
@@ -39,6 +42,14 @@ public record FitRequest(List<Path> data, String name, List<Dialect> dialects, P
         if (digits < 4 || digits > 15) {
             throw new IllegalArgumentException("--digits must lie in 4..15, got " + digits);
         }
+    }
+
+    /** A request whose C-V readings (if any) were taken at 1 MHz with no stray capacitance. */
+    public FitRequest(List<Path> data, String name, List<Dialect> dialects, Path outDir, Optional<Path> json,
+                      OptionalDouble temperature, DeviceKind kind, List<ParameterRule> rules, int digits,
+                      boolean force, Optional<Path> templates) {
+        this(data, name, dialects, outDir, json, temperature, kind, rules, digits, force, templates,
+                CapacitanceOptions.DEFAULT);
     }
 
     /** The card file for {@code d}: {@code OUT/NAME.DIALECT.lib}. */

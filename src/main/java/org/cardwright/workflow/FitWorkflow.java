@@ -13,10 +13,13 @@ import org.cardwright.data.DataFileException;
 import org.cardwright.data.MeasurementFile;
 import org.cardwright.data.ReadOptions;
 import org.cardwright.fit.FitInputException;
+import org.cardwright.fit.CapacitancePoint;
+import org.cardwright.fit.ExtractionData;
 import org.cardwright.fit.FitPoint;
+import org.cardwright.fit.JunctionExtraction;
+import org.cardwright.fit.ReversePoint;
 import org.cardwright.fit.FitResult;
 import org.cardwright.fit.FitSettings;
-import org.cardwright.fit.ForwardExtraction;
 import org.cardwright.fit.ParameterRule;
 import org.cardwright.model.DiodeParameters;
 import org.cardwright.model.Param;
@@ -46,16 +49,13 @@ public final class FitWorkflow {
             options = options.withDefaultTemperature(request.temperature().getAsDouble());
         }
         Inputs inputs = Inputs.read(request.data(), options);
-        List<FitPoint> points = new ArrayList<>();
-        for (Inputs.Located l : inputs.forward()) {
-            points.add(new FitPoint(l.point().current(), l.point().voltage(), l.point().temperature(),
-                    DEFAULT_VOLTAGE_SIGMA, l.source(), l.point().line()));
-        }
-        if (points.isEmpty()) {
-            throw new FitInputException(noForwardPoints(inputs));
+        ExtractionData data = extractionData(inputs);
+        if (data.isEmpty()) {
+            throw new FitInputException(request.data().stream().map(Inputs::displayName).collect(Collectors.joining(", "))
+                    + ": no I-V or C-V points to fit");
         }
         FitSettings settings = FitSettings.defaults().withKind(request.kind()).withRules(request.rules());
-        FitResult full = new ForwardExtraction(settings).fit(points);
+        FitResult full = new JunctionExtraction(settings, request.capacitance()).fit(data);
 
         CardWriter writer = new CardWriter(request.templates());
         List<FitOutcome.WrittenCard> cards = new ArrayList<>();
@@ -71,14 +71,11 @@ public final class FitWorkflow {
             if (!leftOut.isEmpty()) {
                 List<ParameterRule> rules = new ArrayList<>(request.rules());
                 for (Param p : leftOut) {
-                    if (p.activeOnlyWhenGiven()) {
-                        rules.add(new ParameterRule(p, ParameterRule.Kind.OFF, Double.NaN,
-                                Double.NEGATIVE_INFINITY, Double.POSITIVE_INFINITY));
-                    } else if (!(p == Param.NR && leftOut.contains(Param.ISR))) {
-                        rules.add(ParameterRule.fixed(p, p.defaultValue()));
-                    }
+                    // "off": the parameter is not given, so the dialect's default (or its term's absence) holds
+                    rules.add(new ParameterRule(p, ParameterRule.Kind.OFF, Double.NaN,
+                            Double.NEGATIVE_INFINITY, Double.POSITIVE_INFINITY));
                 }
-                forCard = new ForwardExtraction(settings.withRules(rules)).fit(points);
+                forCard = new JunctionExtraction(settings.withRules(rules), request.capacitance()).fit(data);
                 refit = Optional.of(forCard);
             }
             ModelCard card = new ModelCard(request.name(), forCard.parameters(),
@@ -111,6 +108,34 @@ public final class FitWorkflow {
                 + ":0: no forward I-V points to fit: the files hold C-V data only";
     }
 
+    /**
+     * Voltage uncertainty assumed for reverse points without a stated one: 1 mV + 0.02 % of reading, a bench
+     * meter on a range that holds the breakdown voltage (common practice, no source) [V].
+     */
+    public static double defaultReverseSigma(double volts) {
+        return 1e-3 + 2e-4 * Math.abs(volts);
+    }
+
+    /** The points of every kind, with their uncertainties, for the extraction. */
+    public static ExtractionData extractionData(Inputs inputs) {
+        List<FitPoint> forward = new ArrayList<>();
+        for (Inputs.Located l : inputs.forward()) {
+            forward.add(new FitPoint(l.point().current(), l.point().voltage(), l.point().temperature(),
+                    DEFAULT_VOLTAGE_SIGMA, l.source(), l.point().line()));
+        }
+        List<ReversePoint> reverse = new ArrayList<>();
+        for (Inputs.Located l : inputs.reverse()) {
+            reverse.add(new ReversePoint(l.point().voltage(), l.point().current(), l.point().temperature(),
+                    defaultReverseSigma(l.point().voltage()), l.source(), l.point().line()));
+        }
+        List<CapacitancePoint> cv = new ArrayList<>();
+        for (Inputs.LocatedCapacitance l : inputs.capacitance()) {
+            cv.add(CapacitancePoint.withDefaultSigma(l.point().voltage(), l.point().capacitance(),
+                    l.point().temperature(), l.source(), l.point().line()));
+        }
+        return new ExtractionData(forward, reverse, cv, List.of());
+    }
+
     private static double defaultOf(DiodeParameters p, Param q) {
         return q == Param.NBV ? p.get(Param.N) : q.defaultValue();
     }
@@ -124,8 +149,8 @@ public final class FitWorkflow {
         for (MeasurementFile f : inputs.files()) {
             lines.add("data: " + Inputs.displayName(f.file()) + " sha256 " + f.sha256());
         }
-        lines.add(String.format(Locale.ROOT, "fit: %d forward points at %s degC; worst RMS residual %s mV",
-                full.points(), temperatures(full), mv(forCard.worstRms(), 3)));
+        lines.add(String.format(Locale.ROOT, "fit: %d points (%d forward I-V%s); forward worst RMS residual %s mV",
+                full.points(), inputs.forward().size(), otherKinds(inputs), mv(forCard.worstRms(), 3)));
         if (!request.rules().isEmpty()) {
             lines.add("rules: " + request.rules().stream().map(ParameterRule::text).collect(Collectors.joining(" ")));
         }
@@ -142,6 +167,17 @@ public final class FitWorkflow {
 
     private static String mv(double volts, int decimals) {
         return String.format(Locale.ROOT, "%." + decimals + "f", volts * 1e3);
+    }
+
+    private static String otherKinds(Inputs inputs) {
+        StringBuilder sb = new StringBuilder();
+        if (!inputs.reverse().isEmpty()) {
+            sb.append(", ").append(inputs.reverse().size()).append(" reverse I-V");
+        }
+        if (!inputs.capacitance().isEmpty()) {
+            sb.append(", ").append(inputs.capacitance().size()).append(" C-V");
+        }
+        return sb.toString();
     }
 
     private static String temperatures(FitResult r) {
