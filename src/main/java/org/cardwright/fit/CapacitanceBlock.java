@@ -112,6 +112,16 @@ public final class CapacitanceBlock implements ResidualBlock {
      * Residual statistics per temperature, ascending, in % of the measured device capacitance (reading minus
      * stray), for parameters {@code p}.
      */
+    @Override
+    public List<KindResiduals> summary(DiodeParameters p) {
+        List<KindResiduals> out = new java.util.ArrayList<>();
+        for (CapacitanceResiduals r : statistics(p)) {
+            out.add(new KindResiduals(label(), r.temperature(), r.points(), r.rmsPercent(), r.maxPercent(), "%",
+                    r.worstSource()));
+        }
+        return out;
+    }
+
     public List<CapacitanceResiduals> statistics(DiodeParameters p) {
         double[] c = capacitances(p);
         List<CapacitanceResiduals> out = new ArrayList<>();

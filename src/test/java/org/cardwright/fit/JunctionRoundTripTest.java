@@ -116,4 +116,78 @@ class JunctionRoundTripTest {
         assertEquals(tt, got, TT_TOLERANCE * tt);
         assertEquals(RecoveryBlock.closedForm(rec), got, 1e-6 * got, "the joint fit keeps the relation's own least-squares TT");
     }
+
+    /** Issue 3: the joint fit's forward residuals no worse than the forward-only fit's by more than this [V]. */
+    private static final double JOINT_FORWARD_ALLOWANCE = 0.05e-3;
+    /** Issue 3: the fitted card reproduces the noise-free C-V within 1 %. */
+    private static final double CV_TOLERANCE = 0.01;
+
+    @Test
+    void jointFitGivesJunctionPotentialAndGradingThatServeBothCurrentAndCapacitance() throws Exception {
+        // a part whose recombination current is strong, so VJ and M shape the forward curve as well as C-V
+        DiodeParameters truth = DiodeParameters.of(Map.ofEntries(Map.entry(Param.IS, 2e-15), Map.entry(Param.N, 1.01),
+                Map.entry(Param.RS, 0.7), Map.entry(Param.ISR, 3e-11), Map.entry(Param.NR, 2.0),
+                Map.entry(Param.EG, 1.11), Map.entry(Param.XTI, 3.0), Map.entry(Param.CJO, 25e-12),
+                Map.entry(Param.VJ, 0.68), Map.entry(Param.M, 0.38), Map.entry(Param.BV, 80.0),
+                Map.entry(Param.IBV, 1e-4), Map.entry(Param.NBV, 3.0)));
+        List<FitPoint> forward = ForwardRoundTripTest.simulate(truth, CELSIUS, 21, true);
+        SimulatorProcess ngspice = new SimulatorProcess(SimulatorProcess.Kind.NGSPICE, Simulators.requireNgspice(),
+                Duration.ofSeconds(60));
+        CardUnderTest card = new CardUnderTest("truth", truth, ForwardRoundTripTest.card("truth", truth));
+        List<Bias> cvBias = new ArrayList<>();
+        for (double c : CELSIUS) {
+            for (double v : new double[] {0, -0.5, -1, -2, -3, -5, -7.5, -10, -15, -20}) {
+                cvBias.add(Bias.voltage(v, c + 273.15));
+            }
+        }
+        List<Double> caps = new org.cardwright.sim.NgspiceCapacitance(ngspice, Simulators.tempDir("joint-cv"))
+                .capacitance(card, cvBias, CapacitanceOptions.DEFAULT_FREQUENCY);
+        Random rnd = new Random(77);
+        List<CapacitancePoint> cv = new ArrayList<>();
+        for (int i = 0; i < caps.size(); i++) {
+            double c = caps.get(i) * (1 + 0.005 * rnd.nextGaussian()) + 20e-15 * rnd.nextGaussian();
+            cv.add(CapacitancePoint.withDefaultSigma(cvBias.get(i).value(), c, cvBias.get(i).temperature(), "cv", i + 1));
+        }
+        List<Bias> revBias = new ArrayList<>();
+        for (double c : CELSIUS) {
+            for (int k = 0; k <= 15; k++) {
+                revBias.add(Bias.current(-1e-6 * Math.pow(10, k / 5.0), c + 273.15));
+            }
+        }
+        List<OperatingPoint> rev = new NgspiceEngine(ngspice, Simulators.tempDir("joint-rev")).dc(card, revBias);
+        List<ReversePoint> reverse = new ArrayList<>();
+        for (int i = 0; i < rev.size(); i++) {
+            double v = rev.get(i).voltage() * (1 + 2e-4 * rnd.nextGaussian());
+            reverse.add(new ReversePoint(v, revBias.get(i).value(), revBias.get(i).temperature(),
+                    1e-3 + 2e-4 * Math.abs(v), "rev", i + 1));
+        }
+
+        FitResult forwardOnly = new JunctionExtraction(FitSettings.defaults(), CapacitanceOptions.DEFAULT)
+                .fit(ExtractionData.forwardOnly(forward));
+        FitResult joint = new JunctionExtraction(FitSettings.defaults(), CapacitanceOptions.DEFAULT)
+                .fit(new ExtractionData(forward, reverse, cv, List.of()));
+        System.out.println("joint fit: " + joint.otherResiduals());
+        for (Param p : List.of(Param.VJ, Param.M, Param.CJO, Param.ISR, Param.NR)) {
+            System.out.printf("  %-4s truth %-10.5g forward-only %-10.5g joint %-10.5g%n", p, truth.get(p),
+                    forwardOnly.parameters().get(p), joint.parameters().get(p));
+        }
+        for (int k = 0; k < CELSIUS.length; k++) {
+            double a = forwardOnly.residuals().get(k).rms();
+            double b = joint.residuals().get(k).rms();
+            System.out.printf("  forward RMS at %.0f degC: forward-only %.4f mV, joint %.4f mV%n", CELSIUS[k], a * 1e3, b * 1e3);
+            assertTrue(b <= a + JOINT_FORWARD_ALLOWANCE, "forward residual at " + CELSIUS[k] + " degC");
+        }
+        double worst = 0;
+        for (Bias b : cvBias) {
+            var ta = TemperatureLaws.at(truth, b.temperature(), SimulatorOptions.NGSPICE_DEFAULTS);
+            var tb = TemperatureLaws.at(joint.parameters(), b.temperature(), SimulatorOptions.NGSPICE_DEFAULTS);
+            double ca = org.cardwright.model.JunctionCapacitance.total(ta, b.value());
+            double cb = org.cardwright.model.JunctionCapacitance.total(tb, b.value());
+            worst = Math.max(worst, Math.abs(cb / ca - 1));
+        }
+        System.out.printf("  joint card against the noise-free C-V: worst %.3f %%%n", 100 * worst);
+        assertTrue(worst < CV_TOLERANCE);
+        assertEquals(truth.get(Param.VJ), joint.parameters().get(Param.VJ), 0.05 * truth.get(Param.VJ));
+        assertEquals(truth.get(Param.M), joint.parameters().get(Param.M), 0.05 * truth.get(Param.M));
+    }
 }
