@@ -164,7 +164,9 @@ final class FileSettings {
     void noteUnused(Set<SettingKey> used, String what, List<Notice> notices) {
         List<String> unused = new ArrayList<>();
         int first = 0;
-        for (SettingKey key : lines.keySet()) {
+        List<SettingKey> inFileOrder = new ArrayList<>(lines.keySet());
+        inFileOrder.sort((a, b) -> Integer.compare(line(a), line(b)));
+        for (SettingKey key : inFileOrder) {
             boolean resolution = key == SettingKey.SUPPLY_RESOLUTION || key == SettingKey.VOLTMETER_RESOLUTION
                     || key == SettingKey.AMMETER_RESOLUTION;
             if (!used.contains(key) && !(resolution && used.contains(accuracyOf(key)))) {
