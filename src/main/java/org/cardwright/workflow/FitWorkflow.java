@@ -56,6 +56,10 @@ public final class FitWorkflow {
         }
         FitSettings settings = FitSettings.defaults().withKind(request.kind()).withRules(request.rules());
         FitResult full = new JunctionExtraction(settings, request.capacitance()).fit(data);
+        if (data.forward().isEmpty() && full.fitted().stream().noneMatch(org.cardwright.fit.FittedParameter::fitted)) {
+            // e.g. leakage without breakdown: a card of defaults would describe nothing the data determine
+            throw new FitInputException(noForwardPoints(inputs));
+        }
 
         CardWriter writer = new CardWriter(request.templates());
         List<FitOutcome.WrittenCard> cards = new ArrayList<>();
@@ -94,18 +98,18 @@ public final class FitWorkflow {
         return outcome;
     }
 
-    /** The one-line error for data without a single forward point: names the first I-V point's file, line and current. */
+    /** The one-line error for data that determine no parameter: names the first I-V point's file, line and current. */
     private static String noForwardPoints(Inputs inputs) {
         for (MeasurementFile f : inputs.files()) {
             if (!f.iv().isEmpty()) {
                 org.cardwright.data.IvPoint first = f.iv().get(0);
                 return String.format(Locale.ROOT,
-                        "%s:%d: no forward I-V points (positive current) to fit: its %d points all have I <= 0, the first I = %.4g A",
+                        "%s:%d: nothing to fit: no forward I-V points (positive current), and the %d points with I <= 0 determine no parameter; the first has I = %.4g A",
                         Inputs.displayName(f.file()), first.line(), f.iv().size(), first.current());
             }
         }
         return inputs.files().stream().map(f -> Inputs.displayName(f.file())).collect(Collectors.joining(", "))
-                + ":0: no forward I-V points to fit: the files hold C-V data only";
+                + ":0: nothing to fit: no forward I-V points, and the other data determine no parameter";
     }
 
     /**
