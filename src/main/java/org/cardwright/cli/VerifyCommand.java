@@ -6,11 +6,13 @@ import java.util.Optional;
 import java.util.OptionalDouble;
 import java.util.concurrent.Callable;
 import org.cardwright.card.Dialect;
+import org.cardwright.card.SpiceNumbers;
+import org.cardwright.fit.CapacitanceOptions;
 import org.cardwright.model.Ngspice39;
 import org.cardwright.report.VerificationJson;
 import org.cardwright.report.VerificationText;
 import org.cardwright.verify.Tolerance;
-import org.cardwright.verify.Verification;
+import org.cardwright.verify.JunctionVerification;
 import org.cardwright.workflow.Engines;
 import org.cardwright.workflow.Inputs;
 import org.cardwright.workflow.VerifyRequest;
@@ -22,9 +24,9 @@ import picocli.CommandLine.Parameters;
 /** {@code cardwright verify}: does this card reproduce these measurements? */
 @Command(name = "verify", mixinStandardHelpOptions = true, sortOptions = false,
         description = {
-            "Re-simulates a card at every measured forward point (forced current, measured temperature) and",
-            "compares the terminal voltage with the measurement, per temperature. Exits 0 when every",
-            "temperature is within the limits, 1 when not."},
+            "Re-simulates a card at every measured point and compares, per temperature: forward and breakdown",
+            "I-V by terminal voltage at the measured current (mV), C-V by capacitance (%). Exits 0 when every",
+            "kind at every temperature is within its limits, 1 when not."},
         footerHeading = "%nExamples%n",
         footer = {
             "  cardwright verify models/KS1.ngspice.lib fixtures/demo/ks1-forward-*.csv",
@@ -63,6 +65,14 @@ final class VerifyCommand implements Callable<Integer> {
     @Option(names = "--json", paramLabel = "FILE", description = "Also write the result, point by point, as JSON.")
     Path json;
 
+    @Option(names = "--stray-capacitance", paramLabel = "C", defaultValue = "0",
+            description = "Fixture/stray capacitance included in every C-V reading (SPICE suffixes: 1.5p).")
+    String stray;
+
+    @Option(names = "--cv-frequency", paramLabel = "HZ", defaultValue = "1meg",
+            description = "Test frequency of the C-V readings (default: ${DEFAULT-VALUE}).")
+    String cvFrequency;
+
     @Option(names = "--force", description = "Replace an existing JSON file.")
     boolean force;
 
@@ -73,8 +83,9 @@ final class VerifyCommand implements Callable<Integer> {
     public Integer call() throws Exception {
         VerifyRequest request = new VerifyRequest(card, data, engine, Optional.ofNullable(model), Dialect.byName(dialect),
                 temperature == null ? OptionalDouble.empty() : OptionalDouble.of(temperature + Ngspice39.CELSIUS_TO_KELVIN),
-                new Tolerance(limitRms * 1e-3, limitMax * 1e-3), Optional.ofNullable(json), force);
-        Verification v = new VerifyWorkflow().run(request, r -> VerificationJson.write(r, Inputs.displayName(card)));
+                new Tolerance(limitRms * 1e-3, limitMax * 1e-3), Optional.ofNullable(json), force,
+                new CapacitanceOptions(SpiceNumbers.parse(stray), SpiceNumbers.parse(cvFrequency)));
+        JunctionVerification v = new VerifyWorkflow().runAll(request, r -> VerificationJson.write(r, Inputs.displayName(card)));
         spec.commandLine().getOut().print(VerificationText.render(v));
         spec.commandLine().getOut().flush();
         return v.pass() ? ExitCodes.OK : ExitCodes.NOT_REPRODUCED;

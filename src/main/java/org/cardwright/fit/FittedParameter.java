@@ -20,7 +20,12 @@ public record FittedParameter(Param param, double value, double standardError, O
         /** Held at a value the user gave. */
         FIXED_BY_USER,
         /** Held at the device-kind preset because the data cannot determine it. */
-        PRESET
+        PRESET,
+        /**
+         * Held at a value cardwright chose inside the data because the data fix only a combination: IBV, the
+         * current at which BV is stated.
+         */
+        CHOSEN
     }
 
     /** True when the fit adjusted this parameter. */

@@ -8,7 +8,12 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.TreeMap;
+import org.cardwright.model.DiodeAtTemperature;
 import org.cardwright.model.DiodeParameters;
+import org.cardwright.model.DiodeSolver;
+import org.cardwright.model.JunctionCurrent;
+import org.cardwright.model.SimulatorOptions;
+import org.cardwright.model.TemperatureLaws;
 import org.cardwright.model.Ngspice39;
 import org.cardwright.model.Param;
 
@@ -36,6 +41,10 @@ public final class ForwardExtraction {
     private static final double RESIDUAL_FLOOR_SQUARED = 1e-6;
     /** The widest sweep must span at least this much current [decades]. */
     public static final double MIN_DECADES = 2;
+    /** IKF may lie at most this many times above the largest measured current [1]. */
+    public static final double KNEE_REACH = 10;
+    /** Recombination must carry at least this share of the smallest measured current [1]. */
+    public static final double RECOMBINATION_SHARE = 0.1;
     private final FitSettings settings;
 
     public ForwardExtraction(FitSettings settings) {
@@ -180,6 +189,7 @@ public final class ForwardExtraction {
 
         // ---- stage 3: optional terms, best first, while BIC falls by more than the threshold --------------
         Map<Term, Double> lastDelta = new LinkedHashMap<>();
+        Map<Term, String> unobservable = new LinkedHashMap<>();
         while (!candidates.isEmpty()) {
             Term chosen = null;
             Optimiser.Run chosenRun = null;
@@ -200,6 +210,12 @@ public final class ForwardExtraction {
                 }
                 double b = bic(r.rss(), n, r.layout().size());
                 lastDelta.put(term, b - bestBic);
+                String outside = actsOutsideData(term, r.parameters(), points);
+                if (outside != null) {
+                    unobservable.put(term, outside);
+                    continue;
+                }
+                unobservable.remove(term);
                 if (b < chosenBic) {
                     chosenBic = b;
                     chosen = term;
@@ -217,6 +233,10 @@ public final class ForwardExtraction {
         }
         for (Term term : candidates) {
             double d = lastDelta.getOrDefault(term, Double.NaN);
+            if (unobservable.containsKey(term)) {
+                decisions.add(new TermDecision(term.name(), term.params(), false, d, unobservable.get(term)));
+                continue;
+            }
             decisions.add(new TermDecision(term.name(), term.params(), false, d,
                     Double.isNaN(d) ? "could not be fitted to this data"
                             : String.format(Locale.ROOT, "not warranted: BIC changed by %+.1f (needs below -%.0f)", d, BIC_THRESHOLD)));
@@ -310,6 +330,36 @@ public final class ForwardExtraction {
             warnings.add(heldMessage);
         }
         return dataAllows;
+    }
+
+    /**
+     * A term must act where the data are, or the data cannot be said to determine it: the high-injection knee
+     * no more than {@value #KNEE_REACH} times above the largest measured current (there it still lowers that
+     * current by a quarter), and the recombination current at least {@value #RECOMBINATION_SHARE} of the
+     * current at the smallest measured point. Returns why not, or null when it does.
+     */
+    private static String actsOutsideData(Term term, DiodeParameters p, List<FitPoint> points) {
+        if (term == HIGH_INJECTION) {
+            double top = points.stream().mapToDouble(FitPoint::current).max().orElseThrow();
+            double ikf = p.get(Param.IKF);
+            if (ikf > KNEE_REACH * top) {
+                return String.format(Locale.ROOT,
+                        "the fit puts IKF at %s A, more than %.0f times the largest measured current (%s A): no knee in the data",
+                        num(ikf), KNEE_REACH, num(top));
+            }
+        } else if (term == RECOMBINATION) {
+            FitPoint low = points.stream().min(Comparator.comparingDouble(FitPoint::current)).orElseThrow();
+            DiodeAtTemperature d = TemperatureLaws.at(p, low.temperature(), SimulatorOptions.NGSPICE_DEFAULTS);
+            DiodeAtTemperature without = TemperatureLaws.at(p.without(Param.ISR), low.temperature(), SimulatorOptions.NGSPICE_DEFAULTS);
+            double vd = DiodeSolver.junctionVoltageAtCurrent(d, low.current());
+            double share = 1 - JunctionCurrent.current(without, vd) / low.current();
+            if (share < RECOMBINATION_SHARE) {
+                return String.format(Locale.ROOT,
+                        "recombination would carry only %.1f %% of the smallest measured current (%s A): too little to determine ISR and NR",
+                        100 * share, num(low.current()));
+            }
+        }
+        return null;
     }
 
     /** Start values of an optional term, written into {@code start} unless the user fixed them. */

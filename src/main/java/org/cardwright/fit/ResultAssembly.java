@@ -77,6 +77,8 @@ final class ResultAssembly {
                 origin = FittedParameter.Origin.FITTED;
             } else if (rule != null && rule.kind() == ParameterRule.Kind.FIXED) {
                 origin = FittedParameter.Origin.FIXED_BY_USER;
+            } else if (q == Param.IBV) {
+                origin = FittedParameter.Origin.CHOSEN;
             } else {
                 origin = FittedParameter.Origin.PRESET;
             }

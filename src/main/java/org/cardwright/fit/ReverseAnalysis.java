@@ -14,18 +14,19 @@ import org.cardwright.model.Ngspice39;
  * exponent d ln|I| / d ln|V| exceeds 10. Leakage below breakdown (ohmic or generation-like, exponents near 1)
  * stays far below that; an avalanche or zener knee lies far above it (common practice, no source).
  */
-final class ReverseAnalysis {
+public final class ReverseAnalysis {
     /** Local exponent d ln|I| / d ln|V| above which a point counts as breakdown [1]. */
-    static final double BREAKDOWN_EXPONENT = 10;
+    public static final double BREAKDOWN_EXPONENT = 10;
 
     private ReverseAnalysis() {
     }
 
     /** The two groups. */
-    record Split(List<ReversePoint> breakdown, List<ReversePoint> leakage) {
+    public record Split(List<ReversePoint> breakdown, List<ReversePoint> leakage) {
     }
 
-    static Split split(List<ReversePoint> reverse) {
+    /** Sorts reverse points into breakdown and leakage, sweep by sweep (one sweep per temperature). */
+    public static Split split(List<ReversePoint> reverse) {
         Map<Double, List<ReversePoint>> byT = new TreeMap<>();
         for (ReversePoint r : reverse) {
             byT.computeIfAbsent(r.temperature(), t -> new ArrayList<>()).add(r);

@@ -91,6 +91,7 @@ public final class FitText {
                 case FITTED -> "fitted";
                 case FIXED_BY_USER -> "held (your rule)";
                 case PRESET -> "held (preset)";
+                case CHOSEN -> "held (chosen in the data)";
             };
             sb.append(String.format(Locale.ROOT, "  %-5s %14.6g %-6s %12s  %s%n", p.param().keyword(),
                     p.param().toCardValue(p.value()), unit, err, origin));

@@ -2,6 +2,10 @@ package org.cardwright.report;
 
 import java.util.List;
 import java.util.Map;
+import org.cardwright.verify.CapacitanceResidual;
+import org.cardwright.verify.CapacitanceVerdict;
+import org.cardwright.verify.CapacitanceVerification;
+import org.cardwright.verify.JunctionVerification;
 import org.cardwright.verify.PointResidual;
 import org.cardwright.verify.TemperatureVerdict;
 import org.cardwright.verify.Verification;
@@ -12,11 +16,61 @@ public final class VerificationJson {
     private VerificationJson() {
     }
 
-    /** The JSON text of a verification. */
-    public static String write(Verification v, String cardFile) {
+    /** The JSON text of a verification of every data kind. */
+    public static String write(JunctionVerification all, String cardFile) {
         Map<String, Object> root = Json.object();
         root.put("tool", "cardwright " + ToolVersion.get());
         root.put("card", cardFile);
+        root.put("pass", all.pass());
+        all.forward().ifPresent(v -> root.put("forward", section(v)));
+        all.breakdown().ifPresent(v -> root.put("breakdown", section(v)));
+        all.capacitance().ifPresent(v -> root.put("capacitance", capacitance(v)));
+        root.put("notes", List.copyOf(all.notes()));
+        return Json.write(root);
+    }
+
+    private static Map<String, Object> capacitance(CapacitanceVerification v) {
+        Map<String, Object> root = Json.object();
+        root.put("model", v.cardName());
+        root.put("engine", v.engine());
+        root.put("pass", v.pass());
+        root.put("stray_capacitance", v.strayCapacitance());
+        root.put("frequency", v.frequency());
+        Map<String, Object> tol = Json.object();
+        tol.put("rms_percent", v.tolerance().rmsPercent());
+        tol.put("max_percent", v.tolerance().maxPercent());
+        root.put("tolerance", tol);
+        List<Object> temps = Json.array();
+        for (CapacitanceVerdict t : v.perTemperature()) {
+            Map<String, Object> o = Json.object();
+            o.put("temperature", t.temperature());
+            o.put("points", t.points());
+            o.put("rms_residual_percent", t.rmsPercent());
+            o.put("max_residual_percent", t.maxPercent());
+            o.put("worst_voltage", t.worstVoltage());
+            o.put("worst_at", t.worstSource());
+            o.put("pass", t.pass());
+            temps.add(o);
+        }
+        root.put("temperatures", temps);
+        List<Object> pts = Json.array();
+        for (CapacitanceResidual r : v.points()) {
+            Map<String, Object> o = Json.object();
+            o.put("source", r.point().where());
+            o.put("temperature", r.point().temperature());
+            o.put("voltage", r.point().voltage());
+            o.put("measured_capacitance", r.point().capacitance());
+            o.put("simulated_capacitance", r.simulated());
+            o.put("residual_percent", r.residualPercent());
+            pts.add(o);
+        }
+        root.put("points", pts);
+        return root;
+    }
+
+    /** One voltage-residual section. */
+    public static Map<String, Object> section(Verification v) {
+        Map<String, Object> root = Json.object();
         root.put("model", v.cardName());
         root.put("engine", v.engine());
         root.put("pass", v.pass());
@@ -50,6 +104,6 @@ public final class VerificationJson {
         }
         root.put("points", pts);
         root.put("notes", List.copyOf(v.notes()));
-        return Json.write(root);
+        return root;
     }
 }

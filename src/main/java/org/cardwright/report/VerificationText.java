@@ -1,6 +1,9 @@
 package org.cardwright.report;
 
 import java.util.Locale;
+import org.cardwright.verify.CapacitanceVerdict;
+import org.cardwright.verify.CapacitanceVerification;
+import org.cardwright.verify.JunctionVerification;
 import org.cardwright.verify.TemperatureVerdict;
 import org.cardwright.verify.Verification;
 
@@ -9,13 +12,42 @@ public final class VerificationText {
     private VerificationText() {
     }
 
-    /** Renders the table and the verdict line. */
-    public static String render(Verification v) {
+    /** Renders every section, then one verdict line. */
+    public static String render(JunctionVerification all) {
+        StringBuilder sb = new StringBuilder();
+        for (String n : all.notes()) {
+            sb.append("note: ").append(n).append('\n');
+        }
+        all.forward().ifPresent(v -> sb.append(section("Forward I-V", v)));
+        all.breakdown().ifPresent(v -> sb.append(section("Reverse breakdown", v)));
+        all.capacitance().ifPresent(v -> sb.append(capacitance(v)));
+        sb.append(all.pass() ? "reproduces the data within the limits\n" : "does NOT reproduce the data within the limits\n");
+        return sb.toString();
+    }
+
+    private static String capacitance(CapacitanceVerification v) {
+        StringBuilder sb = new StringBuilder();
+        sb.append("C-V: card ").append(v.cardName()).append(" re-simulated with ").append(v.engine()).append('\n');
+        sb.append(String.format(Locale.ROOT, "Limits per temperature: RMS %.2f %%, any point %.2f %%; stray %s subtracted, test frequency %s%n",
+                v.tolerance().rmsPercent(), v.tolerance().maxPercent(), Units.engineering(v.strayCapacitance(), "F"),
+                Units.engineering(v.frequency(), "Hz")));
+        sb.append(String.format(Locale.ROOT, "  %8s %6s %9s %9s  %-10s %-28s %s%n", "T [degC]", "points", "RMS [%]",
+                "max [%]", "largest at", "where", "result"));
+        for (CapacitanceVerdict t : v.perTemperature()) {
+            sb.append(String.format(Locale.ROOT, "  %8s %6d %9.3f %9.3f  %-10s %-28s %s%n", Units.celsius(t.temperature()),
+                    t.points(), t.rmsPercent(), t.maxPercent(), Units.engineering(t.worstVoltage(), "V"), t.worstSource(),
+                    t.pass() ? "pass" : "FAIL"));
+        }
+        return sb.append('\n').toString();
+    }
+
+    /** Renders one voltage-residual section. */
+    public static String section(String title, Verification v) {
         StringBuilder sb = new StringBuilder();
         for (String n : v.notes()) {
             sb.append("note: ").append(n).append('\n');
         }
-        sb.append("Card ").append(v.cardName()).append(" re-simulated with ").append(v.engine()).append('\n');
+        sb.append(title).append(": card ").append(v.cardName()).append(" re-simulated with ").append(v.engine()).append('\n');
         sb.append(String.format(Locale.ROOT, "Limits per temperature: RMS %s mV, any point %s mV%n",
                 Units.millivolts(v.tolerance().rms(), 2), Units.millivolts(v.tolerance().max(), 2)));
         sb.append(String.format(Locale.ROOT, "  %8s %6s %9s %9s  %-10s %-28s %s%n", "T [degC]", "points", "RMS [mV]",
@@ -25,7 +57,6 @@ public final class VerificationText {
                     t.points(), Units.millivolts(t.rms(), 3), Units.millivolts(t.max(), 3),
                     Units.engineering(t.worstCurrent(), "A"), t.worstSource(), t.pass() ? "pass" : "FAIL"));
         }
-        sb.append(v.pass() ? "reproduces the data within the limits\n" : "does NOT reproduce the data within the limits\n");
-        return sb.toString();
+        return sb.append('\n').toString();
     }
 }

@@ -20,6 +20,16 @@ public final class Engines {
     private Engines() {
     }
 
+    /**
+     * A folder for simulator netlists, removed when the JVM exits (each run also deletes its own files on
+     * success; a failed run leaves its netlist for the user and says where).
+     */
+    static Path workFolder() {
+        Path work = Path.of(System.getProperty("java.io.tmpdir"), "cardwright-" + ProcessHandle.current().pid());
+        work.toFile().deleteOnExit();
+        return work;
+    }
+
     /** The engine called {@code name}; ngspice is looked up on the PATH or in CARDWRIGHT_NGSPICE. */
     public static SimulationEngine byName(String name) throws SimulationException {
         switch (name.toLowerCase(Locale.ROOT)) {
@@ -29,8 +39,7 @@ public final class Engines {
                 Path exe = SimulatorProcess.locate(SimulatorProcess.Kind.NGSPICE).orElseThrow(() -> new SimulationException(
                         "ngspice not found on the PATH: install it (Debian/Ubuntu: apt-get install ngspice) or set "
                                 + SimulatorProcess.NGSPICE_VARIABLE + " to its path"));
-                Path work = Path.of(System.getProperty("java.io.tmpdir"), "cardwright-" + ProcessHandle.current().pid());
-                return new NgspiceEngine(new SimulatorProcess(SimulatorProcess.Kind.NGSPICE, exe, TIMEOUT), work);
+                return new NgspiceEngine(new SimulatorProcess(SimulatorProcess.Kind.NGSPICE, exe, TIMEOUT), workFolder());
             }
             default:
                 throw new IllegalArgumentException("unknown engine '" + name + "'; choose one of " + NAMES);

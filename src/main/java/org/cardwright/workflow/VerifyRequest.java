@@ -5,6 +5,7 @@ import java.util.List;
 import java.util.Optional;
 import java.util.OptionalDouble;
 import org.cardwright.card.Dialect;
+import org.cardwright.fit.CapacitanceOptions;
 import org.cardwright.verify.Tolerance;
 
 /**
@@ -19,13 +20,21 @@ import org.cardwright.verify.Tolerance;
  * @param tolerance   pass limits
  * @param json        where to write the machine-readable result, if anywhere
  * @param force       allow replacing an existing JSON file
+ * @param capacitance how the C-V readings were taken (stray capacitance, test frequency)
  */
 public record VerifyRequest(Path card, List<Path> data, String engine, Optional<String> model, Dialect dialect,
-                            OptionalDouble temperature, Tolerance tolerance, Optional<Path> json, boolean force) {
+                            OptionalDouble temperature, Tolerance tolerance, Optional<Path> json, boolean force,
+                            CapacitanceOptions capacitance) {
     public VerifyRequest {
         data = List.copyOf(data);
         if (data.isEmpty()) {
             throw new IllegalArgumentException("no data files given");
         }
+    }
+
+    /** A request whose C-V readings (if any) were taken at 1 MHz with no stray capacitance. */
+    public VerifyRequest(Path card, List<Path> data, String engine, Optional<String> model, Dialect dialect,
+                         OptionalDouble temperature, Tolerance tolerance, Optional<Path> json, boolean force) {
+        this(card, data, engine, model, dialect, temperature, tolerance, json, force, CapacitanceOptions.DEFAULT);
     }
 }

@@ -3,25 +3,67 @@ package org.cardwright.workflow;
 import java.io.IOException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
+import java.nio.file.Path;
+import java.time.Duration;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.Locale;
+import java.util.Optional;
 import java.util.function.Function;
 import org.cardwright.card.CardReader;
 import org.cardwright.card.ParsedCard;
 import org.cardwright.data.DataFileException;
 import org.cardwright.data.ReadOptions;
+import org.cardwright.fit.ExtractionData;
+import org.cardwright.fit.ReverseAnalysis;
+import org.cardwright.fit.ReversePoint;
+import org.cardwright.model.SimulatorOptions;
+import org.cardwright.sim.BuiltinCapacitance;
+import org.cardwright.sim.CapacitanceEngine;
 import org.cardwright.sim.CardUnderTest;
+import org.cardwright.sim.NgspiceCapacitance;
 import org.cardwright.sim.SimulationEngine;
 import org.cardwright.sim.process.SimulationException;
+import org.cardwright.sim.process.SimulatorProcess;
+import org.cardwright.verify.CapacitanceMeasurement;
+import org.cardwright.verify.CapacitanceTolerance;
+import org.cardwright.verify.CapacitanceVerification;
+import org.cardwright.verify.CapacitanceVerifier;
+import org.cardwright.verify.JunctionVerification;
 import org.cardwright.verify.MeasuredPoint;
+import org.cardwright.verify.Tolerance;
 import org.cardwright.verify.Verification;
 import org.cardwright.verify.Verifier;
 
-/** The verify job: read a card and the data, re-simulate the card at every measured point, compare. */
+/**
+ * The verify job: read a card and the data, re-simulate the card at every measured point of every kind,
+ * compare each kind in its own unit against its own limits.
+ */
 public final class VerifyWorkflow {
+    /**
+     * Breakdown limits as a fraction of the median measured breakdown voltage: 0.5 % RMS, 1 % at any point
+     * (common practice, no source: a card within these holds a clamp or reference design's margins) [1].
+     */
+    public static final double BREAKDOWN_RMS_FRACTION = 0.005;
+    /** See {@link #BREAKDOWN_RMS_FRACTION} [1]. */
+    public static final double BREAKDOWN_MAX_FRACTION = 0.01;
 
-    /** Runs the job; writes the JSON result when asked. */
+    /**
+     * The forward I-V section alone, for callers that report only forward residuals; prefer {@link #runAll}.
+     *
+     * @throws DataFileException when the data hold no forward points
+     */
     public Verification run(VerifyRequest request, Function<Verification, String> jsonRenderer)
+            throws DataFileException, SimulationException, OutputException, IOException {
+        JunctionVerification all = runAll(request, v -> jsonRenderer.apply(v.forward().orElseThrow()));
+        if (all.forward().isEmpty()) {
+            throw new DataFileException(request.data().get(0), 0, "no forward I-V points (positive current) to verify against", "");
+        }
+        return all.forward().get();
+    }
+
+    /** Runs the job over every data kind; writes the JSON result when asked. */
+    public JunctionVerification runAll(VerifyRequest request, Function<JunctionVerification, String> jsonRenderer)
             throws DataFileException, SimulationException, OutputException, IOException {
         if (request.json().isPresent()) {
             OutputFiles.checkWritable(List.of(request.json().get()), request.force());
@@ -39,22 +81,64 @@ public final class VerifyWorkflow {
             options = options.withDefaultTemperature(request.temperature().getAsDouble());
         }
         Inputs inputs = Inputs.read(request.data(), options);
-        List<MeasuredPoint> forward = new ArrayList<>();
-        for (Inputs.Located l : inputs.forward()) {
-            forward.add(new MeasuredPoint(l.point().voltage(), l.point().current(), l.point().temperature(),
-                    l.source(), l.point().line()));
-        }
+        ExtractionData data = FitWorkflow.extractionData(inputs);
         List<String> notes = new ArrayList<>(parsed.notices());
         notes.addAll(inputs.notes());
-        if (forward.isEmpty()) {
-            throw new DataFileException(request.data().get(0), 0, "no forward I-V points (positive current) to verify against", "");
+        if (data.forward().isEmpty() && data.reverse().isEmpty() && data.capacitance().isEmpty()) {
+            throw new DataFileException(request.data().get(0), 0, "no I-V or C-V points to verify against", "");
         }
+        CardUnderTest card = new CardUnderTest(parsed.name(), parsed.parameters(), text);
         SimulationEngine engine = Engines.byName(request.engine());
-        Verification v = new Verifier(engine, request.tolerance())
-                .verify(new CardUnderTest(parsed.name(), parsed.parameters(), text), forward, notes);
+
+        Optional<Verification> forward = Optional.empty();
+        if (!data.forward().isEmpty()) {
+            List<MeasuredPoint> pts = new ArrayList<>();
+            data.forward().forEach(p -> pts.add(new MeasuredPoint(p.voltage(), p.current(), p.temperature(), p.source(), p.line())));
+            forward = Optional.of(new Verifier(engine, request.tolerance()).verify(card, pts, List.of()));
+        }
+
+        Optional<Verification> breakdown = Optional.empty();
+        ReverseAnalysis.Split split = ReverseAnalysis.split(data.reverse());
+        if (!split.breakdown().isEmpty()) {
+            List<MeasuredPoint> pts = new ArrayList<>();
+            double[] volts = new double[split.breakdown().size()];
+            int k = 0;
+            for (ReversePoint p : split.breakdown()) {
+                pts.add(new MeasuredPoint(p.voltage(), p.current(), p.temperature(), p.source(), p.line()));
+                volts[k++] = -p.voltage();
+            }
+            java.util.Arrays.sort(volts);
+            double median = volts[volts.length / 2];
+            Tolerance t = new Tolerance(BREAKDOWN_RMS_FRACTION * median, BREAKDOWN_MAX_FRACTION * median);
+            breakdown = Optional.of(new Verifier(engine, t).verify(card, pts, List.of()));
+        } else if (!data.reverse().isEmpty()) {
+            notes.add(String.format(Locale.ROOT, "%d reverse points below breakdown are not verified (leakage is reported by fit, not held to a limit)",
+                    data.reverse().size()));
+        }
+
+        Optional<CapacitanceVerification> capacitance = Optional.empty();
+        if (!data.capacitance().isEmpty()) {
+            List<CapacitanceMeasurement> pts = new ArrayList<>();
+            data.capacitance().forEach(p -> pts.add(new CapacitanceMeasurement(p.voltage(), p.capacitance(),
+                    p.temperature(), p.source(), p.line())));
+            capacitance = Optional.of(new CapacitanceVerifier(capacitanceEngine(request.engine()), CapacitanceTolerance.DEFAULT)
+                    .verify(card, pts, request.capacitance().strayCapacitance(), request.capacitance().frequency(), List.of()));
+        }
+        JunctionVerification v = new JunctionVerification(forward, breakdown, capacitance, notes);
         if (request.json().isPresent()) {
             OutputFiles.writeAtomically(request.json().get(), jsonRenderer.apply(v));
         }
         return v;
+    }
+
+    private static CapacitanceEngine capacitanceEngine(String name) throws SimulationException {
+        if (name.equalsIgnoreCase("ngspice")) {
+            Path exe = SimulatorProcess.locate(SimulatorProcess.Kind.NGSPICE).orElseThrow(() -> new SimulationException(
+                    "ngspice not found on the PATH: install it (Debian/Ubuntu: apt-get install ngspice) or set "
+                            + SimulatorProcess.NGSPICE_VARIABLE + " to its path"));
+            return new NgspiceCapacitance(new SimulatorProcess(SimulatorProcess.Kind.NGSPICE, exe, Duration.ofSeconds(120)),
+                    Engines.workFolder());
+        }
+        return new BuiltinCapacitance(SimulatorOptions.NGSPICE_DEFAULTS);
     }
 }
