@@ -60,7 +60,7 @@ final class FitCommand implements Callable<Integer> {
     Double temperature;
 
     @Option(names = "--kind", paramLabel = "KIND", defaultValue = "silicon-pn",
-            description = "Device kind for presets: silicon-pn, schottky, germanium (default: ${DEFAULT-VALUE}).")
+            description = "Device kind for presets: silicon-pn, schottky, germanium, led, zener, base-emitter (default: ${DEFAULT-VALUE}).")
     String kind;
 
     @Option(names = "--json", paramLabel = "FILE", description = "Also write the result as JSON.")

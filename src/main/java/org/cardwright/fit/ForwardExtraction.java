@@ -398,12 +398,15 @@ public final class ForwardExtraction {
     }
 
     double[] bounds(Param p) {
+        double[] d = defaultBounds(p);
+        if (p == Param.N || p == Param.NR) {
+            d = new double[] {d[0], Math.min(d[1], settings.kind().maxEmission() * (p == Param.NR ? 2 : 1))};
+        }
         ParameterRule r = settings.rule(p);
         if (r != null && r.kind() == ParameterRule.Kind.BOUNDED) {
-            double[] d = defaultBounds(p);
             return new double[] {Math.max(r.lower(), d[0]), Math.min(r.upper(), d[1])};
         }
-        return defaultBounds(p);
+        return d;
     }
 
     /** Physical limits: beyond them the model is meaningless or numerically hopeless. */

@@ -120,6 +120,16 @@ public final class JunctionExtraction {
                             split.breakdown().size(), temps, num(params.get(Param.IBV)))));
         }
 
+        if (settings.kind().expectsBreakdown() && !decisions.stream().anyMatch(d -> d.term().equals("breakdown") && d.included())) {
+            warnings.add("the device kind is " + settings.kind().description()
+                    + ", but no reverse data reach breakdown: the card carries no BV");
+        }
+        if (settings.kind() == DeviceKind.LED && !free.contains(Param.EG) && settings.rule(Param.EG) == null) {
+            warnings.add(String.format(Locale.ROOT,
+                    "EG held at the LED preset %.2f eV; set it from the emission wavelength, EG = 1239.84/lambda[nm] eV (--set EG=...)",
+                    params.get(Param.EG)));
+        }
+
         // ---- C-V ----------------------------------------------------------------------------------------------
         if (!data.capacitance().isEmpty()) {
             CapacitanceFit cf = new CapacitanceExtraction(settings, capacitanceOptions).fit(data.capacitance(), params);
