@@ -22,7 +22,7 @@ import picocli.CommandLine.Option;
         description = {
             "Fits SPICE diode .model cards to bench measurements and re-simulates each card against the same data.",
             ""},
-        subcommands = {FitCommand.class, VerifyCommand.class, CommandLine.HelpCommand.class},
+        subcommands = {FitCommand.class, VerifyCommand.class, BuildCommand.class, TweakCommand.class, CompareCommand.class, CheckCommand.class, CommandLine.HelpCommand.class},
         footerHeading = "%nExit codes%n",
         footer = {
             "  0  done; for verify: the card reproduces the data",

@@ -26,10 +26,11 @@ import org.cardwright.model.Ngspice39;
  * @param cards      folder for the cards and the build record, relative to the device file's folder
  * @param templates  folder of card templates overriding the bundled ones, relative to the device file's folder
  * @param tolerances limits for check and compare
+ * @param tweak      a parameter pinned or nudged after the fit, if any
  */
 public record DeviceFile(Path path, String model, DeviceKind kind, List<DataSource> data, List<ParameterRule> rules,
                          List<Dialect> dialects, int digits, String cards, Optional<String> templates,
-                         PartTolerances tolerances) {
+                         PartTolerances tolerances, Optional<Tweak> tweak) {
     /** Default significant digits on a card (as {@code fit}). */
     public static final int DEFAULT_DIGITS = 7;
 
@@ -39,6 +40,7 @@ public record DeviceFile(Path path, String model, DeviceKind kind, List<DataSour
         Objects.requireNonNull(cards, "cards");
         Objects.requireNonNull(templates, "templates");
         Objects.requireNonNull(tolerances, "tolerances");
+        Objects.requireNonNull(tweak, "tweak");
         if (!ModelCard.isSpiceIdentifier(model)) {
             throw new IllegalArgumentException("model name '" + model + "' is not a SPICE identifier");
         }
@@ -89,6 +91,7 @@ public record DeviceFile(Path path, String model, DeviceKind kind, List<DataSour
         for (ParameterRule r : rules) {
             sb.append("rule ").append(r.text()).append('\n');
         }
+        tweak.ifPresent(t -> sb.append("tweak ").append(t.text()).append('\n'));
         for (DataSource s : data) {
             sb.append("data ").append(s.file()).append(" kind ").append(s.kind().spelling());
             if (s.temperature().isPresent()) {
@@ -100,6 +103,11 @@ public record DeviceFile(Path path, String model, DeviceKind kind, List<DataSour
             sb.append('\n');
         }
         return sb.toString();
+    }
+
+    /** This part with another tweak (or none). */
+    public DeviceFile withTweak(Optional<Tweak> other) {
+        return new DeviceFile(path, model, kind, data, rules, dialects, digits, cards, templates, tolerances, other);
     }
 
     /** Kelvin as degrees C for canonical text: shortest exact decimal of the Celsius value. */

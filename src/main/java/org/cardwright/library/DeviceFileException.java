@@ -2,8 +2,8 @@ package org.cardwright.library;
 
 import java.nio.file.Path;
 
-/** A device file is unreadable or wrong; the message names the file and the line, and the raw text where there is one. */
-public final class DeviceFileException extends Exception {
+/** A device file is unreadable or wrong (an input problem, hence an IOException); the message names the file and the line, and the raw text where there is one. */
+public final class DeviceFileException extends java.io.IOException {
     private static final long serialVersionUID = 1L;
 
     private final transient Path file;

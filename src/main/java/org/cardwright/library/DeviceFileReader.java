@@ -48,7 +48,85 @@ public final class DeviceFileReader {
             .enable(DeserializationFeature.FAIL_ON_NULL_FOR_PRIMITIVES)
             .enable(DeserializationFeature.FAIL_ON_TRAILING_TOKENS)
             .enable(JsonParser.Feature.STRICT_DUPLICATE_DETECTION)
+            .addHandler(new UnknownKeyHandler())
             .build();
+
+    /** An unknown key, caught while the parser still stands at it (Jackson's own exception comes a token later). */
+    static final class UnknownKey extends JsonMappingException {
+        private static final long serialVersionUID = 1L;
+        final String key;
+        final int line;
+        final String under;
+        final String known;
+
+        UnknownKey(JsonParser p, String key, int line, String under, String known) {
+            super(p, "unknown key '" + key + "'");
+            this.key = key;
+            this.line = line;
+            this.under = under;
+            this.known = known;
+        }
+    }
+
+    /** Turns an unknown key into {@link UnknownKey} with the line of its value (on the key's line for a scalar). */
+    static final class UnknownKeyHandler extends com.fasterxml.jackson.databind.deser.DeserializationProblemHandler {
+        @Override
+        public boolean handleUnknownProperty(DeserializationContext ctxt, JsonParser p,
+                                             com.fasterxml.jackson.databind.JsonDeserializer<?> deserializer,
+                                             Object beanOrClass, String propertyName) throws IOException {
+            java.util.Collection<Object> ids = deserializer == null ? List.of() : deserializer.getKnownPropertyNames();
+            String known = ids == null ? "" : ids.stream().map(Object::toString).sorted().collect(Collectors.joining(", "));
+            StringBuilder where = new StringBuilder();
+            com.fasterxml.jackson.core.JsonStreamContext c = p.getParsingContext();
+            List<String> parts = new ArrayList<>();
+            for (com.fasterxml.jackson.core.JsonStreamContext x = c == null ? null : c.getParent(); x != null && !x.inRoot(); x = x.getParent()) {
+                if (x.inObject() && x.getCurrentName() != null) {
+                    parts.add(0, x.getCurrentName());
+                } else if (x.inArray()) {
+                    parts.add(0, "[" + (x.getCurrentIndex() + 1) + "]");
+                }
+            }
+            for (String part : parts) {
+                where.append(part.startsWith("[") || where.length() == 0 ? "" : ".").append(part);
+            }
+            throw new UnknownKey(p, propertyName, line(p.currentTokenLocation()),
+                    where.length() == 0 ? "" : " under '" + where + "'", known);
+        }
+    }
+
+    /**
+     * The first line where {@code key} stands as a mapping key, block or flow style; 0 when none does. Used when the
+     * parser cannot say where it was (properties buffered for a record's constructor carry no location).
+     */
+    static int keyLine(String text, String key) {
+        java.util.regex.Pattern keyPattern = java.util.regex.Pattern.compile(
+                "(^|[{,])[\\s-]*['\"]?" + java.util.regex.Pattern.quote(key) + "['\"]?\\s*:");
+        String[] lines = text.split("\r\n|\r|\n", -1);
+        for (int i = 0; i < lines.length; i++) {
+            String code = lines[i].replaceAll("\\s#.*$", "");
+            if (keyPattern.matcher(code).find()) {
+                return i + 1;
+            }
+        }
+        return 0;
+    }
+
+    /** A YAML syntax error as one line: the parser's words without its excerpts, at the line of the problem. */
+    private static DeviceFileException yamlSyntax(Path path, String message, int fallbackLine, Exception cause) {
+        int line = fallbackLine;
+        List<String> words = new ArrayList<>();
+        java.util.regex.Matcher m = java.util.regex.Pattern.compile("line (\\d+), column").matcher(message);
+        while (m.find()) {
+            line = Integer.parseInt(m.group(1));
+        }
+        for (String l : message.split("\n")) {
+            String t = l.strip();
+            if (!t.isEmpty() && !l.startsWith(" ") && !t.equals("^")) {
+                words.add(t);
+            }
+        }
+        return new DeviceFileException(path, line, "YAML syntax: " + String.join("; ", words), cause);
+    }
 
     /** A scalar as written and the line it stands on. */
     record Located(String text, int line) {
@@ -87,6 +165,10 @@ public final class DeviceFileReader {
             @JsonProperty("breakdown-percent") @JsonDeserialize(using = LocatedDeserializer.class) Located breakdown) {
     }
 
+    record TweakEntry(@JsonProperty("set") @JsonDeserialize(using = LocatedDeserializer.class) Located set,
+                      @JsonProperty("then") @JsonDeserialize(using = LocatedDeserializer.class) Located then) {
+    }
+
     record Document(@JsonProperty("model") @JsonDeserialize(using = LocatedDeserializer.class) Located model,
                     @JsonProperty("kind") @JsonDeserialize(using = LocatedDeserializer.class) Located kind,
                     @JsonProperty("data") List<DataEntry> data,
@@ -95,7 +177,8 @@ public final class DeviceFileReader {
                     @JsonProperty("digits") @JsonDeserialize(using = LocatedDeserializer.class) Located digits,
                     @JsonProperty("cards") @JsonDeserialize(using = LocatedDeserializer.class) Located cards,
                     @JsonProperty("templates") @JsonDeserialize(using = LocatedDeserializer.class) Located templates,
-                    @JsonProperty("tolerance") ToleranceEntry tolerance) {
+                    @JsonProperty("tolerance") ToleranceEntry tolerance,
+                    @JsonProperty("tweak") TweakEntry tweak) {
     }
 
     /** Reads and checks one device file. */
@@ -117,13 +200,21 @@ public final class DeviceFileReader {
         } catch (UnrecognizedPropertyException e) {
             String known = e.getKnownPropertyIds() == null ? "" : e.getKnownPropertyIds().stream()
                     .map(Object::toString).sorted().collect(Collectors.joining(", "));
-            throw new DeviceFileException(path, line(e.getLocation()), "unknown key '" + e.getPropertyName() + "'"
+            int at = e.getProcessor() instanceof JsonParser p ? line(p.currentTokenLocation()) : line(e.getLocation());
+            throw new DeviceFileException(path, at, "unknown key '" + e.getPropertyName() + "'"
                     + where(e) + (known.isEmpty() ? "" : "; known keys here: " + known), e);
         } catch (MismatchedInputException e) {
             throw new DeviceFileException(path, line(e.getLocation()), "wrong form for "
                     + (e.getPath().isEmpty() ? "the document" : "key '" + pathText(e) + "'") + ": expected "
                     + expected(e.getTargetType()), e);
+        } catch (UnknownKey e) {
+            int at = e.line > 0 ? e.line : keyLine(text, e.key);
+            throw new DeviceFileException(path, at, "unknown key '" + e.key + "'" + e.under
+                    + (e.known.isEmpty() ? "" : "; known keys here: " + e.known), e);
         } catch (JsonProcessingException e) {
+            if (e.getCause() != null && e.getCause().getClass().getSimpleName().equals("MarkedYAMLException")) {
+                throw yamlSyntax(path, e.getCause().getMessage(), line(e.getLocation()), e);
+            }
             throw new DeviceFileException(path, line(e.getLocation()), firstLine(e.getOriginalMessage()), e);
         }
         if (doc == null) {
@@ -239,10 +330,35 @@ public final class DeviceFileReader {
         Optional<String> templates = doc.templates() == null ? Optional.empty()
                 : Optional.of(relative(path, doc.templates(), "templates"));
         PartTolerances tolerances = tolerances(path, doc.tolerance());
+        Optional<Tweak> tweak = tweak(path, doc.tweak());
         try {
-            return new DeviceFile(path, model, kind, data, rules, dialects, digits, cards, templates, tolerances);
+            return new DeviceFile(path, model, kind, data, rules, dialects, digits, cards, templates, tolerances, tweak);
         } catch (IllegalArgumentException ex) {
             throw new DeviceFileException(path, 1, ex.getMessage());
+        }
+    }
+
+    private static Optional<Tweak> tweak(Path path, TweakEntry t) throws DeviceFileException {
+        if (t == null) {
+            return Optional.empty();
+        }
+        if (t.set() == null) {
+            throw new DeviceFileException(path, t.then() == null ? 0 : t.then().line(),
+                    "a tweak needs 'set' (e.g. set: RS=+10%)");
+        }
+        boolean refit = true;
+        if (t.then() != null) {
+            String then = t.then().text().trim().toLowerCase(java.util.Locale.ROOT);
+            if (!then.equals("refit") && !then.equals("render")) {
+                throw new DeviceFileException(path, t.then().line(), "tweak 'then' must be refit or render, got '"
+                        + t.then().text() + "'");
+            }
+            refit = then.equals("refit");
+        }
+        try {
+            return Optional.of(Tweak.parse(t.set().text(), refit));
+        } catch (IllegalArgumentException e) {
+            throw new DeviceFileException(path, t.set().line(), e.getMessage());
         }
     }
 

@@ -15,7 +15,6 @@ import java.util.Set;
 import java.util.function.Consumer;
 import org.cardwright.card.Dialect;
 import org.cardwright.fit.FitInputException;
-import org.cardwright.fit.SweepResiduals;
 import org.cardwright.workflow.OutputException;
 import org.cardwright.workflow.OutputFiles;
 
@@ -123,7 +122,7 @@ public final class LibraryBuilder {
                 return new PartOutcome(name, part.model(), PartOutcome.Status.UP_TO_DATE, "", List.of(), List.of(),
                         seconds(start), List.of());
             }
-            PartFitter.Fitted fitted = new PartFitter().fit(part, root, recipe, List.of());
+            PartFitter.Fitted fitted = new Tweaker().cards(part, root, recipe);
             return write(root, name, part, recipe, state, fitted, edited, start);
         } catch (DeviceFileException | LibraryInputException e) {
             return failed(name, part.model(), PartOutcome.Status.BAD_INPUT, e.getMessage(), start);
@@ -164,7 +163,7 @@ public final class LibraryBuilder {
             }
             pendingCards.put(file, pending);
             List<BuildState.Residual> r = new ArrayList<>();
-            for (SweepResiduals s : c.fit().residuals()) {
+            for (PartFitter.Residual s : c.residuals()) {
                 r.add(new BuildState.Residual(DeviceFile.celsiusText(s.temperature()), PartFitter.mv(s.rms()),
                         PartFitter.mv(s.max())));
             }
@@ -195,7 +194,7 @@ public final class LibraryBuilder {
         if (!before.isEmpty()) {
             msg.append(before).append(" -> ");
         }
-        msg.append(PartFitter.mv(first.fit().worstRms())).append(" mV (").append(first.dialect().shortName()).append(')');
+        msg.append(PartFitter.mv(PartFitter.Residual.worstRms(first.residuals()))).append(" mV (").append(first.dialect().shortName()).append(')');
         if (!edited.isEmpty()) {
             msg.append("; replaced hand-edited ").append(String.join(" ", edited));
         }

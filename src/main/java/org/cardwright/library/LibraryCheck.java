@@ -64,7 +64,7 @@ public final class LibraryCheck {
             part = new DeviceFileReader().read(device);
             recipe = Recipe.of(part);
             state = BuildState.read(part.statePath());
-        } catch (DeviceFileException | IOException e) {
+        } catch (IOException e) {
             return List.of(new CardCheck(name, device.getFileName().toString(), name, CardCheck.Status.ERROR,
                     e.getMessage(), Optional.empty(), seconds(start)));
         }
@@ -82,7 +82,7 @@ public final class LibraryCheck {
                 }
                 out.add(checkCard(part, d, card, cardName, name, inputs, stale, state, t0));
             }
-        } catch (DeviceFileException | IOException e) {
+        } catch (IOException e) {
             return List.of(new CardCheck(name, part.model(), name, CardCheck.Status.ERROR, e.getMessage(),
                     Optional.empty(), seconds(start)));
         }

@@ -20,6 +20,7 @@ import org.cardwright.fit.FitInputException;
 import org.cardwright.fit.FitResult;
 import org.cardwright.fit.ParameterRule;
 import org.cardwright.fit.SweepResiduals;
+import org.cardwright.model.DiodeParameters;
 import org.cardwright.model.Param;
 import org.cardwright.workflow.FitOutcome;
 import org.cardwright.workflow.FitRequest;
@@ -35,29 +36,55 @@ import org.cardwright.workflow.ToolVersion;
 final class PartFitter {
 
     /**
+     * Residuals of a card at one temperature.
+     *
+     * @param temperature device temperature [K]
+     * @param points      number of points
+     * @param rms         RMS residual [V]
+     * @param max         largest residual magnitude [V]
+     */
+    record Residual(double temperature, int points, double rms, double max) {
+        static List<Residual> of(FitResult fit) {
+            List<Residual> out = new ArrayList<>();
+            for (SweepResiduals s : fit.residuals()) {
+                out.add(new Residual(s.temperature(), s.points(), s.rms(), s.max()));
+            }
+            return out;
+        }
+
+        static double worstRms(List<Residual> rs) {
+            return rs.stream().mapToDouble(Residual::rms).max().orElse(Double.NaN);
+        }
+    }
+
+    /**
      * One rendered card.
      *
-     * @param dialect  its dialect
-     * @param file     where it belongs
-     * @param text     its text
-     * @param fit      the fit whose parameters it carries (the refit when the dialect left terms out)
-     * @param leftOut  fitted parameters the dialect cannot carry
+     * @param dialect    its dialect
+     * @param file       where it belongs
+     * @param text       its text
+     * @param parameters the parameters it carries [SI]
+     * @param residuals  its residuals per temperature
+     * @param leftOut    fitted parameters the dialect cannot carry
+     * @param leftOutCost worst RMS of the full fit, when terms were left out [V]; NaN otherwise
      */
-    record Card(Dialect dialect, Path file, String text, FitResult fit, List<Param> leftOut) {
+    record Card(Dialect dialect, Path file, String text, DiodeParameters parameters, List<Residual> residuals,
+                List<Param> leftOut, double leftOutCost) {
     }
 
     /**
      * The fitted part.
      *
-     * @param cards one per dialect, in the device file's order
-     * @param full  the full fit
-     * @param notes what the fit set aside or changed, names relative to the library root
+     * @param cards  one per dialect, in the device file's order
+     * @param full   the full fit
+     * @param points forward points fitted
+     * @param notes  what the fit set aside or changed, names relative to the library root
      */
-    record Fitted(List<Card> cards, FitResult full, List<String> notes) {
+    record Fitted(List<Card> cards, FitResult full, int points, List<String> notes) {
     }
 
-    /** Fits {@code part} with extra rules (appended after the device file's, so they win). */
-    Fitted fit(DeviceFile part, Path root, Recipe recipe, List<ParameterRule> extraRules)
+    /** Fits {@code part} with extra rules (after the device file's, so they win); {@code extraLines} go on the cards. */
+    Fitted fit(DeviceFile part, Path root, Recipe recipe, List<ParameterRule> extraRules, List<String> extraLines)
             throws DeviceFileException, LibraryInputException, FitInputException, OutputException, IOException {
         List<ParameterRule> rules = new ArrayList<>(part.rules());
         rules.addAll(extraRules);
@@ -78,20 +105,29 @@ final class PartFitter {
                 throw new FitInputException(inputs.displayName(e.getMessage()));
             }
             checkKinds(part, outcome);
-            CardWriter writer = new CardWriter(templates(part));
             List<Card> cards = new ArrayList<>();
             for (FitOutcome.WrittenCard w : outcome.cards()) {
                 FitResult forCard = w.refit().orElse(outcome.fit());
-                ModelCard card = new ModelCard(part.model(), forCard.parameters(),
-                        provenance(part, recipe, extraRules, outcome.fit(), forCard, w));
-                String text = writer.render(card, w.dialect(), part.digits()).text();
-                cards.add(new Card(w.dialect(), part.cardPath(w.dialect()), text, forCard, w.leftOut()));
+                cards.add(render(part, recipe, part.rules(), w.dialect(), forCard.parameters(), outcome.fit().points(),
+                        Residual.of(forCard), w.leftOut(), w.leftOut().isEmpty() ? Double.NaN : outcome.fit().worstRms(),
+                        extraLines));
             }
             List<String> notes = outcome.inputs().notes().stream().map(inputs::displayName).toList();
-            return new Fitted(List.copyOf(cards), outcome.fit(), notes);
+            return new Fitted(List.copyOf(cards), outcome.fit(), outcome.fit().points(), notes);
         } finally {
             deleteTree(scratch);
         }
+    }
+
+    /** Renders one card of {@code part} with its provenance. */
+    static Card render(DeviceFile part, Recipe recipe, List<ParameterRule> rules, Dialect dialect, DiodeParameters parameters,
+                       int points, List<Residual> residuals, List<Param> leftOut, double leftOutCost, List<String> extraLines)
+            throws IOException {
+        ModelCard card = new ModelCard(part.model(), parameters,
+                provenance(part, recipe, rules, dialect, points, residuals, leftOut, leftOutCost, extraLines));
+        String text = new CardWriter(templates(part)).render(card, dialect, part.digits()).text();
+        return new Card(dialect, part.cardPath(dialect), text, parameters, List.copyOf(residuals), List.copyOf(leftOut),
+                leftOutCost);
     }
 
     private static Optional<Path> templates(DeviceFile part) {
@@ -113,10 +149,11 @@ final class PartFitter {
         }
     }
 
-    private static List<String> provenance(DeviceFile part, Recipe recipe, List<ParameterRule> extraRules,
-                                           FitResult full, FitResult forCard, FitOutcome.WrittenCard w) throws IOException {
+    private static List<String> provenance(DeviceFile part, Recipe recipe, List<ParameterRule> rules, Dialect dialect,
+                                           int points, List<Residual> residuals, List<Param> leftOut, double leftOutCost,
+                                           List<String> extraLines) throws IOException {
         List<String> lines = new ArrayList<>();
-        lines.add("model " + part.model() + ": junction diode for " + w.dialect().simulator() + ", written by cardwright "
+        lines.add("model " + part.model() + ": junction diode for " + dialect.simulator() + ", written by cardwright "
                 + ToolVersion.get() + " (library build)");
         lines.add("device file: " + part.path().getFileName());
         lines.add("device kind: " + part.kind().description());
@@ -129,21 +166,20 @@ final class PartFitter {
             sb.append(") sha256 ").append(Hashes.sha256(s.resolve(part.folder())));
             lines.add(sb.toString());
         }
-        List<ParameterRule> all = new ArrayList<>(part.rules());
-        all.addAll(extraRules);
-        if (!all.isEmpty()) {
-            lines.add("rules: " + all.stream().map(ParameterRule::text).collect(Collectors.joining(" ")));
+        if (!rules.isEmpty()) {
+            lines.add("rules: " + rules.stream().map(ParameterRule::text).collect(Collectors.joining(" ")));
         }
-        lines.add(String.format(Locale.ROOT, "fit: %d forward points; worst RMS residual %s mV", full.points(),
-                mv(forCard.worstRms())));
-        for (SweepResiduals r : forCard.residuals()) {
+        lines.addAll(extraLines);
+        lines.add(String.format(Locale.ROOT, "fit: %d forward points; worst RMS residual %s mV", points,
+                mv(Residual.worstRms(residuals))));
+        for (Residual r : residuals) {
             lines.add(String.format(Locale.ROOT, "residual at %s degC: RMS %s mV, max %s mV (%d points)",
                     DeviceFile.celsiusText(r.temperature()), mv(r.rms()), mv(r.max()), r.points()));
         }
-        if (!w.leftOut().isEmpty()) {
+        if (!leftOut.isEmpty()) {
             lines.add(String.format(Locale.ROOT, "%s cannot carry %s: refitted without; worst RMS residual %s mV instead of %s mV",
-                    w.dialect().shortName(), w.leftOut().stream().map(Param::keyword).collect(Collectors.joining(" ")),
-                    mv(forCard.worstRms()), mv(full.worstRms())));
+                    dialect.shortName(), leftOut.stream().map(Param::keyword).collect(Collectors.joining(" ")),
+                    mv(Residual.worstRms(residuals)), mv(leftOutCost)));
         }
         lines.add("recipe sha256 " + recipe.sha256());
         lines.add("check: cardwright check <library root>");
@@ -154,7 +190,7 @@ final class PartFitter {
         return String.format(Locale.ROOT, "%.3f", volts * 1e3);
     }
 
-    private static void deleteTree(Path dir) {
+    static void deleteTree(Path dir) {
         try (Stream<Path> walk = Files.walk(dir)) {
             for (Path p : walk.sorted(Comparator.reverseOrder()).toList()) {
                 Files.deleteIfExists(p);
