@@ -51,6 +51,32 @@ final class RecoveryBlock implements ResidualBlock {
         return t;
     }
 
+    @Override
+    public List<KindResiduals> summary(DiodeParameters p) {
+        double[] t = times(p);
+        java.util.Map<Double, List<Integer>> byT = new java.util.TreeMap<>();
+        for (int i = 0; i < t.length; i++) {
+            byT.computeIfAbsent(points.get(i).temperature(), k -> new java.util.ArrayList<>()).add(i);
+        }
+        List<KindResiduals> out = new java.util.ArrayList<>();
+        for (var e : byT.entrySet()) {
+            double sum = 0;
+            double max = -1;
+            String worst = "";
+            for (int i : e.getValue()) {
+                double r = (t[i] - points.get(i).recoveryTime()) * 1e9;
+                sum += r * r;
+                if (Math.abs(r) > max) {
+                    max = Math.abs(r);
+                    worst = points.get(i).source() + ":" + points.get(i).line();
+                }
+            }
+            out.add(new KindResiduals(label(), e.getKey(), e.getValue().size(), Math.sqrt(sum / e.getValue().size()),
+                    max, "ns", worst));
+        }
+        return out;
+    }
+
     /** Weighted least-squares TT from the relation alone (it is linear in TT) [s]. */
     static double closedForm(List<RecoveryPoint> points) {
         double num = 0;

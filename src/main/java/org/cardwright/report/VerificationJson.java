@@ -6,6 +6,7 @@ import org.cardwright.verify.CapacitanceResidual;
 import org.cardwright.verify.CapacitanceVerdict;
 import org.cardwright.verify.CapacitanceVerification;
 import org.cardwright.verify.JunctionVerification;
+import org.cardwright.verify.RecoveryVerification;
 import org.cardwright.verify.PointResidual;
 import org.cardwright.verify.TemperatureVerdict;
 import org.cardwright.verify.Verification;
@@ -25,6 +26,23 @@ public final class VerificationJson {
         all.forward().ifPresent(v -> root.put("forward", section(v)));
         all.breakdown().ifPresent(v -> root.put("breakdown", section(v)));
         all.capacitance().ifPresent(v -> root.put("capacitance", capacitance(v)));
+        all.recovery().ifPresent(v -> {
+            List<Object> temps = Json.array();
+            for (RecoveryVerification.Verdict t : v.perTemperature()) {
+                Map<String, Object> o = Json.object();
+                o.put("temperature", t.temperature());
+                o.put("records", t.points());
+                o.put("rms_residual_ns", t.rmsNs());
+                o.put("max_residual_ns", t.maxNs());
+                o.put("worst_at", t.worst());
+                o.put("pass", t.pass());
+                temps.add(o);
+            }
+            Map<String, Object> rec = Json.object();
+            rec.put("pass", v.pass());
+            rec.put("temperatures", temps);
+            root.put("recovery", rec);
+        });
         root.put("notes", List.copyOf(all.notes()));
         return Json.write(root);
     }

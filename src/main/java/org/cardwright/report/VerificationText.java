@@ -4,6 +4,7 @@ import java.util.Locale;
 import org.cardwright.verify.CapacitanceVerdict;
 import org.cardwright.verify.CapacitanceVerification;
 import org.cardwright.verify.JunctionVerification;
+import org.cardwright.verify.RecoveryVerification;
 import org.cardwright.verify.TemperatureVerdict;
 import org.cardwright.verify.Verification;
 
@@ -21,6 +22,7 @@ public final class VerificationText {
         all.forward().ifPresent(v -> sb.append(section("Forward I-V", v)));
         all.breakdown().ifPresent(v -> sb.append(section("Reverse breakdown", v)));
         all.capacitance().ifPresent(v -> sb.append(capacitance(v)));
+        all.recovery().ifPresent(v -> sb.append(recovery(v)));
         sb.append(all.pass() ? "reproduces the data within the limits\n" : "does NOT reproduce the data within the limits\n");
         return sb.toString();
     }
@@ -37,6 +39,19 @@ public final class VerificationText {
             sb.append(String.format(Locale.ROOT, "  %8s %6d %9.3f %9.3f  %-10s %-28s %s%n", Units.celsius(t.temperature()),
                     t.points(), t.rmsPercent(), t.maxPercent(), Units.engineering(t.worstVoltage(), "V"), t.worstSource(),
                     t.pass() ? "pass" : "FAIL"));
+        }
+        return sb.append('\n').toString();
+    }
+
+    private static String recovery(RecoveryVerification v) {
+        StringBuilder sb = new StringBuilder("Reverse recovery: trr = TT ln(1 + IF/|IR|) against the records\n");
+        sb.append(String.format(Locale.ROOT, "Limits per temperature: RMS %.0f %%, any record %.0f %% of the measured time%n",
+                100 * RecoveryVerification.RMS_FRACTION, 100 * RecoveryVerification.MAX_FRACTION));
+        sb.append(String.format(Locale.ROOT, "  %8s %6s %9s %9s  %-28s %s%n", "T [degC]", "records", "RMS [ns]", "max [ns]",
+                "where", "result"));
+        for (RecoveryVerification.Verdict t : v.perTemperature()) {
+            sb.append(String.format(Locale.ROOT, "  %8s %6d %9.3f %9.3f  %-28s %s%n", Units.celsius(t.temperature()),
+                    t.points(), t.rmsNs(), t.maxNs(), t.worst(), t.pass() ? "pass" : "FAIL"));
         }
         return sb.append('\n').toString();
     }

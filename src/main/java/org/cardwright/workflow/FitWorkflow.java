@@ -12,11 +12,14 @@ import org.cardwright.card.ModelCard;
 import org.cardwright.data.DataFileException;
 import org.cardwright.data.MeasurementFile;
 import org.cardwright.data.ReadOptions;
+import org.cardwright.data.RecoveryReader;
+import org.cardwright.data.RecoveryRecord;
 import org.cardwright.fit.FitInputException;
 import org.cardwright.fit.CapacitancePoint;
 import org.cardwright.fit.ExtractionData;
 import org.cardwright.fit.FitPoint;
 import org.cardwright.fit.JunctionExtraction;
+import org.cardwright.fit.RecoveryPoint;
 import org.cardwright.fit.ReversePoint;
 import org.cardwright.fit.FitResult;
 import org.cardwright.fit.FitSettings;
@@ -120,6 +123,14 @@ public final class FitWorkflow {
         return 1e-3 + 2e-4 * Math.abs(volts);
     }
 
+    /**
+     * Uncertainty assumed for a recovery time without a stated one: 3 % of reading + 0.2 ns, reading a
+     * current trace's zero crossing and recovery point on an oscilloscope (common practice, no source) [s].
+     */
+    public static double defaultRecoverySigma(double seconds) {
+        return 0.03 * seconds + 0.2e-9;
+    }
+
     /** The points of every kind, with their uncertainties, for the extraction. */
     public static ExtractionData extractionData(Inputs inputs) {
         List<FitPoint> forward = new ArrayList<>();
@@ -137,7 +148,14 @@ public final class FitWorkflow {
             cv.add(CapacitancePoint.withDefaultSigma(l.point().voltage(), l.point().capacitance(),
                     l.point().temperature(), l.source(), l.point().line()));
         }
-        return new ExtractionData(forward, reverse, cv, List.of());
+        List<RecoveryPoint> recovery = new ArrayList<>();
+        for (RecoveryReader.Records f : inputs.recovery()) {
+            for (RecoveryRecord r : f.records()) {
+                recovery.add(new RecoveryPoint(r.forwardCurrent(), -r.reverseCurrent(), r.recoveryTime(), r.temperature(),
+                        defaultRecoverySigma(r.recoveryTime()), Inputs.displayName(f.file()), r.line()));
+            }
+        }
+        return new ExtractionData(forward, reverse, cv, recovery);
     }
 
     private static double defaultOf(DiodeParameters p, Param q) {
@@ -153,6 +171,9 @@ public final class FitWorkflow {
         for (MeasurementFile f : inputs.files()) {
             lines.add("data: " + Inputs.displayName(f.file()) + " sha256 " + f.sha256());
         }
+        for (RecoveryReader.Records f : inputs.recovery()) {
+            lines.add("data: " + Inputs.displayName(f.file()) + " sha256 " + f.sha256());
+        }
         lines.add(String.format(Locale.ROOT, "fit: %d points (%d forward I-V%s); forward worst RMS residual %s mV",
                 full.points(), inputs.forward().size(), otherKinds(inputs), mv(forCard.worstRms(), 3)));
         if (!request.rules().isEmpty()) {
@@ -165,7 +186,7 @@ public final class FitWorkflow {
                     mv(forCard.worstRms(), 3), mv(full.worstRms(), 3)));
         }
         lines.add("verify: cardwright verify " + request.cardPath(d).toString().replace('\\', '/') + " "
-                + inputs.files().stream().map(f -> Inputs.displayName(f.file())).collect(Collectors.joining(" ")));
+                + request.data().stream().map(Inputs::displayName).collect(Collectors.joining(" ")));
         return lines;
     }
 
@@ -180,6 +201,10 @@ public final class FitWorkflow {
         }
         if (!inputs.capacitance().isEmpty()) {
             sb.append(", ").append(inputs.capacitance().size()).append(" C-V");
+        }
+        int records = inputs.recovery().stream().mapToInt(r -> r.records().size()).sum();
+        if (records > 0) {
+            sb.append(", ").append(records).append(" recovery records");
         }
         return sb.toString();
     }

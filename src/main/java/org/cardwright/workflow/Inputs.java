@@ -10,6 +10,7 @@ import org.cardwright.data.IvPoint;
 import org.cardwright.data.MeasurementFile;
 import org.cardwright.data.MeasurementReader;
 import org.cardwright.data.ReadOptions;
+import org.cardwright.data.RecoveryReader;
 
 /**
  * The measurement files of one job, read and sorted by kind (with a note for anything set aside; nothing
@@ -19,10 +20,11 @@ import org.cardwright.data.ReadOptions;
  * @param forward     forward I-V points (positive current) with their origin
  * @param reverse     reverse I-V points (negative voltage and current) with their origin
  * @param capacitance C-V points with their origin
+ * @param recovery    reverse-recovery record files
  * @param notes       what was set aside or changed, for the user
  */
 public record Inputs(List<MeasurementFile> files, List<Located> forward, List<Located> reverse,
-                     List<LocatedCapacitance> capacitance, List<String> notes) {
+                     List<LocatedCapacitance> capacitance, List<RecoveryReader.Records> recovery, List<String> notes) {
 
     /**
      * A forward point and where it came from.
@@ -49,8 +51,13 @@ public record Inputs(List<MeasurementFile> files, List<Located> forward, List<Lo
         List<Located> forward = new ArrayList<>();
         List<Located> reverse = new ArrayList<>();
         List<LocatedCapacitance> capacitance = new ArrayList<>();
+        List<RecoveryReader.Records> recovery = new ArrayList<>();
         List<String> notes = new ArrayList<>();
         for (Path p : paths) {
+            if (RecoveryReader.looksLikeRecovery(p)) {
+                recovery.add(new RecoveryReader(options.defaultTemperature()).read(p));
+                continue;
+            }
             MeasurementFile f = reader.read(p);
             files.add(f);
             String name = displayName(p);
@@ -78,7 +85,7 @@ public record Inputs(List<MeasurementFile> files, List<Located> forward, List<Lo
             }
         }
         return new Inputs(List.copyOf(files), List.copyOf(forward), List.copyOf(reverse), List.copyOf(capacitance),
-                List.copyOf(notes));
+                List.copyOf(recovery), List.copyOf(notes));
     }
 
     /** The path as the user wrote it, with forward slashes, so that provenance is the same on every machine. */

@@ -31,6 +31,7 @@ import org.cardwright.verify.CapacitanceVerification;
 import org.cardwright.verify.CapacitanceVerifier;
 import org.cardwright.verify.JunctionVerification;
 import org.cardwright.verify.MeasuredPoint;
+import org.cardwright.verify.RecoveryVerification;
 import org.cardwright.verify.Tolerance;
 import org.cardwright.verify.Verification;
 import org.cardwright.verify.Verifier;
@@ -84,7 +85,7 @@ public final class VerifyWorkflow {
         ExtractionData data = FitWorkflow.extractionData(inputs);
         List<String> notes = new ArrayList<>(parsed.notices());
         notes.addAll(inputs.notes());
-        if (data.forward().isEmpty() && data.reverse().isEmpty() && data.capacitance().isEmpty()) {
+        if (data.forward().isEmpty() && data.reverse().isEmpty() && data.capacitance().isEmpty() && data.recovery().isEmpty()) {
             throw new DataFileException(request.data().get(0), 0, "no I-V or C-V points to verify against", "");
         }
         CardUnderTest card = new CardUnderTest(parsed.name(), parsed.parameters(), text);
@@ -124,7 +125,14 @@ public final class VerifyWorkflow {
             capacitance = Optional.of(new CapacitanceVerifier(capacitanceEngine(request.engine()), CapacitanceTolerance.DEFAULT)
                     .verify(card, pts, request.capacitance().strayCapacitance(), request.capacitance().frequency(), List.of()));
         }
-        JunctionVerification v = new JunctionVerification(forward, breakdown, capacitance, notes);
+        Optional<RecoveryVerification> recovery = Optional.empty();
+        if (!data.recovery().isEmpty()) {
+            List<RecoveryVerification.Record> recs = new ArrayList<>();
+            data.recovery().forEach(r -> recs.add(new RecoveryVerification.Record(r.forwardCurrent(), -r.reverseCurrent(),
+                    r.recoveryTime(), r.temperature(), r.source() + ":" + r.line())));
+            recovery = Optional.of(RecoveryVerification.of(parsed.parameters(), recs));
+        }
+        JunctionVerification v = new JunctionVerification(forward, breakdown, capacitance, recovery, notes);
         if (request.json().isPresent()) {
             OutputFiles.writeAtomically(request.json().get(), jsonRenderer.apply(v));
         }

@@ -1,0 +1,45 @@
+package org.cardwright.data;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
+import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.nio.file.Path;
+import java.util.OptionalDouble;
+import org.cardwright.testsupport.Simulators;
+import org.junit.jupiter.api.Test;
+
+/** Reading reverse-recovery records. */
+class RecoveryReaderTest {
+    private static final Path FIXTURES = Simulators.projectDir().resolve("fixtures");
+
+    @Test
+    void readsRecordsInSiUnits() throws Exception {
+        Path f = FIXTURES.resolve("recovery/ks1-recovery-25C.csv");
+        assertTrue(RecoveryReader.looksLikeRecovery(f));
+        RecoveryReader.Records r = new RecoveryReader(OptionalDouble.of(298.15)).read(f);
+        assertEquals(5, r.records().size());
+        RecoveryRecord first = r.records().get(0);
+        assertEquals(10e-3, first.forwardCurrent(), 1e-18);
+        assertEquals(-10e-3, first.reverseCurrent(), 1e-18);
+        assertEquals(2.783e-9, first.recoveryTime(), 1e-21);
+        assertEquals(298.15, first.temperature());
+        assertEquals(6, first.line(), "physical line, comments counted");
+        assertEquals(64, r.sha256().length());
+    }
+
+    @Test
+    void reverseCurrentOfTheWrongSignNamesFileLineAndValue() {
+        Path f = FIXTURES.resolve("bad-recovery/recovery-ir-wrong-sign.csv");
+        DataFileException e = assertThrows(DataFileException.class, () -> new RecoveryReader(OptionalDouble.empty()).read(f));
+        assertEquals(6, e.line());
+        assertEquals("1", e.rawValue());
+        assertTrue(e.getMessage().contains("recovery-ir-wrong-sign.csv:6:"), e.getMessage());
+    }
+
+    @Test
+    void plainIvFilesAreNotTakenForRecoveryRecords() {
+        assertFalse(RecoveryReader.looksLikeRecovery(FIXTURES.resolve("demo/ks1-forward-25C.csv")));
+    }
+}
