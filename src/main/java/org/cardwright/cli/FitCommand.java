@@ -80,6 +80,14 @@ final class FitCommand implements Callable<Integer> {
             description = "Test frequency of the C-V readings (default: ${DEFAULT-VALUE}).")
     String cvFrequency;
 
+    @Option(names = "--meter-resistance", paramLabel = "OHMS",
+            description = "Input resistance of the voltmeter in a series-resistor bench log, when the file does not state it (e.g. 10meg).")
+    String meterResistance;
+
+    @Option(names = "--no-meter-correction",
+            description = "Take bench-log currents as (Vsupply - Vmeter)/Rseries, without removing the meter's draw (for comparison only).")
+    boolean noMeterCorrection;
+
     @Option(names = "--force", description = "Replace existing output files.")
     boolean force;
 
@@ -102,7 +110,9 @@ final class FitCommand implements Callable<Integer> {
         FitRequest request = new FitRequest(data, name, ds, out, Optional.ofNullable(json),
                 temperature == null ? OptionalDouble.empty() : OptionalDouble.of(temperature + Ngspice39.CELSIUS_TO_KELVIN),
                 DeviceKind.byOptionName(kind), parsed, digits, force, Optional.ofNullable(templates),
-                new CapacitanceOptions(SpiceNumbers.parse(stray), SpiceNumbers.parse(cvFrequency)));
+                new CapacitanceOptions(SpiceNumbers.parse(stray), SpiceNumbers.parse(cvFrequency)),
+                new FitRequest.BenchOptions(meterResistance == null ? Double.NaN : SpiceNumbers.parse(meterResistance),
+                        !noMeterCorrection));
         FitOutcome outcome = new FitWorkflow().run(request, o -> FitJson.write(name, o));
         spec.commandLine().getOut().print(FitText.render(name, outcome));
         spec.commandLine().getOut().flush();

@@ -14,6 +14,7 @@ import org.cardwright.report.VerificationText;
 import org.cardwright.verify.Tolerance;
 import org.cardwright.verify.JunctionVerification;
 import org.cardwright.workflow.Engines;
+import org.cardwright.workflow.FitRequest;
 import org.cardwright.workflow.Inputs;
 import org.cardwright.workflow.VerifyRequest;
 import org.cardwright.workflow.VerifyWorkflow;
@@ -73,6 +74,10 @@ final class VerifyCommand implements Callable<Integer> {
             description = "Test frequency of the C-V readings (default: ${DEFAULT-VALUE}).")
     String cvFrequency;
 
+    @Option(names = "--meter-resistance", paramLabel = "OHMS",
+            description = "Input resistance of the voltmeter in a series-resistor bench log, when the file does not state it (e.g. 10meg).")
+    String meterResistance;
+
     @Option(names = "--force", description = "Replace an existing JSON file.")
     boolean force;
 
@@ -84,7 +89,8 @@ final class VerifyCommand implements Callable<Integer> {
         VerifyRequest request = new VerifyRequest(card, data, engine, Optional.ofNullable(model), Dialect.byName(dialect),
                 temperature == null ? OptionalDouble.empty() : OptionalDouble.of(temperature + Ngspice39.CELSIUS_TO_KELVIN),
                 new Tolerance(limitRms * 1e-3, limitMax * 1e-3), Optional.ofNullable(json), force,
-                new CapacitanceOptions(SpiceNumbers.parse(stray), SpiceNumbers.parse(cvFrequency)));
+                new CapacitanceOptions(SpiceNumbers.parse(stray), SpiceNumbers.parse(cvFrequency)),
+                new FitRequest.BenchOptions(meterResistance == null ? Double.NaN : SpiceNumbers.parse(meterResistance), true));
         JunctionVerification v = new VerifyWorkflow().runAll(request, r -> VerificationJson.write(r, Inputs.displayName(card)));
         spec.commandLine().getOut().print(VerificationText.render(v));
         spec.commandLine().getOut().flush();

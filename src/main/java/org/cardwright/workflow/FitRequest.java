@@ -5,6 +5,7 @@ import java.util.List;
 import java.util.Optional;
 import java.util.OptionalDouble;
 import org.cardwright.card.Dialect;
+import org.cardwright.data.ReadOptions;
 import org.cardwright.fit.CapacitanceOptions;
 import org.cardwright.fit.DeviceKind;
 import org.cardwright.fit.ParameterRule;
@@ -24,11 +25,13 @@ import org.cardwright.fit.ParameterRule;
  * @param force       allow replacing existing files
  * @param templates   folder of user templates overriding the bundled ones
  * @param capacitance how the C-V readings were taken (stray capacitance, test frequency)
+ * @param bench       bench-log reading: meter input resistance [ohm] when not in the file, and whether to
+ *                    correct for the meter's draw (NaN resistance: none given)
  */
 public record FitRequest(List<Path> data, String name, List<Dialect> dialects, Path outDir, Optional<Path> json,
                          OptionalDouble temperature, DeviceKind kind, List<ParameterRule> rules, int digits,
                          boolean force, Optional<Path> templates,
-                         CapacitanceOptions capacitance) {
+                         CapacitanceOptions capacitance, BenchOptions bench) {
     public FitRequest {
         data = List.copyOf(data);
         dialects = List.copyOf(dialects);
@@ -49,7 +52,33 @@ public record FitRequest(List<Path> data, String name, List<Dialect> dialects, P
                       OptionalDouble temperature, DeviceKind kind, List<ParameterRule> rules, int digits,
                       boolean force, Optional<Path> templates) {
         this(data, name, dialects, outDir, json, temperature, kind, rules, digits, force, templates,
-                CapacitanceOptions.DEFAULT);
+                CapacitanceOptions.DEFAULT, BenchOptions.DEFAULT);
+    }
+
+    /**
+     * How bench logs are read.
+     *
+     * @param meterResistance meter input resistance when the file does not state it [ohm]; NaN when not given
+     * @param correctLoading  apply Kirchhoff's current law for the meter's draw
+     */
+    public record BenchOptions(double meterResistance, boolean correctLoading) {
+        /** No meter resistance given; correction on. */
+        public static final BenchOptions DEFAULT = new BenchOptions(Double.NaN, true);
+    }
+
+    /** The reader options this request implies. */
+    public ReadOptions readOptions() {
+        ReadOptions o = ReadOptions.defaults();
+        if (temperature.isPresent()) {
+            o = o.withDefaultTemperature(temperature.getAsDouble());
+        }
+        if (Double.isFinite(bench.meterResistance())) {
+            o = o.withMeterResistance(bench.meterResistance());
+        }
+        if (!bench.correctLoading()) {
+            o = o.withoutMeterLoadingCorrection();
+        }
+        return o;
     }
 
     /** The card file for {@code d}: {@code OUT/NAME.DIALECT.lib}. */

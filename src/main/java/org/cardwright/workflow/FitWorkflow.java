@@ -10,6 +10,7 @@ import org.cardwright.card.CardWriter;
 import org.cardwright.card.Dialect;
 import org.cardwright.card.ModelCard;
 import org.cardwright.data.DataFileException;
+import org.cardwright.data.IvPoint;
 import org.cardwright.data.MeasurementFile;
 import org.cardwright.data.ReadOptions;
 import org.cardwright.data.RecoveryReader;
@@ -47,10 +48,7 @@ public final class FitWorkflow {
         request.json().ifPresent(targets::add);
         OutputFiles.checkWritable(targets, request.force());
 
-        ReadOptions options = ReadOptions.defaults();
-        if (request.temperature().isPresent()) {
-            options = options.withDefaultTemperature(request.temperature().getAsDouble());
-        }
+        ReadOptions options = request.readOptions();
         Inputs inputs = Inputs.read(request.data(), options);
         ExtractionData data = extractionData(inputs);
         if (data.isEmpty()) {
@@ -131,17 +129,29 @@ public final class FitWorkflow {
         return 0.03 * seconds + 0.2e-9;
     }
 
-    /** The points of every kind, with their uncertainties, for the extraction. */
+    /**
+     * The points of every kind, with their uncertainties, for the extraction.
+     *
+     * <p>A stated or derived uncertainty of a point becomes the uncertainty of its voltage residual at the
+     * measured current, r = V - Vmodel(I): sigma_r^2 = sigma_V^2 + (s sigma_I/I)^2 - 2 rho sigma_V s sigma_I/I,
+     * where s = dV/d(ln I) is the local slope of the measured sweep (first-order propagation, JCGM 100:2008
+     * "Guide to the expression of uncertainty in measurement", section 5; citation recalled). Without a stated
+     * voltage uncertainty the default below stands in.
+     */
     public static ExtractionData extractionData(Inputs inputs) {
         List<FitPoint> forward = new ArrayList<>();
-        for (Inputs.Located l : inputs.forward()) {
+        double[] fs = slopes(inputs.forward());
+        for (int i = 0; i < fs.length; i++) {
+            Inputs.Located l = inputs.forward().get(i);
             forward.add(new FitPoint(l.point().current(), l.point().voltage(), l.point().temperature(),
-                    DEFAULT_VOLTAGE_SIGMA, l.source(), l.point().line()));
+                    residualSigma(l.point(), fs[i], DEFAULT_VOLTAGE_SIGMA), l.source(), l.point().line()));
         }
         List<ReversePoint> reverse = new ArrayList<>();
-        for (Inputs.Located l : inputs.reverse()) {
+        double[] rs = slopes(inputs.reverse());
+        for (int i = 0; i < rs.length; i++) {
+            Inputs.Located l = inputs.reverse().get(i);
             reverse.add(new ReversePoint(l.point().voltage(), l.point().current(), l.point().temperature(),
-                    defaultReverseSigma(l.point().voltage()), l.source(), l.point().line()));
+                    residualSigma(l.point(), rs[i], defaultReverseSigma(l.point().voltage())), l.source(), l.point().line()));
         }
         List<CapacitancePoint> cv = new ArrayList<>();
         for (Inputs.LocatedCapacitance l : inputs.capacitance()) {
@@ -156,6 +166,46 @@ public final class FitWorkflow {
             }
         }
         return new ExtractionData(forward, reverse, cv, recovery);
+    }
+
+    /** sigma of the voltage residual at the measured current (see {@link #extractionData}) [V]. */
+    static double residualSigma(IvPoint p, double slope, double defaultVoltageSigma) {
+        double sv = p.hasVoltageSigma() ? p.voltageSigma() : defaultVoltageSigma;
+        if (!p.hasCurrentSigma() || !Double.isFinite(slope)) {
+            return sv;
+        }
+        double si = Math.abs(slope) * p.currentSigma() / Math.abs(p.current());
+        double var = sv * sv + si * si - 2 * p.voltageCurrentCorrelation() * sv * si * Math.signum(slope);
+        return Math.sqrt(Math.max(var, 0.01 * sv * sv));
+    }
+
+    /**
+     * Local dV/d(ln |I|) of each point within its file and temperature, by differences to its neighbours in
+     * current [V]; NaN where a sweep has fewer than two points.
+     */
+    static double[] slopes(List<Inputs.Located> pts) {
+        double[] out = new double[pts.size()];
+        java.util.Arrays.fill(out, Double.NaN);
+        java.util.Map<String, List<Integer>> groups = new java.util.HashMap<>();
+        for (int i = 0; i < pts.size(); i++) {
+            groups.computeIfAbsent(pts.get(i).source() + "@" + pts.get(i).point().temperature(), k -> new ArrayList<>()).add(i);
+        }
+        for (List<Integer> g : groups.values()) {
+            g.sort(java.util.Comparator.comparingDouble(i -> Math.abs(pts.get(i).point().current())));
+            for (int k = 0; k < g.size(); k++) {
+                int a = g.get(Math.max(0, k - 1));
+                int b = g.get(Math.min(g.size() - 1, k + 1));
+                if (a == b) {
+                    continue;
+                }
+                double dl = Math.log(Math.abs(pts.get(b).point().current() / pts.get(a).point().current()));
+                double dv = pts.get(b).point().voltage() - pts.get(a).point().voltage();
+                if (dl != 0) {
+                    out[g.get(k)] = dv / dl;
+                }
+            }
+        }
+        return out;
     }
 
     private static double defaultOf(DiodeParameters p, Param q) {

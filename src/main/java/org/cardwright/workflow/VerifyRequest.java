@@ -21,10 +21,11 @@ import org.cardwright.verify.Tolerance;
  * @param json        where to write the machine-readable result, if anywhere
  * @param force       allow replacing an existing JSON file
  * @param capacitance how the C-V readings were taken (stray capacitance, test frequency)
+ * @param bench       how bench logs are read (meter resistance, loading correction)
  */
 public record VerifyRequest(Path card, List<Path> data, String engine, Optional<String> model, Dialect dialect,
                             OptionalDouble temperature, Tolerance tolerance, Optional<Path> json, boolean force,
-                            CapacitanceOptions capacitance) {
+                            CapacitanceOptions capacitance, FitRequest.BenchOptions bench) {
     public VerifyRequest {
         data = List.copyOf(data);
         if (data.isEmpty()) {
@@ -35,6 +36,22 @@ public record VerifyRequest(Path card, List<Path> data, String engine, Optional<
     /** A request whose C-V readings (if any) were taken at 1 MHz with no stray capacitance. */
     public VerifyRequest(Path card, List<Path> data, String engine, Optional<String> model, Dialect dialect,
                          OptionalDouble temperature, Tolerance tolerance, Optional<Path> json, boolean force) {
-        this(card, data, engine, model, dialect, temperature, tolerance, json, force, CapacitanceOptions.DEFAULT);
+        this(card, data, engine, model, dialect, temperature, tolerance, json, force, CapacitanceOptions.DEFAULT,
+                FitRequest.BenchOptions.DEFAULT);
+    }
+
+    /** The reader options this request implies. */
+    public org.cardwright.data.ReadOptions readOptions() {
+        org.cardwright.data.ReadOptions o = org.cardwright.data.ReadOptions.defaults();
+        if (temperature.isPresent()) {
+            o = o.withDefaultTemperature(temperature.getAsDouble());
+        }
+        if (Double.isFinite(bench.meterResistance())) {
+            o = o.withMeterResistance(bench.meterResistance());
+        }
+        if (!bench.correctLoading()) {
+            o = o.withoutMeterLoadingCorrection();
+        }
+        return o;
     }
 }

@@ -77,10 +77,7 @@ public final class VerifyWorkflow {
         }
         ParsedCard parsed = new CardReader().parse(text, Inputs.displayName(request.card()), request.dialect(),
                 request.model());
-        ReadOptions options = ReadOptions.defaults();
-        if (request.temperature().isPresent()) {
-            options = options.withDefaultTemperature(request.temperature().getAsDouble());
-        }
+        ReadOptions options = request.readOptions();
         Inputs inputs = Inputs.read(request.data(), options);
         ExtractionData data = FitWorkflow.extractionData(inputs);
         List<String> notes = new ArrayList<>(parsed.notices());
