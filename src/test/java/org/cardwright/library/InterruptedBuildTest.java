@@ -51,10 +51,12 @@ class InterruptedBuildTest {
         return new Setup(tree, oldCards, newCards);
     }
 
-    private static Process child(String mainClass, String... args) throws Exception {
+    /** Starts a JVM whose temporary folders (left behind when it is killed) stay in the test's own folder. */
+    private static Process child(Path tree, String mainClass, String... args) throws Exception {
         String classpath = System.getProperty("surefire.test.class.path", System.getProperty("java.class.path"));
+        Path tmp = Files.createDirectories(tree.resolveSibling(tree.getFileName() + "-tmp"));
         List<String> command = new ArrayList<>(List.of(Path.of(System.getProperty("java.home"), "bin", "java").toString(),
-                "-cp", classpath, mainClass));
+                "-Djava.io.tmpdir=" + tmp, "-cp", classpath, mainClass));
         command.addAll(List.of(args));
         return new ProcessBuilder(command).redirectErrorStream(true).start();
     }
@@ -83,7 +85,7 @@ class InterruptedBuildTest {
     @Test
     void killedInTheMiddleOfWritingACard() throws Exception {
         Setup s = setup("library-killed-mid-write");
-        Process p = child(InterruptedBuildChild.class.getName(), s.tree().toString(), "3");
+        Process p = child(s.tree(), InterruptedBuildChild.class.getName(), s.tree().toString(), "3");
         boolean sawMidWrite = false;
         try (BufferedReader r = new BufferedReader(new InputStreamReader(p.getInputStream(), StandardCharsets.UTF_8))) {
             long deadline = System.nanoTime() + TimeUnit.SECONDS.toNanos(CHILD_TIMEOUT_SECONDS);
@@ -117,7 +119,7 @@ class InterruptedBuildTest {
         Setup s = setup("library-killed-random");
         Random random = new Random(4242);
         for (int round = 0; round < 4; round++) {
-            Process p = child("org.cardwright.cli.Main", "build", s.tree().toString());
+            Process p = child(s.tree(), "org.cardwright.cli.Main", "build", s.tree().toString());
             Thread.sleep(300 + random.nextInt(2500));
             p.destroyForcibly();
             p.waitFor(CHILD_TIMEOUT_SECONDS, TimeUnit.SECONDS);
