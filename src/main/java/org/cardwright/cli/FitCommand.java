@@ -10,6 +10,7 @@ import org.cardwright.card.Dialect;
 import org.cardwright.card.SpiceNumbers;
 import org.cardwright.fit.CapacitanceOptions;
 import org.cardwright.fit.DeviceKind;
+import org.cardwright.fit.FitSettings;
 import org.cardwright.fit.ParameterRule;
 import org.cardwright.model.Ngspice39;
 import org.cardwright.report.FitJson;
@@ -88,11 +89,24 @@ final class FitCommand implements Callable<Integer> {
             description = "Take bench-log currents as (Vsupply - Vmeter)/Rseries, without removing the meter's draw (for comparison only).")
     boolean noMeterCorrection;
 
+    @Option(names = "--self-heating", paramLabel = "HOW", defaultValue = "fit",
+            description = "When the junction warms itself at high current: fit (carry RTH0 on the card) or exclude "
+                    + "(leave out points warmed by more than 1 K, fit without RTH0). Default: ${DEFAULT-VALUE}.")
+    String selfHeating;
+
     @Option(names = "--force", description = "Replace existing output files.")
     boolean force;
 
     @picocli.CommandLine.Spec
     picocli.CommandLine.Model.CommandSpec spec;
+
+    private static FitSettings.SelfHeatingRemedy selfHeatingRemedy(String text) {
+        return switch (text.trim().toLowerCase(java.util.Locale.ROOT)) {
+            case "fit" -> FitSettings.SelfHeatingRemedy.FIT;
+            case "exclude" -> FitSettings.SelfHeatingRemedy.EXCLUDE;
+            default -> throw new IllegalArgumentException("--self-heating takes fit or exclude, not '" + text + "'");
+        };
+    }
 
     @Override
     public Integer call() throws Exception {
@@ -112,7 +126,8 @@ final class FitCommand implements Callable<Integer> {
                 DeviceKind.byOptionName(kind), parsed, digits, force, Optional.ofNullable(templates),
                 new CapacitanceOptions(SpiceNumbers.parse(stray), SpiceNumbers.parse(cvFrequency)),
                 new FitRequest.BenchOptions(meterResistance == null ? Double.NaN : SpiceNumbers.parse(meterResistance),
-                        !noMeterCorrection));
+                        !noMeterCorrection),
+                selfHeatingRemedy(selfHeating));
         FitOutcome outcome = new FitWorkflow().run(request, o -> FitJson.write(name, o));
         spec.commandLine().getOut().print(FitText.render(name, outcome));
         spec.commandLine().getOut().flush();

@@ -15,9 +15,27 @@ import org.cardwright.model.SimulatorOptions;
  * @param kind        device kind
  * @param nominalTemperature TNOM [K]
  * @param options     GMIN and RELTOL of the model
+ * @param selfHeating what to do when the data show self-heating
  */
 public record FitSettings(Map<Param, ParameterRule> rules, DeviceKind kind, double nominalTemperature,
-                          SimulatorOptions options) {
+                          SimulatorOptions options, SelfHeatingRemedy selfHeating) {
+
+    /** The two remedies for self-heating in forward data. */
+    public enum SelfHeatingRemedy {
+        /** Fit RTH0 and carry it on the card (ngspice: used with a thermal node). */
+        FIT,
+        /**
+         * Leave out the points where self-heating moves the voltage by more than {@link #EXCLUDE_SHIFT} and fit
+         * the rest without RTH0.
+         */
+        EXCLUDE;
+
+        /**
+         * Points whose voltage self-heating moves by more than this are left out by {@link #EXCLUDE}: well under
+         * a bench meter's noise, so what stays fits as if isothermal [V].
+         */
+        public static final double EXCLUDE_SHIFT = 0.1e-3;
+    }
     public FitSettings {
         rules = Map.copyOf(rules);
         if (!(nominalTemperature > 0)) {
@@ -28,7 +46,7 @@ public record FitSettings(Map<Param, ParameterRule> rules, DeviceKind kind, doub
     /** Silicon pn, TNOM 27 degrees C, ngspice defaults, no rules. */
     public static FitSettings defaults() {
         return new FitSettings(Map.of(), DeviceKind.SILICON_PN, Ngspice39.REFERENCE_TEMPERATURE,
-                SimulatorOptions.NGSPICE_DEFAULTS);
+                SimulatorOptions.NGSPICE_DEFAULTS, SelfHeatingRemedy.FIT);
     }
 
     /** These settings with the given rules (a later rule for the same parameter wins; TNOM rules set TNOM). */
@@ -46,12 +64,17 @@ public record FitSettings(Map<Param, ParameterRule> rules, DeviceKind kind, doub
                 m.put(r.param(), r);
             }
         }
-        return new FitSettings(m, kind, tnom, options);
+        return new FitSettings(m, kind, tnom, options, selfHeating);
     }
 
     /** This with another device kind. */
     public FitSettings withKind(DeviceKind k) {
-        return new FitSettings(rules, k, nominalTemperature, options);
+        return new FitSettings(rules, k, nominalTemperature, options, selfHeating);
+    }
+
+    /** This with another self-heating remedy. */
+    public FitSettings withSelfHeating(SelfHeatingRemedy remedy) {
+        return new FitSettings(rules, kind, nominalTemperature, options, remedy);
     }
 
     /** The rule for {@code p}, or null. */

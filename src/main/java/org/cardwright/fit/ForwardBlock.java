@@ -10,6 +10,7 @@ import org.cardwright.model.DiodeParameters;
 import org.cardwright.model.DiodeSolver;
 import org.cardwright.model.JunctionCurrent;
 import org.cardwright.model.Param;
+import org.cardwright.model.SelfHeating;
 import org.cardwright.model.SimulatorOptions;
 import org.cardwright.model.TemperatureLaws;
 
@@ -25,9 +26,11 @@ import org.cardwright.model.TemperatureLaws;
 final class ForwardBlock implements ResidualBlock {
     /** Central-difference step on the optimiser's scale (log or linear). */
     private static final double STEP = 1e-6;
+    /** Below this estimated self-heating the junction is taken as isothermal (far below the 1e-6 V goal) [K]. */
+    private static final double NEGLIGIBLE_RISE = 1e-6;
     private static final Set<Param> DEPENDS = EnumSet.of(Param.IS, Param.N, Param.RS, Param.ISR, Param.NR,
             Param.IKF, Param.EG, Param.XTI, Param.TRS1, Param.TRS2, Param.VJ, Param.M, Param.BV, Param.IBV, Param.NBV,
-            Param.TCV);
+            Param.TCV, Param.RTH0);
 
     private final FitPoint[] points;
     private final double[] temperatures;
@@ -70,8 +73,19 @@ final class ForwardBlock implements ResidualBlock {
 
     /** Model terminal voltages at the measured currents for parameters {@code p} [V]. */
     double[] voltages(DiodeParameters p) {
-        DiodeAtTemperature[] at = scaled(p);
         double[] v = new double[points.length];
+        DiodeAtTemperature[] at = scaled(p);
+        if (p.isGiven(Param.RTH0)) {
+            double rth = p.get(Param.RTH0);
+            for (int i = 0; i < v.length; i++) {
+                // points whose dissipation cannot warm the junction measurably keep the isothermal shortcut
+                double rise = rth * points[i].current() * Math.abs(points[i].voltage());
+                v[i] = rise < NEGLIGIBLE_RISE
+                        ? DiodeSolver.voltageAtCurrent(at[group[i]], points[i].current())
+                        : SelfHeating.voltageAtCurrent(p, points[i].temperature(), points[i].current(), options);
+            }
+            return v;
+        }
         for (int i = 0; i < v.length; i++) {
             v[i] = DiodeSolver.voltageAtCurrent(at[group[i]], points[i].current());
         }
@@ -98,6 +112,10 @@ final class ForwardBlock implements ResidualBlock {
     @Override
     public double[][] jacobian(FreeParameters layout, double[] x) {
         DiodeParameters p = layout.toParameters(x);
+        if (p.isGiven(Param.RTH0)) {
+            // the junction temperature depends on the point: plain central differences of the residuals
+            return ResidualBlock.super.jacobian(layout, x);
+        }
         DiodeAtTemperature[] at = scaled(p);
         int nFree = layout.size();
         DiodeAtTemperature[][] plus = new DiodeAtTemperature[nFree][];

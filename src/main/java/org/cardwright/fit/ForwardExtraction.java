@@ -12,6 +12,7 @@ import org.cardwright.model.DiodeAtTemperature;
 import org.cardwright.model.DiodeParameters;
 import org.cardwright.model.DiodeSolver;
 import org.cardwright.model.JunctionCurrent;
+import org.cardwright.model.SelfHeating;
 import org.cardwright.model.SimulatorOptions;
 import org.cardwright.model.TemperatureLaws;
 import org.cardwright.model.Ngspice39;
@@ -58,6 +59,9 @@ public final class ForwardExtraction {
     private static final Term RECOMBINATION = new Term("recombination current", List.of(Param.ISR, Param.NR));
     private static final Term HIGH_INJECTION = new Term("high injection", List.of(Param.IKF));
     private static final Term RS_TEMPCO = new Term("RS temperature coefficient", List.of(Param.TRS1));
+    private static final Term SELF_HEATING = new Term("self-heating", List.of(Param.RTH0));
+    /** Self-heating must warm the junction by at least this much at the top current to be observable [K]. */
+    public static final double MIN_VISIBLE_RISE = 0.5;
 
     /**
      * Fits the forward parameters to {@code points}.
@@ -146,7 +150,7 @@ public final class ForwardExtraction {
             free.add(Param.XTI);
         }
         List<Term> candidates = new ArrayList<>();
-        for (Term term : List.of(RECOMBINATION, HIGH_INJECTION, RS_TEMPCO)) {
+        for (Term term : List.of(RECOMBINATION, HIGH_INJECTION, RS_TEMPCO, SELF_HEATING)) {
             Param key = term.params().get(0);
             ParameterRule rule = settings.rule(key);
             if (rule != null && rule.kind() == ParameterRule.Kind.OFF) {
@@ -347,6 +351,16 @@ public final class ForwardExtraction {
                         "the fit puts IKF at %s A, more than %.0f times the largest measured current (%s A): no knee in the data",
                         num(ikf), KNEE_REACH, num(top));
             }
+        } else if (term == SELF_HEATING) {
+            double worst = 0;
+            for (FitPoint pt : points) {
+                worst = Math.max(worst, SelfHeating.riseAtCurrent(p, pt.temperature(), pt.current(), SimulatorOptions.NGSPICE_DEFAULTS));
+            }
+            if (worst < MIN_VISIBLE_RISE) {
+                return String.format(Locale.ROOT,
+                        "the fit's RTH0 (%s K/W) warms the junction by only %.2f K at the largest current: too little to tell from the data",
+                        num(p.get(Param.RTH0)), worst);
+            }
         } else if (term == RECOMBINATION) {
             FitPoint low = points.stream().min(Comparator.comparingDouble(FitPoint::current)).orElseThrow();
             DiodeAtTemperature d = TemperatureLaws.at(p, low.temperature(), SimulatorOptions.NGSPICE_DEFAULTS);
@@ -384,6 +398,10 @@ public final class ForwardExtraction {
             putUnlessFixed(start, Param.IKF, 3 * top);
         } else if (term == RS_TEMPCO) {
             putUnlessFixed(start, Param.TRS1, 0.0);
+        } else if (term == SELF_HEATING) {
+            // start where the top point warms by 2 K
+            FitPoint top = reference.get(reference.size() - 1);
+            putUnlessFixed(start, Param.RTH0, 2.0 / (top.current() * Math.max(top.voltage(), 0.1)));
         }
     }
 
@@ -424,6 +442,7 @@ public final class ForwardExtraction {
             case IBV -> new double[] {1e-15, 10};
             case TCV -> new double[] {-1, 1};
             case TT -> new double[] {1e-18, 1e-2};
+            case RTH0 -> new double[] {1e-3, 1e5};
             case CJO -> new double[] {1e-18, 1e-5};
             case VJ -> new double[] {0.05, 5};
             case M -> new double[] {0.01, 0.9};

@@ -58,6 +58,37 @@ public final class JunctionExtraction {
 
         if (!data.forward().isEmpty()) {
             ForwardExtraction.Stage st = forward.stage(data.forward());
+            if (settings.selfHeating() == FitSettings.SelfHeatingRemedy.EXCLUDE && st.run().parameters().isGiven(Param.RTH0)) {
+                // the remedy the user chose: leave out the heated points and fit the rest without RTH0
+                DiodeParameters heated = st.run().parameters();
+                List<FitPoint> kept = new ArrayList<>();
+                List<String> dropped = new ArrayList<>();
+                DiodeParameters isothermal = heated.without(Param.RTH0);
+                for (FitPoint pt : data.forward()) {
+                    double rise = org.cardwright.model.SelfHeating.riseAtCurrent(heated, pt.temperature(), pt.current(), settings.options());
+                    double shift = org.cardwright.model.SelfHeating.voltageAtCurrent(heated, pt.temperature(), pt.current(), settings.options())
+                            - org.cardwright.model.SelfHeating.voltageAtCurrent(isothermal, pt.temperature(), pt.current(), settings.options());
+                    if (Math.abs(shift) > FitSettings.SelfHeatingRemedy.EXCLUDE_SHIFT) {
+                        dropped.add(String.format(Locale.ROOT, "%s (%.2f K, %+.2f mV)", pt.where(), rise, shift * 1e3));
+                    } else {
+                        kept.add(pt);
+                    }
+                }
+                warnings.add(String.format(Locale.ROOT,
+                        "self-heating: %d forward points left out because warming moved their voltage by more than %.1f mV (RTH0 %s K/W): %s",
+                        dropped.size(), FitSettings.SelfHeatingRemedy.EXCLUDE_SHIFT * 1e3, num(heated.get(Param.RTH0)), String.join(", ", dropped)));
+                List<ParameterRule> rules = new ArrayList<>(settings.rules().values());
+                rules.add(new ParameterRule(Param.RTH0, ParameterRule.Kind.OFF, Double.NaN,
+                        Double.NEGATIVE_INFINITY, Double.POSITIVE_INFINITY));
+                FitSettings cooler = settings.withRules(rules).withSelfHeating(FitSettings.SelfHeatingRemedy.FIT);
+                ExtractionData rest = new ExtractionData(kept, data.reverse(), data.capacitance(), data.recovery());
+                FitResult r = new JunctionExtraction(cooler, capacitanceOptions).fit(rest);
+                List<String> all = new ArrayList<>(warnings);
+                all.addAll(r.warnings());
+                return new FitResult(r.parameters(), r.fitted(), r.correlations(), r.chiSquare(), r.reducedChiSquare(),
+                        r.points(), r.degreesOfFreedom(), r.evaluations(), r.iterations(), r.stopReason(), r.residuals(),
+                        r.otherResiduals(), r.terms(), all);
+            }
             blocks.addAll(st.blocks());
             decisions.addAll(st.decisions());
             warnings.addAll(st.warnings());
@@ -163,6 +194,7 @@ public final class JunctionExtraction {
             joint = Optimiser.run(blocks, params, new ArrayList<>(free), forward::bounds);
         }
         leakageCheck(split.leakage(), joint.parameters(), warnings);
+        selfHeatingNote(data.forward(), joint.parameters(), warnings);
         return ResultAssembly.assemble(settings, blocks, joint, data.forward(), decisions, warnings, start, forward::bounds);
     }
 
@@ -207,6 +239,27 @@ public final class JunctionExtraction {
                     "%s: measured leakage %s A at %s V is %.0f times what the card predicts (%s A, IS plus GMIN): surface or shunt leakage that a level-1 card cannot carry",
                     worst.where(), num(-worst.current()), num(worst.voltage()), worstRatio, num(worstModel)));
         }
+    }
+
+    /** Says how hot the junction ran when the card carries RTH0, and how to use the card. */
+    private void selfHeatingNote(List<FitPoint> forward, DiodeParameters p, List<String> warnings) {
+        if (!p.isGiven(Param.RTH0) || forward.isEmpty()) {
+            return;
+        }
+        FitPoint hottest = null;
+        double rise = 0;
+        for (FitPoint pt : forward) {
+            double r = org.cardwright.model.SelfHeating.riseAtCurrent(p, pt.temperature(), pt.current(), settings.options());
+            if (r > rise) {
+                rise = r;
+                hottest = pt;
+            }
+        }
+        warnings.add(0, String.format(Locale.ROOT,
+                "self-heating: the junction ran %.1f K above the stated temperature at %s A (%s), RTH0 = %s K/W; "
+                        + "the ngspice card carries RTH0, which acts only on an instance with a thermal node: D1 anode cathode tj NAME thermal. "
+                        + "To fit without the heated points instead, pass --self-heating exclude",
+                rise, num(hottest.current()), hottest.where(), num(p.get(Param.RTH0))));
     }
 
     private static String num(double v) {

@@ -55,8 +55,10 @@ public final class NgspiceEngine implements SimulationEngine {
         sb.append("* cardwright re-simulation of model ").append(card.name()).append('\n');
         sb.append("I1 0 a DC 0\n");
         sb.append("V1 b 0 DC 0\n");
-        sb.append("D1 a 0 ").append(card.name()).append('\n');
-        sb.append("D2 b 0 ").append(card.name()).append('\n');
+        // with RTH0 the thermal node and flag make ngspice heat the junction by its own dissipation
+        boolean thermal = card.parameters().isGiven(org.cardwright.model.Param.RTH0);
+        sb.append("D1 a 0 ").append(thermal ? "t1 " : "").append(card.name()).append(thermal ? " thermal" : "").append('\n');
+        sb.append("D2 b 0 ").append(thermal ? "t2 " : "").append(card.name()).append(thermal ? " thermal" : "").append('\n');
         sb.append(card.text().endsWith("\n") ? card.text() : card.text() + "\n");
         sb.append(".options reltol=").append(num(CONVERGENCE.reltol())).append(" vntol=1e-10 abstol=1e-20\n");
         sb.append(".control\n");

@@ -8,6 +8,7 @@ import org.cardwright.card.Dialect;
 import org.cardwright.data.ReadOptions;
 import org.cardwright.fit.CapacitanceOptions;
 import org.cardwright.fit.DeviceKind;
+import org.cardwright.fit.FitSettings;
 import org.cardwright.fit.ParameterRule;
 
 /**
@@ -27,11 +28,13 @@ import org.cardwright.fit.ParameterRule;
  * @param capacitance how the C-V readings were taken (stray capacitance, test frequency)
  * @param bench       bench-log reading: meter input resistance [ohm] when not in the file, and whether to
  *                    correct for the meter's draw (NaN resistance: none given)
+ * @param selfHeating what to do when forward data show self-heating
  */
 public record FitRequest(List<Path> data, String name, List<Dialect> dialects, Path outDir, Optional<Path> json,
                          OptionalDouble temperature, DeviceKind kind, List<ParameterRule> rules, int digits,
                          boolean force, Optional<Path> templates,
-                         CapacitanceOptions capacitance, BenchOptions bench) {
+                         CapacitanceOptions capacitance, BenchOptions bench,
+                         FitSettings.SelfHeatingRemedy selfHeating) {
     public FitRequest {
         data = List.copyOf(data);
         dialects = List.copyOf(dialects);
@@ -45,6 +48,14 @@ public record FitRequest(List<Path> data, String name, List<Dialect> dialects, P
         if (digits < 4 || digits > 15) {
             throw new IllegalArgumentException("--digits must lie in 4..15, got " + digits);
         }
+    }
+
+    /** A request that fits RTH0 when the data show self-heating. */
+    public FitRequest(List<Path> data, String name, List<Dialect> dialects, Path outDir, Optional<Path> json,
+                      OptionalDouble temperature, DeviceKind kind, List<ParameterRule> rules, int digits,
+                      boolean force, Optional<Path> templates, CapacitanceOptions capacitance, BenchOptions bench) {
+        this(data, name, dialects, outDir, json, temperature, kind, rules, digits, force, templates, capacitance, bench,
+                FitSettings.SelfHeatingRemedy.FIT);
     }
 
     /** A request whose C-V readings (if any) were taken at 1 MHz with no stray capacitance. */

@@ -55,7 +55,8 @@ public final class FitWorkflow {
             throw new FitInputException(request.data().stream().map(Inputs::displayName).collect(Collectors.joining(", "))
                     + ": no I-V or C-V points to fit");
         }
-        FitSettings settings = FitSettings.defaults().withKind(request.kind()).withRules(request.rules());
+        FitSettings settings = FitSettings.defaults().withKind(request.kind()).withRules(request.rules())
+                .withSelfHeating(request.selfHeating());
         FitResult full = new JunctionExtraction(settings, request.capacitance()).fit(data);
         if (data.forward().isEmpty() && full.fitted().stream().noneMatch(org.cardwright.fit.FittedParameter::fitted)) {
             // e.g. leakage without breakdown: a card of defaults would describe nothing the data determine
