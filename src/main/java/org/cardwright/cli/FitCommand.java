@@ -94,6 +94,10 @@ final class FitCommand implements Callable<Integer> {
                     + "(leave out points warmed by more than 1 K, fit without RTH0). Default: ${DEFAULT-VALUE}.")
     String selfHeating;
 
+    @Option(names = "--robust",
+            description = "Fit with a robust loss (Huber weights): points far off the curve count less, and are listed by file and line.")
+    boolean robust;
+
     @Option(names = "--force", description = "Replace existing output files.")
     boolean force;
 
@@ -127,7 +131,7 @@ final class FitCommand implements Callable<Integer> {
                 new CapacitanceOptions(SpiceNumbers.parse(stray), SpiceNumbers.parse(cvFrequency)),
                 new FitRequest.BenchOptions(meterResistance == null ? Double.NaN : SpiceNumbers.parse(meterResistance),
                         !noMeterCorrection),
-                selfHeatingRemedy(selfHeating));
+                selfHeatingRemedy(selfHeating), robust);
         FitOutcome outcome = new FitWorkflow().run(request, o -> FitJson.write(name, o));
         spec.commandLine().getOut().print(FitText.render(name, outcome));
         spec.commandLine().getOut().flush();

@@ -120,9 +120,11 @@ public final class DiodeSolver {
         double goal = r == 0 ? asinh(target / scale) : target;
         double x = start;
         double stepBefore = hi - lo;
+        double[] ig = new double[2];
         for (int iter = 0; iter < MAX_ITERATIONS; iter++) {
-            double i = JunctionCurrent.current(d, x);
-            double g = JunctionCurrent.conductance(d, x);
+            JunctionCurrent.currentAndConductance(d, x, ig);
+            double i = ig[0];
+            double g = ig[1];
             double f;
             double slope;
             if (r == 0) {

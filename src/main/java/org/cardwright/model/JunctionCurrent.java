@@ -61,7 +61,7 @@ public final class JunctionCurrent {
         double f = Math.pow(t, mHalf);
         double irec = d.recombinationCurrent() * (er - 1);
         // ngspice's slip: the derivative of f lacks 1/VJ and multiplies the already scaled current irec·f
-        double slippedDf = -d.gradingCoefficient() * u * Math.pow(t, mHalf - 1);
+        double slippedDf = -d.gradingCoefficient() * u * (f / t);
         double i = is * (e - 1) + irec * f;
         double g = is * e / vte + d.recombinationCurrent() * er / vtr * f + irec * f * slippedDf;
         if (d.hasForwardKnee() && i > KNEE_THRESHOLD) {
@@ -71,7 +71,22 @@ public final class JunctionCurrent {
         return g + d.gmin();
     }
 
+    /**
+     * Current and its exact derivative in one evaluation (the solvers need both at every step).
+     *
+     * @param d   parameters at the device temperature
+     * @param vd  intrinsic junction voltage [V]
+     * @param out receives {current [A], conductance [S]}
+     */
+    public static void currentAndConductance(DiodeAtTemperature d, double vd, double[] out) {
+        out[0] = evaluate(d, vd, true, out);
+    }
+
     private static double evaluate(DiodeAtTemperature d, double vd, boolean wantConductance) {
+        return evaluate(d, vd, wantConductance, null);
+    }
+
+    private static double evaluate(DiodeAtTemperature d, double vd, boolean wantConductance, double[] both) {
         double is = d.saturationCurrent();
         double vt = d.thermalVoltage();
         double vte = d.emissionCoefficient() * vt;
@@ -87,11 +102,11 @@ public final class JunctionCurrent {
                 double u = 1 - vd / d.junctionPotential();
                 double mHalf = d.gradingCoefficient() / 2;
                 double t = u * u + 0.005;
-                double f = Math.pow(t, mHalf);
+                double f = mHalf == 0.25 ? Math.sqrt(Math.sqrt(t)) : Math.pow(t, mHalf);
                 double irec = d.recombinationCurrent() * (er - 1);
                 i += irec * f;
                 if (wantConductance) {
-                    double df = -d.gradingCoefficient() * u * Math.pow(t, mHalf - 1) / d.junctionPotential();
+                    double df = -d.gradingCoefficient() * u * (f / t) / d.junctionPotential();
                     g += d.recombinationCurrent() * er / vtr * f + irec * df;
                 }
             }
@@ -120,6 +135,10 @@ public final class JunctionCurrent {
         }
         i += d.gmin() * vd;
         g += d.gmin();
+        if (both != null) {
+            both[1] = g;
+            return i;
+        }
         return wantConductance ? g : i;
     }
 }

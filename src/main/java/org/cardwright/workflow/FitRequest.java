@@ -29,12 +29,13 @@ import org.cardwright.fit.ParameterRule;
  * @param bench       bench-log reading: meter input resistance [ohm] when not in the file, and whether to
  *                    correct for the meter's draw (NaN resistance: none given)
  * @param selfHeating what to do when forward data show self-heating
+ * @param robust      fit with Huber weights and list the outliers
  */
 public record FitRequest(List<Path> data, String name, List<Dialect> dialects, Path outDir, Optional<Path> json,
                          OptionalDouble temperature, DeviceKind kind, List<ParameterRule> rules, int digits,
                          boolean force, Optional<Path> templates,
                          CapacitanceOptions capacitance, BenchOptions bench,
-                         FitSettings.SelfHeatingRemedy selfHeating) {
+                         FitSettings.SelfHeatingRemedy selfHeating, boolean robust) {
     public FitRequest {
         data = List.copyOf(data);
         dialects = List.copyOf(dialects);
@@ -55,7 +56,7 @@ public record FitRequest(List<Path> data, String name, List<Dialect> dialects, P
                       OptionalDouble temperature, DeviceKind kind, List<ParameterRule> rules, int digits,
                       boolean force, Optional<Path> templates, CapacitanceOptions capacitance, BenchOptions bench) {
         this(data, name, dialects, outDir, json, temperature, kind, rules, digits, force, templates, capacitance, bench,
-                FitSettings.SelfHeatingRemedy.FIT);
+                FitSettings.SelfHeatingRemedy.FIT, false);
     }
 
     /** A request whose C-V readings (if any) were taken at 1 MHz with no stray capacitance. */

@@ -22,6 +22,7 @@ import org.cardwright.fit.FitPoint;
 import org.cardwright.fit.JunctionExtraction;
 import org.cardwright.fit.RecoveryPoint;
 import org.cardwright.fit.ReversePoint;
+import org.cardwright.fit.RobustExtraction;
 import org.cardwright.fit.FitResult;
 import org.cardwright.fit.FitSettings;
 import org.cardwright.fit.ParameterRule;
@@ -57,7 +58,7 @@ public final class FitWorkflow {
         }
         FitSettings settings = FitSettings.defaults().withKind(request.kind()).withRules(request.rules())
                 .withSelfHeating(request.selfHeating());
-        FitResult full = new JunctionExtraction(settings, request.capacitance()).fit(data);
+        FitResult full = extract(settings, request, data);
         if (data.forward().isEmpty() && full.fitted().stream().noneMatch(org.cardwright.fit.FittedParameter::fitted)) {
             // e.g. leakage without breakdown: a card of defaults would describe nothing the data determine
             throw new FitInputException(noForwardPoints(inputs));
@@ -81,7 +82,7 @@ public final class FitWorkflow {
                     rules.add(new ParameterRule(p, ParameterRule.Kind.OFF, Double.NaN,
                             Double.NEGATIVE_INFINITY, Double.POSITIVE_INFINITY));
                 }
-                forCard = new JunctionExtraction(settings.withRules(rules), request.capacitance()).fit(data);
+                forCard = extract(settings.withRules(rules), request, data);
                 refit = Optional.of(forCard);
             }
             ModelCard card = new ModelCard(request.name(), forCard.parameters(),
@@ -112,6 +113,12 @@ public final class FitWorkflow {
         }
         return inputs.files().stream().map(f -> Inputs.displayName(f.file())).collect(Collectors.joining(", "))
                 + ":0: nothing to fit: no forward I-V points, and the other data determine no parameter";
+    }
+
+    private static FitResult extract(FitSettings settings, FitRequest request, ExtractionData data) throws FitInputException {
+        return request.robust()
+                ? new RobustExtraction(settings, request.capacitance()).fit(data)
+                : new JunctionExtraction(settings, request.capacitance()).fit(data);
     }
 
     /**
