@@ -107,8 +107,10 @@ class CardsLoadInNgspiceTest {
 
         Object root = MiniJson.parse(Files.readString(json, StandardCharsets.UTF_8));
         assertEquals(Boolean.TRUE, MiniJson.at(root, "pass"));
-        assertTrue(((String) MiniJson.at(root, "engine")).startsWith("ngspice (ngspice-39"), "engine: " + MiniJson.at(root, "engine"));
-        List<?> temperatures = (List<?>) MiniJson.at(root, "temperatures");
+        // the verify JSON holds one section per data kind; forward I-V is the one here
+        Object forward = MiniJson.at(root, "forward");
+        assertTrue(((String) MiniJson.at(forward, "engine")).startsWith("ngspice (ngspice-39"), "engine: " + MiniJson.at(forward, "engine"));
+        List<?> temperatures = (List<?>) MiniJson.at(forward, "temperatures");
         assertEquals(CELSIUS.length, temperatures.size());
         double worst = 0;
         for (Object t : temperatures) {
