@@ -36,6 +36,8 @@ final class ForwardBlock implements ResidualBlock {
     private final double[] temperatures;
     private final int[] group;
     private final SimulatorOptions options;
+    private DiodeParameters cachedFor;
+    private double[] cachedJunctionVoltages;
 
     ForwardBlock(List<FitPoint> points, SimulatorOptions options) {
         this.points = points.toArray(new FitPoint[0]);
@@ -86,10 +88,25 @@ final class ForwardBlock implements ResidualBlock {
             }
             return v;
         }
+        double[] vd = junctionVoltages(p, at);
         for (int i = 0; i < v.length; i++) {
-            v[i] = DiodeSolver.voltageAtCurrent(at[group[i]], points[i].current());
+            v[i] = vd[i] + points[i].current() * at[group[i]].seriesResistance();
         }
         return v;
+    }
+
+    /** Junction voltages at the measured currents, kept for the Jacobian that follows at the same point. */
+    private double[] junctionVoltages(DiodeParameters p, DiodeAtTemperature[] at) {
+        if (p.equals(cachedFor)) {
+            return cachedJunctionVoltages;
+        }
+        double[] vd = new double[points.length];
+        for (int i = 0; i < vd.length; i++) {
+            vd[i] = DiodeSolver.junctionVoltageAtCurrent(at[group[i]], points[i].current());
+        }
+        cachedFor = p;
+        cachedJunctionVoltages = vd;
+        return vd;
     }
 
     @Override
@@ -135,11 +152,12 @@ final class ForwardBlock implements ResidualBlock {
             minus[j] = scaled(layout.toParameters(xm));
         }
         double[][] jac = new double[points.length][nFree];
+        double[] vds = junctionVoltages(p, at);
         for (int i = 0; i < points.length; i++) {
             DiodeAtTemperature d = at[group[i]];
             double current = points[i].current();
             double w = 1 / points[i].sigma();
-            double vd = DiodeSolver.junctionVoltageAtCurrent(d, current);
+            double vd = vds[i];
             double g = JunctionCurrent.conductance(d, vd);
             for (int j = 0; j < nFree; j++) {
                 if (plus[j] == null) {

@@ -199,6 +199,18 @@ public final class ForwardExtraction {
             Optimiser.Run chosenRun = null;
             double chosenBic = Double.POSITIVE_INFINITY;
             for (Term term : candidates) {
+                if (term == SELF_HEATING && !unobservable.containsKey(term)) {
+                    double bound = heatingScoreBound(points, best);
+                    if (bound > -BIC_THRESHOLD) {
+                        lastDelta.put(term, Double.NaN);
+                        unobservable.put(term, String.format(Locale.ROOT,
+                                "no sign of it in the residuals: adding it could lower BIC by at most %.1f (score test)", -bound));
+                        continue;
+                    }
+                }
+                if (term == SELF_HEATING && unobservable.containsKey(term) && unobservable.get(term).startsWith("no sign")) {
+                    continue;
+                }
                 EnumMap<Param, Double> trial = new EnumMap<>(Param.class);
                 trial.putAll(best.parameters().givenValues());
                 termStart(term, trial, reference, sh, tRef, tnom,
@@ -334,6 +346,51 @@ public final class ForwardExtraction {
             warnings.add(heldMessage);
         }
         return dataAllows;
+    }
+
+    /**
+     * Score (Lagrange-multiplier) test for self-heating, so that the costly thermal fit runs only when the
+     * residuals show its signature: the column h = dV/dRTH0 at RTH0 = 0, which is (dV/dT)·I·V at each point, is
+     * made orthogonal to the columns of the fitted parameters, and (h.r)^2/(h.h) bounds how much chi-square
+     * adding RTH0 could remove to first order (Rao, "Large sample tests of statistical hypotheses...", Proc.
+     * Cambridge Philos. Soc. 44 (1948) 50-57; citation recalled). Returns the best change of BIC it allows.
+     */
+    private double heatingScoreBound(List<FitPoint> points, Optimiser.Run best) {
+        ForwardBlock block = new ForwardBlock(points, settings.options());
+        DiodeParameters p = best.parameters();
+        double[] r = block.residuals(p);
+        double[][] j = block.jacobian(best.layout(), best.x());
+        double[] h = new double[points.size()];
+        double dT = 0.01;
+        java.util.Map<Double, DiodeAtTemperature[]> at = new java.util.HashMap<>();
+        for (int i = 0; i < h.length; i++) {
+            FitPoint pt = points.get(i);
+            DiodeAtTemperature[] d = at.computeIfAbsent(pt.temperature(), t -> new DiodeAtTemperature[] {
+                TemperatureLaws.at(p, t - dT, settings.options()), TemperatureLaws.at(p, t + dT, settings.options())});
+            double dvdt = (DiodeSolver.voltageAtCurrent(d[1], pt.current()) - DiodeSolver.voltageAtCurrent(d[0], pt.current())) / (2 * dT);
+            h[i] = dvdt * pt.current() * pt.voltage() / pt.sigma();
+        }
+        double[] hPerp = h;
+        if (j.length > 0 && j[0].length > 0) {
+            org.apache.commons.math3.linear.RealMatrix jm = new org.apache.commons.math3.linear.Array2DRowRealMatrix(j, false);
+            org.apache.commons.math3.linear.RealVector c = new org.apache.commons.math3.linear.QRDecomposition(jm, 1e-14)
+                    .getSolver().solve(new org.apache.commons.math3.linear.ArrayRealVector(h, false));
+            double[] fit = jm.operate(c).toArray();
+            hPerp = new double[h.length];
+            for (int i = 0; i < h.length; i++) {
+                hPerp[i] = h[i] - fit[i];
+            }
+        }
+        double hr = 0;
+        double hh = 0;
+        for (int i = 0; i < h.length; i++) {
+            hr += hPerp[i] * r[i];
+            hh += hPerp[i] * hPerp[i];
+        }
+        int n = points.size();
+        double rss = best.rss();
+        double reduced = hh > 0 ? Math.max(rss - hr * hr / hh, 0) : rss;
+        return bic(reduced, n, best.layout().size() + 1) - bic(rss, n, best.layout().size());
     }
 
     /**
