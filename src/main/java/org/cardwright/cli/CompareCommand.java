@@ -11,7 +11,6 @@ import org.cardwright.card.ParsedCard;
 import org.cardwright.card.SpiceNumbers;
 import org.cardwright.compare.CardComparer;
 import org.cardwright.compare.CardComparison;
-import org.cardwright.compare.CompareEngines;
 import org.cardwright.compare.ComparisonLimits;
 import org.cardwright.compare.ComparisonPlan;
 import org.cardwright.compare.ComparisonText;
@@ -100,7 +99,7 @@ final class CompareCommand implements Callable<Integer> {
                 numbers(leakageVoltages, List.of("1", "5", "20")), numbers(capacitanceBiases, List.of("0", "-1", "-5", "-10")),
                 ComparisonPlan.DEFAULT_FREQUENCY,
                 new ComparisonLimits(forwardLimit, t.leakageFactor(), t.capacitanceRelative(), t.breakdownRelative()));
-        CardComparison c = new CardComparer(Engines.byName(engine), CompareEngines.capacitance(engine))
+        CardComparison c = new CardComparer(Engines.byName(engine), org.cardwright.workflow.Engines.capacitanceByName(engine))
                 .compare(a, Inputs.displayName(cardA), b, Inputs.displayName(cardB), plan);
         a.notices().forEach(n -> spec.commandLine().getOut().println("note: " + n));
         b.notices().forEach(n -> spec.commandLine().getOut().println("note: " + n));

@@ -4,6 +4,7 @@ import java.io.PrintWriter;
 import org.cardwright.card.CardFormatException;
 import org.cardwright.card.CardTemplateException;
 import org.cardwright.data.DataFileException;
+import org.cardwright.fit.FitFailedException;
 import org.cardwright.fit.FitInputException;
 import org.cardwright.sim.process.SimulationException;
 import org.cardwright.workflow.OutputException;
@@ -78,7 +79,7 @@ public final class Main implements Runnable {
         String message = ex.getMessage();
         if (ex instanceof DataFileException || ex instanceof CardFormatException || ex instanceof java.io.IOException) {
             code = ExitCodes.BAD_INPUT;
-        } else if (ex instanceof FitInputException || ex instanceof IllegalStateException) {
+        } else if (ex instanceof FitInputException || ex instanceof FitFailedException) {
             code = ExitCodes.FIT_FAILED;
         } else if (ex instanceof SimulationException) {
             code = ExitCodes.SIMULATOR_FAILED;

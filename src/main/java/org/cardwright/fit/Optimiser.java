@@ -33,7 +33,7 @@ final class Optimiser {
      * Minimises the stacked weighted residuals of {@code blocks} over the {@code free} parameters, starting
      * from {@code start}, within {@code bounds}.
      *
-     * @throws IllegalStateException when the optimiser does not converge
+     * @throws FitFailedException when the optimiser does not converge
      */
     static Run run(List<ResidualBlock> blocks, DiodeParameters start, List<Param> free,
                    Function<Param, double[]> bounds) {
@@ -81,9 +81,9 @@ final class Optimiser {
             iters = opt.getIterations();
             stop = "converged: relative change of cost and parameters below 1e-13 after " + iters + " iterations";
         } catch (TooManyEvaluationsException | TooManyIterationsException e) {
-            throw new IllegalStateException("the fit did not converge within " + MAX_EVALUATIONS + " evaluations");
+            throw new FitFailedException("the fit did not converge within " + MAX_EVALUATIONS + " evaluations");
         } catch (ConvergenceException e) {
-            throw new IllegalStateException("the fit stopped: " + e.getMessage());
+            throw new FitFailedException("the fit stopped: " + e.getMessage());
         }
         DiodeParameters result = layout.toParameters(x);
         return new Run(result, layout, x, model.chiSquare(result), evals, iters, stop);

@@ -45,4 +45,21 @@ public final class Engines {
                 throw new IllegalArgumentException("unknown engine '" + name + "'; choose one of " + NAMES);
         }
     }
+
+    /** The capacitance engine called {@code name}: builtin or ngspice (AC analysis). */
+    public static org.cardwright.sim.CapacitanceEngine capacitanceByName(String name) throws SimulationException {
+        switch (name.toLowerCase(Locale.ROOT)) {
+            case "builtin":
+                return new org.cardwright.sim.BuiltinCapacitance(SimulatorOptions.NGSPICE_DEFAULTS);
+            case "ngspice": {
+                Path exe = SimulatorProcess.locate(SimulatorProcess.Kind.NGSPICE).orElseThrow(() -> new SimulationException(
+                        "ngspice not found on the PATH: install it (Debian/Ubuntu: apt-get install ngspice) or set "
+                                + SimulatorProcess.NGSPICE_VARIABLE + " to its path"));
+                return new org.cardwright.sim.NgspiceCapacitance(new SimulatorProcess(SimulatorProcess.Kind.NGSPICE, exe, TIMEOUT),
+                        workFolder());
+            }
+            default:
+                throw new IllegalArgumentException("unknown engine '" + name + "'; choose one of " + NAMES);
+        }
+    }
 }

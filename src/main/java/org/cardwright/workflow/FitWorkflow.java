@@ -44,6 +44,21 @@ public final class FitWorkflow {
     /** Runs the job; see the class comment. */
     public FitOutcome run(FitRequest request, java.util.function.Function<FitOutcome, String> jsonRenderer)
             throws DataFileException, FitInputException, OutputException {
+        FitOutcome outcome = prepare(request);
+        java.util.Map<Path, String> files = new java.util.LinkedHashMap<>();
+        for (FitOutcome.WrittenCard c : outcome.cards()) {
+            files.put(c.file(), c.text());
+        }
+        request.json().ifPresent(j -> files.put(j, jsonRenderer.apply(outcome)));
+        OutputFiles.writeAllAtomically(files);
+        return outcome;
+    }
+
+    /**
+     * Everything {@link #run} does except writing: the fit and the text of each card (at the paths the
+     * request names). Fails early when an output exists and the request does not allow replacing it.
+     */
+    public FitOutcome prepare(FitRequest request) throws DataFileException, FitInputException, OutputException {
         List<Path> targets = new ArrayList<>();
         request.dialects().forEach(d -> targets.add(request.cardPath(d)));
         request.json().ifPresent(targets::add);
@@ -91,14 +106,7 @@ public final class FitWorkflow {
             cards.add(new FitOutcome.WrittenCard(d, request.cardPath(d), rendered.text(), leftOut, refit));
         }
 
-        for (FitOutcome.WrittenCard c : cards) {
-            OutputFiles.writeAtomically(c.file(), c.text());
-        }
-        FitOutcome outcome = new FitOutcome(full, cards, inputs);
-        if (request.json().isPresent()) {
-            OutputFiles.writeAtomically(request.json().get(), jsonRenderer.apply(outcome));
-        }
-        return outcome;
+        return new FitOutcome(full, cards, inputs);
     }
 
     /** The one-line error for data that determine no parameter: names the first I-V point's file, line and current. */

@@ -3,8 +3,6 @@ package org.cardwright.workflow;
 import java.io.IOException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
-import java.nio.file.Path;
-import java.time.Duration;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
@@ -17,14 +15,9 @@ import org.cardwright.data.ReadOptions;
 import org.cardwright.fit.ExtractionData;
 import org.cardwright.fit.ReverseAnalysis;
 import org.cardwright.fit.ReversePoint;
-import org.cardwright.model.SimulatorOptions;
-import org.cardwright.sim.BuiltinCapacitance;
-import org.cardwright.sim.CapacitanceEngine;
 import org.cardwright.sim.CardUnderTest;
-import org.cardwright.sim.NgspiceCapacitance;
 import org.cardwright.sim.SimulationEngine;
 import org.cardwright.sim.process.SimulationException;
-import org.cardwright.sim.process.SimulatorProcess;
 import org.cardwright.verify.CapacitanceMeasurement;
 import org.cardwright.verify.CapacitanceTolerance;
 import org.cardwright.verify.CapacitanceVerification;
@@ -119,7 +112,7 @@ public final class VerifyWorkflow {
             List<CapacitanceMeasurement> pts = new ArrayList<>();
             data.capacitance().forEach(p -> pts.add(new CapacitanceMeasurement(p.voltage(), p.capacitance(),
                     p.temperature(), p.source(), p.line())));
-            capacitance = Optional.of(new CapacitanceVerifier(capacitanceEngine(request.engine()), CapacitanceTolerance.DEFAULT)
+            capacitance = Optional.of(new CapacitanceVerifier(Engines.capacitanceByName(request.engine()), CapacitanceTolerance.DEFAULT)
                     .verify(card, pts, request.capacitance().strayCapacitance(), request.capacitance().frequency(), List.of()));
         }
         Optional<RecoveryVerification> recovery = Optional.empty();
@@ -134,16 +127,5 @@ public final class VerifyWorkflow {
             OutputFiles.writeAtomically(request.json().get(), jsonRenderer.apply(v));
         }
         return v;
-    }
-
-    private static CapacitanceEngine capacitanceEngine(String name) throws SimulationException {
-        if (name.equalsIgnoreCase("ngspice")) {
-            Path exe = SimulatorProcess.locate(SimulatorProcess.Kind.NGSPICE).orElseThrow(() -> new SimulationException(
-                    "ngspice not found on the PATH: install it (Debian/Ubuntu: apt-get install ngspice) or set "
-                            + SimulatorProcess.NGSPICE_VARIABLE + " to its path"));
-            return new NgspiceCapacitance(new SimulatorProcess(SimulatorProcess.Kind.NGSPICE, exe, Duration.ofSeconds(120)),
-                    Engines.workFolder());
-        }
-        return new BuiltinCapacitance(SimulatorOptions.NGSPICE_DEFAULTS);
     }
 }

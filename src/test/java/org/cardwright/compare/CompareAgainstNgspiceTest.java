@@ -119,7 +119,7 @@ class CompareAgainstNgspiceTest {
     void theNgspiceEngineGivesTheSameComparison() throws Exception {
         Simulators.requireNgspice();
         CardComparison ours = builtin();
-        CardComparison theirs = new CardComparer(Engines.byName("ngspice"), CompareEngines.capacitance("ngspice"))
+        CardComparison theirs = new CardComparer(Engines.byName("ngspice"), org.cardwright.workflow.Engines.capacitanceByName("ngspice"))
                 .compare(read("cmp-a.lib", Dialect.NGSPICE), "cmp-a.lib", read("cmp-b.mod", Dialect.NGSPICE), "cmp-b.mod", plan());
         for (int k = 0; k < ours.forward().size(); k++) {
             assertEquals(ours.forward().get(k).difference(), theirs.forward().get(k).difference(), AGREEMENT);
