@@ -106,6 +106,8 @@ public final class VerificationJson {
             o.put("worst_current", t.worstCurrent());
             o.put("worst_at", t.worstSource());
             o.put("pass", t.pass());
+            o.put("points_with_stated_uncertainty", t.stated());
+            o.put("beyond_three_sigma", t.beyondThree());
             temps.add(o);
         }
         root.put("temperatures", temps);
@@ -118,6 +120,9 @@ public final class VerificationJson {
             o.put("measured_voltage", r.point().voltage());
             o.put("simulated_voltage", r.simulated());
             o.put("residual", r.residual());
+            if (!Double.isNaN(r.point().sigma())) {
+                o.put("stated_sigma", r.point().sigma());
+            }
             pts.add(o);
         }
         root.put("points", pts);

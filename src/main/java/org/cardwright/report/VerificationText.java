@@ -72,6 +72,12 @@ public final class VerificationText {
                     t.points(), Units.millivolts(t.rms(), 3), Units.millivolts(t.max(), 3),
                     Units.engineering(t.worstCurrent(), "A"), t.worstSource(), t.pass() ? "pass" : "FAIL"));
         }
+        for (TemperatureVerdict t : v.perTemperature()) {
+            if (t.stated() > 0) {
+                sb.append(String.format(Locale.ROOT, "  at %s degC, %d of %d points with a stated uncertainty lie beyond three of it%n",
+                        Units.celsius(t.temperature()), t.beyondThree(), t.stated()));
+            }
+        }
         return sb.append('\n').toString();
     }
 }

@@ -43,8 +43,16 @@ public final class Verifier {
         for (Map.Entry<Double, List<PointResidual>> e : byT.entrySet()) {
             double sum = 0;
             PointResidual worst = null;
+            int stated = 0;
+            int beyond = 0;
             for (PointResidual r : e.getValue()) {
                 sum += r.residual() * r.residual();
+                if (!Double.isNaN(r.point().sigma())) {
+                    stated++;
+                    if (Math.abs(r.residual()) > 3 * r.point().sigma()) {
+                        beyond++;
+                    }
+                }
                 if (worst == null || Math.abs(r.residual()) > Math.abs(worst.residual())) {
                     worst = r;
                 }
@@ -53,7 +61,7 @@ public final class Verifier {
             double max = Math.abs(worst.residual());
             verdicts.add(new TemperatureVerdict(e.getKey(), e.getValue().size(), rms, max, worst.point().current(),
                     worst.point().source() + ":" + worst.point().line(),
-                    rms <= tolerance.rms() && max <= tolerance.max()));
+                    rms <= tolerance.rms() && max <= tolerance.max(), stated, beyond));
         }
         return new Verification(card.name(), engine.describe(), tolerance, verdicts, residuals, notes);
     }

@@ -84,7 +84,12 @@ public final class VerifyWorkflow {
         Optional<Verification> forward = Optional.empty();
         if (!data.forward().isEmpty()) {
             List<MeasuredPoint> pts = new ArrayList<>();
-            data.forward().forEach(p -> pts.add(new MeasuredPoint(p.voltage(), p.current(), p.temperature(), p.source(), p.line())));
+            for (int i = 0; i < data.forward().size(); i++) {
+                var p = data.forward().get(i);
+                var raw = inputs.forward().get(i).point();
+                double sigma = raw.hasVoltageSigma() || raw.hasCurrentSigma() ? p.sigma() : Double.NaN;
+                pts.add(new MeasuredPoint(p.voltage(), p.current(), p.temperature(), p.source(), p.line(), sigma));
+            }
             forward = Optional.of(new Verifier(engine, request.tolerance()).verify(card, pts, List.of()));
         }
 
