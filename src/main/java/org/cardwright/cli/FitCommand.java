@@ -4,15 +4,12 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Optional;
-import java.util.OptionalDouble;
 import java.util.concurrent.Callable;
 import org.cardwright.card.Dialect;
 import org.cardwright.card.SpiceNumbers;
-import org.cardwright.fit.CapacitanceOptions;
 import org.cardwright.fit.DeviceKind;
 import org.cardwright.fit.FitSettings;
 import org.cardwright.fit.ParameterRule;
-import org.cardwright.model.Ngspice39;
 import org.cardwright.report.FitJson;
 import org.cardwright.report.FitText;
 import org.cardwright.workflow.FitOutcome;
@@ -57,9 +54,6 @@ final class FitCommand implements Callable<Integer> {
     @Option(names = "--set", paramLabel = "RULE", description = "A parameter rule, e.g. RS=0.5, ISR=free, IKF=off, N=1..2. Repeatable.")
     List<String> rules = new ArrayList<>();
 
-    @Option(names = "--temp", paramLabel = "DEGC", description = "Device temperature in degC for files without a T column.")
-    Double temperature;
-
     @Option(names = "--kind", paramLabel = "KIND", defaultValue = "silicon-pn",
             description = "Device kind for presets: silicon-pn, schottky, germanium, led, zener, base-emitter (default: ${DEFAULT-VALUE}).")
     String kind;
@@ -72,18 +66,6 @@ final class FitCommand implements Callable<Integer> {
 
     @Option(names = "--templates", paramLabel = "DIR", description = "Folder of card templates overriding the bundled ones.")
     Path templates;
-
-    @Option(names = "--stray-capacitance", paramLabel = "C", defaultValue = "0",
-            description = "Fixture/stray capacitance included in every C-V reading, subtracted by the fit (SPICE suffixes: 1.5p).")
-    String stray;
-
-    @Option(names = "--cv-frequency", paramLabel = "HZ", defaultValue = "1meg",
-            description = "Test frequency of the C-V readings (default: ${DEFAULT-VALUE}).")
-    String cvFrequency;
-
-    @Option(names = "--meter-resistance", paramLabel = "OHMS",
-            description = "Input resistance of the voltmeter in a series-resistor bench log, when the file does not state it (e.g. 10meg).")
-    String meterResistance;
 
     @Option(names = "--no-meter-correction",
             description = "Take bench-log currents as (Vsupply - Vmeter)/Rseries, without removing the meter's draw (for comparison only).")
@@ -100,6 +82,9 @@ final class FitCommand implements Callable<Integer> {
 
     @Option(names = "--force", description = "Replace existing output files.")
     boolean force;
+
+    @picocli.CommandLine.Mixin
+    DataOptions reading = new DataOptions();
 
     @picocli.CommandLine.Spec
     picocli.CommandLine.Model.CommandSpec spec;
@@ -126,11 +111,10 @@ final class FitCommand implements Callable<Integer> {
             parsed.add(ParameterRule.parse(r, SpiceNumbers::parse));
         }
         FitRequest request = new FitRequest(data, name, ds, out, Optional.ofNullable(json),
-                temperature == null ? OptionalDouble.empty() : OptionalDouble.of(temperature + Ngspice39.CELSIUS_TO_KELVIN),
+                reading.temperatureKelvin(),
                 DeviceKind.byOptionName(kind), parsed, digits, force, Optional.ofNullable(templates),
-                new CapacitanceOptions(SpiceNumbers.parse(stray), SpiceNumbers.parse(cvFrequency)),
-                new FitRequest.BenchOptions(meterResistance == null ? Double.NaN : SpiceNumbers.parse(meterResistance),
-                        !noMeterCorrection),
+                reading.capacitance(),
+                reading.bench(!noMeterCorrection),
                 selfHeatingRemedy(selfHeating), robust);
         FitOutcome outcome = new FitWorkflow().run(request, o -> FitJson.write(name, o));
         spec.commandLine().getOut().print(FitText.render(name, outcome));

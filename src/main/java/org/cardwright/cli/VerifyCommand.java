@@ -3,18 +3,13 @@ package org.cardwright.cli;
 import java.nio.file.Path;
 import java.util.List;
 import java.util.Optional;
-import java.util.OptionalDouble;
 import java.util.concurrent.Callable;
 import org.cardwright.card.Dialect;
-import org.cardwright.card.SpiceNumbers;
-import org.cardwright.fit.CapacitanceOptions;
-import org.cardwright.model.Ngspice39;
 import org.cardwright.report.VerificationJson;
 import org.cardwright.report.VerificationText;
 import org.cardwright.verify.Tolerance;
 import org.cardwright.verify.JunctionVerification;
 import org.cardwright.workflow.Engines;
-import org.cardwright.workflow.FitRequest;
 import org.cardwright.workflow.Inputs;
 import org.cardwright.workflow.VerifyRequest;
 import org.cardwright.workflow.VerifyWorkflow;
@@ -52,9 +47,6 @@ final class VerifyCommand implements Callable<Integer> {
             description = "Dialect to read the card in (default: ${DEFAULT-VALUE}).")
     String dialect;
 
-    @Option(names = "--temp", paramLabel = "DEGC", description = "Device temperature in degC for files without a T column.")
-    Double temperature;
-
     @Option(names = "--limit-rms", paramLabel = "MV", defaultValue = "2",
             description = "Largest RMS residual per temperature, in mV (default: ${DEFAULT-VALUE}).")
     double limitRms;
@@ -66,20 +58,11 @@ final class VerifyCommand implements Callable<Integer> {
     @Option(names = "--json", paramLabel = "FILE", description = "Also write the result, point by point, as JSON.")
     Path json;
 
-    @Option(names = "--stray-capacitance", paramLabel = "C", defaultValue = "0",
-            description = "Fixture/stray capacitance included in every C-V reading (SPICE suffixes: 1.5p).")
-    String stray;
-
-    @Option(names = "--cv-frequency", paramLabel = "HZ", defaultValue = "1meg",
-            description = "Test frequency of the C-V readings (default: ${DEFAULT-VALUE}).")
-    String cvFrequency;
-
-    @Option(names = "--meter-resistance", paramLabel = "OHMS",
-            description = "Input resistance of the voltmeter in a series-resistor bench log, when the file does not state it (e.g. 10meg).")
-    String meterResistance;
-
     @Option(names = "--force", description = "Replace an existing JSON file.")
     boolean force;
+
+    @picocli.CommandLine.Mixin
+    DataOptions reading = new DataOptions();
 
     @picocli.CommandLine.Spec
     picocli.CommandLine.Model.CommandSpec spec;
@@ -87,10 +70,10 @@ final class VerifyCommand implements Callable<Integer> {
     @Override
     public Integer call() throws Exception {
         VerifyRequest request = new VerifyRequest(card, data, engine, Optional.ofNullable(model), Dialect.byName(dialect),
-                temperature == null ? OptionalDouble.empty() : OptionalDouble.of(temperature + Ngspice39.CELSIUS_TO_KELVIN),
+                reading.temperatureKelvin(),
                 new Tolerance(limitRms * 1e-3, limitMax * 1e-3), Optional.ofNullable(json), force,
-                new CapacitanceOptions(SpiceNumbers.parse(stray), SpiceNumbers.parse(cvFrequency)),
-                new FitRequest.BenchOptions(meterResistance == null ? Double.NaN : SpiceNumbers.parse(meterResistance), true));
+                reading.capacitance(),
+                reading.bench(true));
         JunctionVerification v = new VerifyWorkflow().runAll(request, r -> VerificationJson.write(r, Inputs.displayName(card)));
         spec.commandLine().getOut().print(VerificationText.render(v));
         spec.commandLine().getOut().flush();

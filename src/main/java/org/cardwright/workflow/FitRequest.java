@@ -76,21 +76,26 @@ public record FitRequest(List<Path> data, String name, List<Dialect> dialects, P
     public record BenchOptions(double meterResistance, boolean correctLoading) {
         /** No meter resistance given; correction on. */
         public static final BenchOptions DEFAULT = new BenchOptions(Double.NaN, true);
+
+        /** Reader options for these bench settings and a device temperature for files without one [K]. */
+        public ReadOptions readOptions(OptionalDouble temperature) {
+            ReadOptions o = ReadOptions.defaults();
+            if (temperature.isPresent()) {
+                o = o.withDefaultTemperature(temperature.getAsDouble());
+            }
+            if (Double.isFinite(meterResistance)) {
+                o = o.withMeterResistance(meterResistance);
+            }
+            if (!correctLoading) {
+                o = o.withoutMeterLoadingCorrection();
+            }
+            return o;
+        }
     }
 
     /** The reader options this request implies. */
     public ReadOptions readOptions() {
-        ReadOptions o = ReadOptions.defaults();
-        if (temperature.isPresent()) {
-            o = o.withDefaultTemperature(temperature.getAsDouble());
-        }
-        if (Double.isFinite(bench.meterResistance())) {
-            o = o.withMeterResistance(bench.meterResistance());
-        }
-        if (!bench.correctLoading()) {
-            o = o.withoutMeterLoadingCorrection();
-        }
-        return o;
+        return bench.readOptions(temperature);
     }
 
     /** The card file for {@code d}: {@code OUT/NAME.DIALECT.lib}. */

@@ -42,16 +42,6 @@ public record VerifyRequest(Path card, List<Path> data, String engine, Optional<
 
     /** The reader options this request implies. */
     public org.cardwright.data.ReadOptions readOptions() {
-        org.cardwright.data.ReadOptions o = org.cardwright.data.ReadOptions.defaults();
-        if (temperature.isPresent()) {
-            o = o.withDefaultTemperature(temperature.getAsDouble());
-        }
-        if (Double.isFinite(bench.meterResistance())) {
-            o = o.withMeterResistance(bench.meterResistance());
-        }
-        if (!bench.correctLoading()) {
-            o = o.withoutMeterLoadingCorrection();
-        }
-        return o;
+        return bench.readOptions(temperature);
     }
 }
