@@ -21,7 +21,7 @@ import picocli.CommandLine.Parameters;
 @Command(name = "verify", mixinStandardHelpOptions = true, sortOptions = false,
         description = {
             "Re-simulates a card at every measured point and compares, per temperature: forward and breakdown",
-            "I-V by terminal voltage at the measured current (mV), C-V by capacitance (%). Exits 0 when every",
+            "I-V by terminal voltage at the measured current (mV), C-V by capacitance (%%). Exits 0 when every",
             "kind at every temperature is within its limits, 1 when not."},
         footerHeading = "%nExamples%n",
         footer = {
