@@ -28,7 +28,7 @@ final class TweakCommand implements Callable<Integer> {
     @Parameters(index = "0", paramLabel = "DEVICE_FILE", description = "The part's device file.")
     Path device;
 
-    @Option(names = "--set", required = true, paramLabel = "TWEAK", description = "The tweak, e.g. RS=0.6, RS=+10%, RS+=50m.")
+    @Option(names = "--set", required = true, paramLabel = "TWEAK", description = "The tweak, e.g. RS=0.6, RS=+10%%, RS+=50m.")
     String tweak;
 
     @Option(names = "--render-only", description = "Do not refit the other parameters; only change this one.")
