@@ -18,10 +18,10 @@ import picocli.CommandLine.Parameters;
             "a tweak in the library, add it to the device file (tweak: set: ...) and run build."},
         footerHeading = "%nExamples%n",
         footer = {
-            "  cardwright tweak fixtures/library/switching/SW1.device.yaml --set RS=+10%",
+            "  cardwright tweak fixtures/library/switching/SW1.device.yaml --set RS=+10%%",
             "  cardwright tweak rectifiers/RB4.device.yaml --set N=1.9 --render-only --out try",
             "",
-            "Forms: RS=0.6 pins RS at 0.6; RS=+10% or RS=-5% nudges the fitted value by a percentage;",
+            "Forms: RS=0.6 pins RS at 0.6; RS=+10%% or RS=-5%% nudges the fitted value by a percentage;",
             "RS+=50m or RS-=0.05 nudges it by an amount. Values take SPICE suffixes."})
 final class TweakCommand implements Callable<Integer> {
 
