@@ -234,11 +234,14 @@ public final class FitWorkflow {
         lines.add("model " + request.name() + ": junction diode for " + d.simulator() + ", written by cardwright "
                 + ToolVersion.get());
         lines.add("device kind: " + request.kind().description());
+        // paths in a card's header are relative to the card's own folder, so a card and its data can move
+        // together (and stay byte-identical) wherever the tree is checked out
+        Path home = request.outDir();
         for (MeasurementFile f : inputs.files()) {
-            lines.add("data: " + Inputs.displayName(f.file()) + " sha256 " + f.sha256());
+            lines.add("data: " + relative(home, f.file()) + " sha256 " + f.sha256());
         }
         for (RecoveryReader.Records f : inputs.recovery()) {
-            lines.add("data: " + Inputs.displayName(f.file()) + " sha256 " + f.sha256());
+            lines.add("data: " + relative(home, f.file()) + " sha256 " + f.sha256());
         }
         lines.add(String.format(Locale.ROOT, "fit: %d points (%d forward I-V%s); forward worst RMS residual %s mV",
                 full.points(), inputs.forward().size(), otherKinds(inputs), mv(forCard.worstRms(), 3)));
@@ -251,9 +254,17 @@ public final class FitWorkflow {
                     d.shortName(), leftOut.stream().map(Param::keyword).collect(Collectors.joining(" ")),
                     mv(forCard.worstRms(), 3), mv(full.worstRms(), 3)));
         }
-        lines.add("verify: cardwright verify " + request.cardPath(d).toString().replace('\\', '/') + " "
-                + request.data().stream().map(Inputs::displayName).collect(Collectors.joining(" ")));
+        lines.add("verify, from this card's folder: cardwright verify " + request.cardPath(d).getFileName() + " "
+                + request.data().stream().map(p -> relative(home, p)).collect(Collectors.joining(" ")));
         return lines;
+    }
+
+    /** {@code file} relative to {@code folder}, with forward slashes. */
+    static String relative(Path folder, Path file) {
+        Path a = folder.toAbsolutePath().normalize();
+        Path b = file.toAbsolutePath().normalize();
+        String r = a.getRoot() != null && a.getRoot().equals(b.getRoot()) ? a.relativize(b).toString() : b.toString();
+        return r.replace('\\', '/');
     }
 
     private static String mv(double volts, int decimals) {
