@@ -3,9 +3,7 @@ package org.cardwright.fit;
 import java.util.ArrayList;
 import java.util.EnumSet;
 import java.util.List;
-import java.util.Map;
 import java.util.Set;
-import java.util.TreeMap;
 import org.cardwright.model.DiodeAtTemperature;
 import org.cardwright.model.DiodeParameters;
 import org.cardwright.model.JunctionCapacitance;
@@ -55,20 +53,13 @@ public final class CapacitanceBlock implements ResidualBlock {
         this.strayCapacitance = strayCapacitance;
         this.frequency = frequency;
         this.options = options;
-        TreeMap<Double, Integer> index = new TreeMap<>();
-        for (CapacitancePoint pt : points) {
-            index.putIfAbsent(pt.temperature(), 0);
+        double[] ts = new double[this.points.length];
+        for (int i = 0; i < ts.length; i++) {
+            ts[i] = this.points[i].temperature();
         }
-        this.temperatures = new double[index.size()];
-        int k = 0;
-        for (Map.Entry<Double, Integer> e : index.entrySet()) {
-            temperatures[k] = e.getKey();
-            e.setValue(k++);
-        }
-        this.group = new int[this.points.length];
-        for (int i = 0; i < group.length; i++) {
-            group[i] = index.get(this.points[i].temperature());
-        }
+        TemperatureGroups groups = TemperatureGroups.of(ts);
+        this.temperatures = groups.temperatures();
+        this.group = groups.group();
     }
 
     @Override

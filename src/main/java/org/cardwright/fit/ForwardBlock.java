@@ -2,9 +2,7 @@ package org.cardwright.fit;
 
 import java.util.EnumSet;
 import java.util.List;
-import java.util.Map;
 import java.util.Set;
-import java.util.TreeMap;
 import org.cardwright.model.DiodeAtTemperature;
 import org.cardwright.model.DiodeParameters;
 import org.cardwright.model.DiodeSolver;
@@ -42,20 +40,13 @@ final class ForwardBlock implements ResidualBlock {
     ForwardBlock(List<FitPoint> points, SimulatorOptions options) {
         this.points = points.toArray(new FitPoint[0]);
         this.options = options;
-        TreeMap<Double, Integer> index = new TreeMap<>();
-        for (FitPoint pt : points) {
-            index.putIfAbsent(pt.temperature(), 0);
+        double[] ts = new double[this.points.length];
+        for (int i = 0; i < ts.length; i++) {
+            ts[i] = this.points[i].temperature();
         }
-        this.temperatures = new double[index.size()];
-        int k = 0;
-        for (Map.Entry<Double, Integer> e : index.entrySet()) {
-            temperatures[k] = e.getKey();
-            e.setValue(k++);
-        }
-        this.group = new int[points.size()];
-        for (int i = 0; i < group.length; i++) {
-            group[i] = index.get(this.points[i].temperature());
-        }
+        TemperatureGroups groups = TemperatureGroups.of(ts);
+        this.temperatures = groups.temperatures();
+        this.group = groups.group();
     }
 
     @Override
