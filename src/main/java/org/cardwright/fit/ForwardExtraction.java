@@ -498,12 +498,9 @@ public final class ForwardExtraction {
             case NBV -> new double[] {0.1, 100};
             case IBV -> new double[] {1e-15, 10};
             case TCV -> new double[] {-1, 1};
-            case TT -> new double[] {1e-18, 1e-2};
             case RTH0 -> new double[] {1e-3, 1e5};
-            case CJO -> new double[] {1e-18, 1e-5};
-            case VJ -> new double[] {0.05, 5};
-            case M -> new double[] {0.01, 0.9};
-            case FC -> new double[] {0, 0.95};
+            // the capacitance parameters keep the limits the C-V stage uses, one table for both
+            case CJO, VJ, M, FC, TT -> CapacitanceExtraction.defaultBounds(p);
             default -> new double[] {Double.NEGATIVE_INFINITY, Double.POSITIVE_INFINITY};
         };
     }
