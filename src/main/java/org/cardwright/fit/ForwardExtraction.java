@@ -42,6 +42,8 @@ public final class ForwardExtraction {
     private static final double RESIDUAL_FLOOR_SQUARED = 1e-6;
     /** The widest sweep must span at least this much current [decades]. */
     public static final double MIN_DECADES = 2;
+    /** Sweeps closer together than this in temperature count as one temperature for EG, XTI and TRS1 [K]. */
+    public static final double DISTINCT_TEMPERATURE_STEP = 5;
     /** IKF may lie at most this many times above the largest measured current [1]. */
     public static final double KNEE_REACH = 10;
     /** Recombination must carry at least this share of the smallest measured current [1]. */
@@ -92,13 +94,16 @@ public final class ForwardExtraction {
         double n0 = ruleValue(Param.N, sh.emission());
         double tRef = reference.get(0).temperature();
         int nTemps = sweeps.size();
+        // temperatures closer than this count as one for what they can determine: a 25.0 and a 25.3 degC sweep
+        // cannot separate EG from IS (common practice, no source)
+        int distinctTemps = distinctTemperatures(sweeps.keySet(), DISTINCT_TEMPERATURE_STEP);
 
-        boolean egFree = freeByData(Param.EG, nTemps >= 2, warnings,
+        boolean egFree = freeByData(Param.EG, distinctTemps >= 2, warnings,
                 "EG held at " + settings.kind().activationEnergy() + " eV (" + settings.kind().description()
-                        + "): a single temperature cannot determine it");
-        boolean xtiFree = freeByData(Param.XTI, nTemps >= 3, warnings,
+                        + "): a single temperature (or sweeps less than 5 K apart) cannot determine it");
+        boolean xtiFree = freeByData(Param.XTI, distinctTemps >= 3, warnings,
                 "XTI held at " + settings.kind().temperatureExponent() + " (" + settings.kind().description()
-                        + "): separating XTI from EG needs three or more temperatures");
+                        + "): separating XTI from EG needs three or more temperatures at least 5 K apart");
         double eg = ruleValue(Param.EG, settings.kind().activationEnergy());
         double xti = ruleValue(Param.XTI, settings.kind().temperatureExponent());
         double isNom;
@@ -164,7 +169,7 @@ public final class ForwardExtraction {
                     forced = true;
                 }
             }
-            if (term == RS_TEMPCO && (nTemps < 2)) {
+            if (term == RS_TEMPCO && (distinctTemps < 2)) {
                 if (forced) {
                     warnings.add("TRS1 was asked for but one temperature cannot determine it; held at 0");
                 }
@@ -296,6 +301,21 @@ public final class ForwardExtraction {
 
     private static String num(double v) {
         return String.format(Locale.ROOT, "%.4g", v);
+    }
+
+    /** Number of groups of temperatures, each group spanning less than {@code step} [K]. */
+    static int distinctTemperatures(java.util.Collection<Double> temperatures, double step) {
+        List<Double> t = new ArrayList<>(temperatures);
+        java.util.Collections.sort(t);
+        int groups = 0;
+        double start = Double.NEGATIVE_INFINITY;
+        for (double x : t) {
+            if (x - start >= step) {
+                groups++;
+                start = x;
+            }
+        }
+        return groups;
     }
 
     /** The sweep nearest TNOM among those spanning at least MIN_DECADES (else the widest). */

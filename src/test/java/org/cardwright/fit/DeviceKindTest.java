@@ -66,4 +66,15 @@ class DeviceKindTest {
                 .fit(ExtractionData.forwardOnly(sweep(DiodeParameters.of(Map.of(Param.IS, 1e-14, Param.RS, 1.0)), 25)));
         assertTrue(zener.warnings().stream().anyMatch(w -> w.contains("no reverse data reach breakdown")), zener.warnings().toString());
     }
+
+    @Test
+    void sweepsAFewTenthsOfADegreeApartCountAsOneTemperature() throws Exception {
+        DiodeParameters truth = DiodeParameters.of(Map.of(Param.IS, 2e-14, Param.N, 1.02, Param.RS, 0.8));
+        List<FitPoint> pts = new ArrayList<>(sweep(truth, 25.0));
+        pts.addAll(sweep(truth, 25.3));
+        FitResult r = new JunctionExtraction(FitSettings.defaults(), CapacitanceOptions.DEFAULT).fit(ExtractionData.forwardOnly(pts));
+        assertEquals(FittedParameter.Origin.PRESET, r.parameter(Param.EG).orElseThrow().origin(), "EG held, not fitted");
+        assertTrue(r.warnings().stream().anyMatch(w -> w.contains("less than 5 K apart")), r.warnings().toString());
+        assertEquals(2, ForwardExtraction.distinctTemperatures(List.of(300.0, 300.2, 310.0, 312.0), 5), "groups");
+    }
 }
