@@ -26,7 +26,7 @@ import picocli.CommandLine.Parameters;
         footerHeading = "%nExamples%n",
         footer = {
             "  cardwright verify models/KS1.ngspice.lib fixtures/demo/ks1-forward-*.csv",
-            "  cardwright verify models/KS1.ngspice.lib fixtures/demo/*.csv --engine ngspice --json check.json",
+            "  cardwright verify models/KS1.ngspice.lib fixtures/demo/ks1-*.csv --engine ngspice --json check.json",
             "  cardwright verify vendor.lib bench.csv --temp 25 --model D7 --limit-rms 5 --limit-max 15"})
 final class VerifyCommand implements Callable<Integer> {
 

@@ -84,9 +84,61 @@ public record Inputs(List<MeasurementFile> files, List<Located> forward, List<Lo
                         + " points with zero current, or with current and voltage of opposite signs, set aside");
             }
         }
+        setAsideCompliance(forward, notes);
+        setAsideCompliance(reverse, notes);
         return new Inputs(List.copyOf(files), List.copyOf(forward), List.copyOf(reverse), List.copyOf(capacitance),
                 List.copyOf(recovery), List.copyOf(notes));
     }
+
+    /**
+     * A source held at its current limit shows as several points of the same current at different voltages: the
+     * diode did not set that current, the instrument did. Such points (same file and temperature, current equal
+     * within {@value #SAME_CURRENT}, voltages more than {@value #PLATEAU_VOLTAGE} V apart) are set aside and named.
+     */
+    static void setAsideCompliance(List<Located> points, List<String> notes) {
+        java.util.Map<String, List<Located>> groups = new java.util.LinkedHashMap<>();
+        for (Located l : points) {
+            groups.computeIfAbsent(l.source() + "@" + l.point().temperature(), k -> new ArrayList<>()).add(l);
+        }
+        java.util.Set<Located> plateau = new java.util.LinkedHashSet<>();
+        for (List<Located> g : groups.values()) {
+            List<Located> sorted = new ArrayList<>(g);
+            sorted.sort(java.util.Comparator.comparingDouble(l -> Math.abs(l.point().current())));
+            int i = 0;
+            while (i < sorted.size()) {
+                int j = i;
+                double ref = Math.abs(sorted.get(i).point().current());
+                while (j + 1 < sorted.size() && Math.abs(sorted.get(j + 1).point().current()) - ref <= SAME_CURRENT * ref) {
+                    j++;
+                }
+                if (j > i) {
+                    double vmin = Double.POSITIVE_INFINITY;
+                    double vmax = Double.NEGATIVE_INFINITY;
+                    for (int k = i; k <= j; k++) {
+                        vmin = Math.min(vmin, sorted.get(k).point().voltage());
+                        vmax = Math.max(vmax, sorted.get(k).point().voltage());
+                    }
+                    if (vmax - vmin > PLATEAU_VOLTAGE) {
+                        StringBuilder lines = new StringBuilder();
+                        for (int k = i; k <= j; k++) {
+                            plateau.add(sorted.get(k));
+                            lines.append(k == i ? "" : ", ").append(sorted.get(k).point().line());
+                        }
+                        notes.add(String.format(java.util.Locale.ROOT,
+                                "%s: lines %s hold the current at %.6g A while the voltage moves %.4g V: a compliance limit, not the diode; set aside (a status column marks such points explicitly)",
+                                sorted.get(i).source(), lines, sorted.get(i).point().current(), vmax - vmin));
+                    }
+                }
+                i = j + 1;
+            }
+        }
+        points.removeAll(plateau);
+    }
+
+    /** Currents this close (relative) count as the same [1]. */
+    static final double SAME_CURRENT = 1e-4;
+    /** Voltages further apart than this at one current reveal a current limit [V]. */
+    static final double PLATEAU_VOLTAGE = 5e-3;
 
     /** The path as the user wrote it, with forward slashes, so that provenance is the same on every machine. */
     public static String displayName(Path p) {
