@@ -125,7 +125,7 @@ public record Inputs(List<MeasurementFile> files, List<Located> forward, List<Lo
                             lines.append(k == i ? "" : ", ").append(sorted.get(k).point().line());
                         }
                         notes.add(String.format(java.util.Locale.ROOT,
-                                "%s: lines %s hold the current at %.6g A while the voltage moves %.4g V: a compliance limit, not the diode; set aside (a status column marks such points explicitly)",
+                                "%s: lines %s hold the current at %.4g A while the voltage moves %.4g V: a compliance limit, not the diode; set aside (a status column marks such points explicitly)",
                                 sorted.get(i).source(), lines, sorted.get(i).point().current(), vmax - vmin));
                     }
                 }

@@ -23,6 +23,6 @@ class ComplianceTest {
         Inputs.setAsideCompliance(pts, notes);
         assertEquals(4, pts.size(), "the three points at 0.1 A are gone, the other four stay");
         assertEquals(1, notes.size());
-        assertTrue(notes.get(0).startsWith("smu.csv: lines 13, 14, 15 hold the current at 0.1 A"), notes.get(0));
+        assertTrue(notes.get(0).startsWith("smu.csv: lines 13, 14, 15 hold the current at 0.1000 A"), notes.get(0));
     }
 }
