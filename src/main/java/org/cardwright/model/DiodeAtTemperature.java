@@ -25,6 +25,7 @@ package org.cardwright.model;
  * @param gradingClamped        true when ngspice would clamp M to 0.9 (and warn)
  * @param potentialClamped      true when ngspice would clamp VJ(T) to 1/FC (and warn)
  * @param capacitanceF1         F1 of the linear capacitance extension above FC·VJ, from the unclamped VJ(T) [V]
+ * @param flavour               whose equations evaluate the junction
  */
 public record DiodeAtTemperature(
         double temperature,
@@ -46,7 +47,8 @@ public record DiodeAtTemperature(
         double gmin,
         boolean gradingClamped,
         boolean potentialClamped,
-        double capacitanceF1) {
+        double capacitanceF1,
+        Flavour flavour) {
 
     /** True when the recombination term (ISR) is active. */
     public boolean hasRecombination() {

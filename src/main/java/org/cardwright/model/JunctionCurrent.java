@@ -72,6 +72,40 @@ public final class JunctionCurrent {
     }
 
     /**
+     * Xyce's forward branch: I = In sqrt(IKF/(IKF + In)) + Irec, with In = Shockley + GMIN vd; the
+     * recombination current is not scaled (shared/reference/diode-model.md section 8).
+     */
+    private static double xyceForward(DiodeAtTemperature d, double vd, double shockley, double gShockley,
+                                      boolean wantConductance, double[] both) {
+        double in = shockley + d.gmin() * vd;
+        double gin = gShockley + d.gmin();
+        double i = in;
+        double g = gin;
+        if (d.hasForwardKnee()) {
+            double ikf = d.forwardKneeCurrent();
+            double root = Math.sqrt(ikf / (ikf + in));
+            i = in * root;
+            g = gin * root * (1 - in / (2 * (ikf + in)));
+        }
+        if (d.hasRecombination()) {
+            double vtr = d.recombinationEmission() * d.thermalVoltage();
+            double er = Math.exp(vd / vtr);
+            double u = 1 - vd / d.junctionPotential();
+            double mHalf = d.gradingCoefficient() / 2;
+            double t = u * u + 0.005;
+            double f = Math.pow(t, mHalf);
+            double irec = d.recombinationCurrent() * (er - 1);
+            i += irec * f;
+            g += d.recombinationCurrent() * er / vtr * f - irec * d.gradingCoefficient() * u * (f / t) / d.junctionPotential();
+        }
+        if (both != null) {
+            both[1] = g;
+            return i;
+        }
+        return wantConductance ? g : i;
+    }
+
+    /**
      * Current and its exact derivative in one evaluation (the solvers need both at every step).
      *
      * @param d   parameters at the device temperature
@@ -92,10 +126,13 @@ public final class JunctionCurrent {
         double vte = d.emissionCoefficient() * vt;
         double i;
         double g;
-        if (vd >= -3 * vte) {
+        if (vd >= -3 * vte || !d.flavour().spiceReverse()) {
             double e = Math.exp(vd / vte);
             i = is * (e - 1);
             g = is * e / vte;
+            if (d.flavour().xyceKnee()) {
+                return xyceForward(d, vd, i, g, wantConductance, both);
+            }
             if (d.hasRecombination()) {
                 double vtr = d.recombinationEmission() * vt;
                 double er = Math.exp(vd / vtr);

@@ -34,14 +34,15 @@ public final class TemperatureLaws {
         double t = kelvin;
         double tnom = p.nominalTemperature();
         double dt = t - tnom;
-        double vt = Ngspice39.thermalVoltage(t);
+        double kq = options.flavour().kOverQ();
+        double vt = kq * t;
         double n = p.get(Param.N);
 
-        double is = saturationCurrentAt(p.get(Param.IS), n, p.get(Param.EG), p.get(Param.XTI), t, tnom);
+        double is = saturationCurrentAt(p.get(Param.IS), n, p.get(Param.EG), p.get(Param.XTI), t, tnom, kq);
         double isr = 0;
         double nr = p.get(Param.NR);
         if (p.isGiven(Param.ISR)) {
-            isr = saturationCurrentAt(p.get(Param.ISR), nr, p.get(Param.EG), p.get(Param.XTI), t, tnom);
+            isr = saturationCurrentAt(p.get(Param.ISR), nr, p.get(Param.EG), p.get(Param.XTI), t, tnom, kq);
         }
         double rs = p.get(Param.RS) * (1 + p.get(Param.TRS1) * dt + p.get(Param.TRS2) * dt * dt);
 
@@ -54,9 +55,9 @@ public final class TemperatureLaws {
 
         // junction potential and capacitance, SPICE3 law (TLEVC = 0)
         double vj = p.get(Param.VJ);
-        double phiNom = potentialShift(tnom);
+        double phiNom = potentialShift(tnom, kq);
         double vj0 = (vj - phiNom) * Ngspice39.REFERENCE_TEMPERATURE / tnom;
-        double vjT = potentialShift(t) + t / Ngspice39.REFERENCE_TEMPERATURE * vj0;
+        double vjT = potentialShift(t, kq) + t / Ngspice39.REFERENCE_TEMPERATURE * vj0;
         double gOld = (vj - vj0) / vj0;
         double gNew = (vjT - vj0) / vj0;
         double cjT = p.get(Param.CJO)
@@ -71,7 +72,7 @@ public final class TemperatureLaws {
 
         double bvEff = Double.POSITIVE_INFINITY;
         double nbv = p.get(Param.NBV);
-        if (p.isGiven(Param.BV)) {
+        if (p.isGiven(Param.BV) && options.flavour().spiceReverse()) {
             double bv = p.get(Param.BV);
             double tcv = p.get(Param.TCV);
             double bvT = p.get(Param.TLEV) == 0 ? bv - tcv * dt : bv * (1 - tcv * dt);
@@ -81,7 +82,8 @@ public final class TemperatureLaws {
         return new DiodeAtTemperature(t, vt, is, n, isr, nr,
                 p.isGiven(Param.IKF) ? p.get(Param.IKF) : Double.POSITIVE_INFINITY,
                 p.isGiven(Param.IKR) ? p.get(Param.IKR) : Double.POSITIVE_INFINITY,
-                rs, bvEff, nbv, vjT, m, cjT, fc, p.get(Param.TT), options.gmin(), mClamped, vjClamped, f1);
+                rs, bvEff, nbv, vjT, m, cjT, fc, p.get(Param.TT), options.gmin(), mClamped, vjClamped, f1,
+                options.flavour());
     }
 
     /**
@@ -112,8 +114,8 @@ public final class TemperatureLaws {
     }
 
     /** phi(T) = -3 Vt ln(T/Tref) + Eg(T) - 1.1150877 T/Tref, the SPICE3 junction-potential shift [V]. */
-    private static double potentialShift(double t) {
-        double vt = Ngspice39.thermalVoltage(t);
+    private static double potentialShift(double t, double kOverQ) {
+        double vt = kOverQ * t;
         double ratio = t / Ngspice39.REFERENCE_TEMPERATURE;
         return -3 * vt * Math.log(ratio) + Ngspice39.bandGap(t) - BAND_GAP_AT_REFERENCE * ratio;
     }
