@@ -419,7 +419,7 @@ public final class ForwardExtraction {
      * current by a quarter), and the recombination current at least {@value #RECOMBINATION_SHARE} of the
      * current at the smallest measured point. Returns why not, or null when it does.
      */
-    private static String actsOutsideData(Term term, DiodeParameters p, List<FitPoint> points) {
+    private String actsOutsideData(Term term, DiodeParameters p, List<FitPoint> points) {
         if (term == HIGH_INJECTION) {
             double top = points.stream().mapToDouble(FitPoint::current).max().orElseThrow();
             double ikf = p.get(Param.IKF);
@@ -431,7 +431,7 @@ public final class ForwardExtraction {
         } else if (term == SELF_HEATING) {
             double worst = 0;
             for (FitPoint pt : points) {
-                worst = Math.max(worst, SelfHeating.riseAtCurrent(p, pt.temperature(), pt.current(), SimulatorOptions.NGSPICE_DEFAULTS));
+                worst = Math.max(worst, SelfHeating.riseAtCurrent(p, pt.temperature(), pt.current(), settings.options()));
             }
             if (worst < MIN_VISIBLE_RISE) {
                 return String.format(Locale.ROOT,
@@ -440,8 +440,8 @@ public final class ForwardExtraction {
             }
         } else if (term == RECOMBINATION) {
             FitPoint low = points.stream().min(Comparator.comparingDouble(FitPoint::current)).orElseThrow();
-            DiodeAtTemperature d = TemperatureLaws.at(p, low.temperature(), SimulatorOptions.NGSPICE_DEFAULTS);
-            DiodeAtTemperature without = TemperatureLaws.at(p.without(Param.ISR), low.temperature(), SimulatorOptions.NGSPICE_DEFAULTS);
+            DiodeAtTemperature d = TemperatureLaws.at(p, low.temperature(), settings.options());
+            DiodeAtTemperature without = TemperatureLaws.at(p.without(Param.ISR), low.temperature(), settings.options());
             double vd = DiodeSolver.junctionVoltageAtCurrent(d, low.current());
             double share = 1 - JunctionCurrent.current(without, vd) / low.current();
             if (share < RECOMBINATION_SHARE) {
