@@ -13,7 +13,6 @@ import org.cardwright.model.DiodeParameters;
 import org.cardwright.model.DiodeSolver;
 import org.cardwright.model.JunctionCurrent;
 import org.cardwright.model.SelfHeating;
-import org.cardwright.model.SimulatorOptions;
 import org.cardwright.model.TemperatureLaws;
 import org.cardwright.model.Ngspice39;
 import org.cardwright.model.Param;
