@@ -25,7 +25,8 @@ import org.cardwright.model.Param;
  * <p>Every line counts; there is no title line to skip. Accepted: {@code *} comment lines, inline comments after
  * {@code ;}, {@code $} or {@code //}, {@code +} continuation lines, parentheses or none, any letter case,
  * {@code key=value} with or without blanks around {@code =}, SPICE suffixes and the dialect's aliases. Statements
- * other than {@code .model} are passed over. Values become SI at this boundary (TNOM: degrees C to kelvin).
+ * other than {@code .model} are passed over. Values become SI at this boundary (TNOM: degrees C to kelvin), and
+ * take their ngspice 39 meaning ({@link Dialect#fromCard}: a gnucap card's XTI is read as N times the value).
  *
  * <p>A keyword that is not a parameter the dialect carries is not taken; it is reported, with its value as
  * written, in {@link ParsedCard#notices()}. Faults are a {@link CardFormatException} naming source, line and text.
@@ -164,7 +165,8 @@ public final class CardReader {
             take(key, value, raw, source, dialect, values, givenAt, notices);
             i += 3;
         }
-        return new ParsedCard(name.text(), DiodeParameters.of(values), notices, comments);
+        // back to ngspice meaning (a gnucap card's XTI is XTI/N): the rest of the program sees nothing else
+        return new ParsedCard(name.text(), dialect.fromCard(DiodeParameters.of(values)), notices, comments);
     }
 
     private static void take(Token key, Token value, String raw, String source, Dialect dialect,

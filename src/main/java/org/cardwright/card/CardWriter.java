@@ -30,7 +30,8 @@ import org.cardwright.model.Param;
  * <p>Every number is formatted here, once, by {@link SpiceNumbers}; a template receives strings only:
  * {@code name}, {@code dialect} (the simulator), {@code provenance} (a list of lines) and {@code parameters}
  * (a list of entries with {@code keyword} and {@code value}), the given parameters the dialect carries, in
- * {@link Param} order. The output uses {@code \n} line endings and holds nothing that varies between runs, so the
+ * {@link Param} order, after the dialect's value conversion ({@link Dialect#toCard}: a gnucap card states
+ * XTI/N as XTI). The output uses {@code \n} line endings and holds nothing that varies between runs, so the
  * same card gives the same bytes.
  *
  * <p>Templates are looked up in the user's template folder first (when given), then among the templates bundled
@@ -107,7 +108,8 @@ public final class CardWriter {
             throw new IllegalArgumentException("significant digits must lie in [" + SpiceNumbers.MIN_SIGNIFICANT_DIGITS
                     + ", " + SpiceNumbers.MAX_SIGNIFICANT_DIGITS + "], got " + significantDigits);
         }
-        DiodeParameters parameters = card.parameters();
+        // the card states values in the dialect's meaning; the rest of the program holds ngspice meaning
+        DiodeParameters parameters = dialect.toCard(card.parameters());
         List<Map<String, String>> lines = new ArrayList<>();
         List<Param> dropped = new ArrayList<>();
         for (Param p : Param.values()) {

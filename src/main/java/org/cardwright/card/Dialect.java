@@ -11,6 +11,7 @@ import java.util.Map;
 import java.util.Optional;
 import java.util.Set;
 import java.util.stream.Collectors;
+import org.cardwright.model.DiodeParameters;
 import org.cardwright.model.Param;
 
 /**
@@ -20,6 +21,11 @@ import org.cardwright.model.Param;
  * <p>The keyword tables come from the simulators' public sources (ngspice 39 {@code src/spicelib/devices/dio},
  * gnucap 2017.10.03 {@code apps/d_diode.model}, SPICE3f5) and were checked by loading cards into the installed
  * ngspice 39 and gnucap; {@code DialectSimulatorTest} repeats that check.
+ *
+ * <p>Inside the program every parameter has its ngspice 39 meaning. Where a simulator gives the same keyword
+ * another meaning, {@link #toCard} converts a value on its way onto the card and {@link #fromCard} converts it
+ * back when a card is read; today that is only gnucap's XTI (see {@link #GNUCAP}). docs/dialects.md lists what
+ * each simulator does differently, converted or not.
  */
 public enum Dialect {
     /** ngspice 39, junction diode level 1: every parameter cardwright models. */
@@ -41,6 +47,11 @@ public enum Dialect {
     /**
      * gnucap 2017.10.03 diode. gnucap accepts BV and IBV but ignores them, so they are not carried: a card never
      * holds a parameter its simulator would silently ignore.
+     *
+     * <p>gnucap raises T/Tnom to the power XTI in its saturation-current law where ngspice raises it to XTI/N, so
+     * a gnucap card carries XTI/N under the keyword XTI (and a card read back gives XTI = N times the written
+     * value). Not convertible, and therefore different away from TNOM: gnucap's older k and q, its missing
+     * temperature scaling of CJO and VJ, its missing GMIN and breakdown (see docs/dialects.md).
      */
     GNUCAP("gnucap", "gnucap 2017.10.03", "gnucap.ftl",
             EnumSet.of(Param.IS, Param.N, Param.RS, Param.TT, Param.CJO, Param.VJ, Param.M, Param.EG,
@@ -48,6 +59,12 @@ public enum Dialect {
             Map.of("PB", Param.VJ, "MJ", Param.M, "EGAP", Param.EG),
             List.of("BV", "IBV", "KF", "AF", "CJSW", "CJS", "PBSW", "PBS", "MJSW", "MJS",
                     "GPARALLEL", "GP", "FLAGS", "MOS_LEVEL"));
+
+    /**
+     * The XTI gnucap 2017.10.03 uses when a card gives none [1]. Checked by running: a card without XTI and one
+     * with XTI=3 give the same forward voltage at 125 degC ({@code GnucapCardTest}).
+     */
+    static final double GNUCAP_DEFAULT_XTI = 3.0;
 
     private final String shortName;
     private final String simulator;
@@ -120,6 +137,45 @@ public enum Dialect {
     /** True when {@code keyword} (any case) is in {@link #knownUnsupportedKeywords()}. */
     public boolean isKnownUnsupported(String keyword) {
         return knownUnsupported.contains(keyword.trim().toUpperCase(Locale.ROOT));
+    }
+
+    /**
+     * The values a card in this dialect must state so that its simulator computes what ngspice 39 computes from
+     * {@code ngspiceMeaning}, as far as a value can do that. Identity for ngspice and SPICE3f5 (whose XTI
+     * already enters as XTI/N). For gnucap: XTI becomes XTI/N, and it is stated whenever N differs from 1, even
+     * when not given, because gnucap's own default (XTI = 3 on T/Tnom) would mean ngspice XTI = 3N.
+     *
+     * @param ngspiceMeaning parameters in ngspice 39 meaning [SI]
+     * @return the values to write on the card [SI]
+     */
+    public DiodeParameters toCard(DiodeParameters ngspiceMeaning) {
+        if (this != GNUCAP) {
+            return ngspiceMeaning;
+        }
+        double n = ngspiceMeaning.get(Param.N);
+        if (!ngspiceMeaning.isGiven(Param.XTI) && n == 1) {
+            return ngspiceMeaning;
+        }
+        return ngspiceMeaning.with(Param.XTI, ngspiceMeaning.get(Param.XTI) / n);
+    }
+
+    /**
+     * The ngspice 39 meaning of the values a card in this dialect states; the inverse of {@link #toCard}.
+     * Identity for ngspice and SPICE3f5. For gnucap: XTI = N times the card's XTI; a gnucap card with N other
+     * than 1 and no XTI means gnucap's default XTI = 3, so XTI = 3N in ngspice meaning, given from then on.
+     *
+     * @param cardValues the values as written on the card [SI]
+     * @return the same parameters in ngspice 39 meaning [SI]
+     */
+    public DiodeParameters fromCard(DiodeParameters cardValues) {
+        if (this != GNUCAP) {
+            return cardValues;
+        }
+        double n = cardValues.get(Param.N);
+        if (cardValues.isGiven(Param.XTI)) {
+            return cardValues.with(Param.XTI, cardValues.get(Param.XTI) * n);
+        }
+        return n == 1 ? cardValues : cardValues.with(Param.XTI, GNUCAP_DEFAULT_XTI * n);
     }
 
     /**
