@@ -134,11 +134,16 @@ final class ForwardBlock implements ResidualBlock {
                 continue;
             }
             double h = layout.isLog(j) ? STEP : STEP * Math.max(Math.abs(x[j]), 1e-3);
-            steps[j] = h;
+            double[] span = layout.differencePoints(j, x[j], h);
+            if (!(span[1] > span[0])) {
+                continue;
+            }
+            // steps[j] is half the span, as the central-difference formula below divides by 2·steps[j]
+            steps[j] = 0.5 * (span[1] - span[0]);
             double[] xp = x.clone();
-            xp[j] += h;
+            xp[j] = span[1];
             double[] xm = x.clone();
-            xm[j] -= h;
+            xm[j] = span[0];
             plus[j] = scaled(layout.toParameters(xp));
             minus[j] = scaled(layout.toParameters(xm));
         }

@@ -81,6 +81,16 @@ public final class FreeParameters {
         return x;
     }
 
+    /**
+     * The two points of a central difference in coordinate {@code j}, kept inside the bounds (one-sided at a
+     * bound, so that a parameter at its limit, RS at 0 say, is never evaluated outside it): {low, high}.
+     */
+    double[] differencePoints(int j, double internal, double step) {
+        double lo = Math.max(internal - step, lower[j]);
+        double hi = Math.min(internal + step, upper[j]);
+        return new double[] {lo, hi};
+    }
+
     /** True when {@code x[j]} sits on (or within a hair of) one of its bounds. */
     boolean atBound(int j, double internal) {
         double span = Math.max(1e-12, 1e-9 * Math.max(1, Math.abs(internal)));

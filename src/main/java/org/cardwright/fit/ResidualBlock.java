@@ -39,14 +39,18 @@ public interface ResidualBlock {
                 continue;
             }
             double h = layout.isLog(j) ? 1e-6 : 1e-6 * Math.max(Math.abs(x[j]), 1e-3);
+            double[] at = layout.differencePoints(j, x[j], h);
+            if (!(at[1] > at[0])) {
+                continue;
+            }
             double[] xp = x.clone();
-            xp[j] += h;
+            xp[j] = at[1];
             double[] xm = x.clone();
-            xm[j] -= h;
+            xm[j] = at[0];
             double[] rp = residuals(layout.toParameters(xp));
             double[] rm = residuals(layout.toParameters(xm));
             for (int i = 0; i < n; i++) {
-                jac[i][j] = (rp[i] - rm[i]) / (2 * h);
+                jac[i][j] = (rp[i] - rm[i]) / (at[1] - at[0]);
             }
         }
         return jac;

@@ -11,7 +11,7 @@ import org.cardwright.model.Ngspice39;
  * Sorting reverse points into breakdown and leakage, and closed-form breakdown start values.
  *
  * <p>A point is in breakdown where the current rises faster than the tenth power of the voltage: the local
- * exponent d ln|I| / d ln|V| exceeds 10. Leakage below breakdown (ohmic or generation-like, exponents near 1)
+ * exponent d ln|I| / d ln|V|, taken between the point and its neighbour at the next smaller voltage, exceeds 10. Leakage below breakdown (ohmic or generation-like, exponents near 1)
  * stays far below that; an avalanche or zener knee lies far above it (common practice, no source).
  */
 public final class ReverseAnalysis {
@@ -37,8 +37,10 @@ public final class ReverseAnalysis {
             List<ReversePoint> s = new ArrayList<>(sweep);
             s.sort(Comparator.comparingDouble(r -> -r.voltage()));
             for (int i = 0; i < s.size(); i++) {
-                int a = Math.max(0, i - 1);
-                int b = Math.min(s.size() - 1, i + 1);
+                // the exponent toward the next smaller voltage (toward the next larger for the first point): the
+                // last leakage point must not borrow the steep step up to the first breakdown point
+                int a = i > 0 ? i - 1 : 0;
+                int b = i > 0 ? i : Math.min(s.size() - 1, 1);
                 double exponent = 0;
                 if (b > a) {
                     double dl = Math.log(s.get(b).current() / s.get(a).current());

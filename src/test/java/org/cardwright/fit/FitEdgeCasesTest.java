@@ -1,0 +1,47 @@
+package org.cardwright.fit;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Map;
+import org.cardwright.model.DiodeAtTemperature;
+import org.cardwright.model.DiodeParameters;
+import org.cardwright.model.DiodeSolver;
+import org.cardwright.model.Param;
+import org.cardwright.model.SimulatorOptions;
+import org.cardwright.model.TemperatureLaws;
+import org.junit.jupiter.api.Test;
+
+/** Edges that real data reach: a parameter at its bound, and a gap between leakage and breakdown. */
+class FitEdgeCasesTest {
+
+    @Test
+    void aPartWithoutSeriesResistanceFitsWithRsAtItsBound() throws Exception {
+        DiodeParameters truth = DiodeParameters.of(Map.of(Param.IS, 1e-14, Param.N, 1.0));
+        DiodeAtTemperature d = TemperatureLaws.at(truth, 300.15, SimulatorOptions.NGSPICE_DEFAULTS);
+        List<FitPoint> pts = new ArrayList<>();
+        for (int k = 0; k <= 48; k++) {
+            double i = 1e-9 * Math.pow(10, k / 8.0);
+            pts.add(new FitPoint(i, DiodeSolver.voltageAtCurrent(d, i), 300.15, 1e-3, "synthetic", k + 1));
+        }
+        FitResult r = new JunctionExtraction(FitSettings.defaults(), CapacitanceOptions.DEFAULT).fit(ExtractionData.forwardOnly(pts));
+        assertEquals(0.0, r.parameters().get(Param.RS), 1e-6, "RS at (or next to) zero");
+        assertEquals(1e-14, r.parameters().get(Param.IS), 1e-17);
+    }
+
+    @Test
+    void theLastLeakagePointBeforeAGapIsNotTakenForBreakdown() {
+        List<ReversePoint> rev = new ArrayList<>();
+        double[][] rows = {{-1, -1.1e-12}, {-2, -2.1e-12}, {-3, -3.2e-12},
+            {-6.20, -1e-5}, {-6.25, -1e-4}, {-6.30, -1e-3}, {-6.36, -1e-2}};
+        for (int i = 0; i < rows.length; i++) {
+            rev.add(new ReversePoint(rows[i][0], rows[i][1], 298.15, 1e-3, "zener.csv", i + 2));
+        }
+        ReverseAnalysis.Split s = ReverseAnalysis.split(rev);
+        assertEquals(4, s.breakdown().size(), "the four points from -6.2 V");
+        assertEquals(3, s.leakage().size(), "-1, -2 and -3 V");
+        assertTrue(s.leakage().stream().anyMatch(p -> p.voltage() == -3));
+    }
+}
