@@ -46,4 +46,30 @@ public record FitResult(DiodeParameters parameters, List<FittedParameter> fitted
     public double worstRms() {
         return residuals.stream().mapToDouble(SweepResiduals::rms).max().orElse(0);
     }
+
+    /**
+     * What this result gives up against {@code better}, kind by kind: the worst RMS residual of each data kind
+     * in both, e.g. "forward 20.312 mV (0.254 mV with every term), breakdown 174.1 mV (0.7 mV with every term)".
+     */
+    public String costAgainst(FitResult better) {
+        StringBuilder sb = new StringBuilder(String.format(java.util.Locale.ROOT, "forward %.3f mV (%.3f mV with every term)",
+                worstRms() * 1e3, better.worstRms() * 1e3));
+        java.util.Map<String, Double> mine = worstOtherByKind();
+        java.util.Map<String, Double> theirs = better.worstOtherByKind();
+        for (java.util.Map.Entry<String, Double> e : mine.entrySet()) {
+            String unit = otherResiduals.stream().filter(k -> k.kind().equals(e.getKey())).findFirst().orElseThrow().unit();
+            sb.append(String.format(java.util.Locale.ROOT, ", %s %.3f %s (%.3f %s with every term)", e.getKey(), e.getValue(),
+                    unit, theirs.getOrDefault(e.getKey(), Double.NaN), unit));
+        }
+        return sb.toString();
+    }
+
+    /** Worst RMS residual of each other data kind, in that kind's unit. */
+    private java.util.Map<String, Double> worstOtherByKind() {
+        java.util.Map<String, Double> m = new java.util.LinkedHashMap<>();
+        for (KindResiduals k : otherResiduals) {
+            m.merge(k.kind(), k.rms(), Math::max);
+        }
+        return m;
+    }
 }

@@ -171,6 +171,7 @@ public final class JunctionExtraction {
                 }
             }
             warnings.addAll(cf.warnings());
+            decisions.addAll(cf.terms());
             blocks.add(new CapacitanceBlock(data.capacitance(), capacitanceOptions.strayCapacitance(),
                     capacitanceOptions.frequency(), settings.options()));
         }
@@ -194,12 +195,24 @@ public final class JunctionExtraction {
             joint = Optimiser.run(blocks, params, new ArrayList<>(free), forward::bounds);
         }
         leakageCheck(split.leakage(), joint.parameters(), warnings);
+        for (ParameterRule r : settings.rules().values()) {
+            boolean varies = r.kind() == ParameterRule.Kind.FREE || r.kind() == ParameterRule.Kind.BOUNDED;
+            if (varies && !joint.layout().free().contains(r.param())) {
+                warnings.add(String.format(Locale.ROOT,
+                        "your rule %s had no effect: none of the data given determine %s, so it was not fitted",
+                        r.text(), r.param()));
+            }
+        }
         selfHeatingNote(data.forward(), joint.parameters(), warnings);
         return ResultAssembly.assemble(settings, blocks, joint, data.forward(), decisions, warnings, start, forward::bounds);
     }
 
     private DiodeParameters put(DiodeParameters p, Map<Param, Double> start, Param q, double value) {
         ParameterRule r = settings.rule(q);
+        if (r != null && r.kind() == ParameterRule.Kind.OFF) {
+            // switched off (by the user, or because the target dialect cannot carry it): not given at all
+            return p.without(q);
+        }
         double v = r != null && Double.isFinite(r.value()) ? r.value() : value;
         start.put(q, v);
         return p.with(q, v);

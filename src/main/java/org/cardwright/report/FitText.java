@@ -58,9 +58,8 @@ public final class FitText {
         for (FitOutcome.WrittenCard c : outcome.cards()) {
             sb.append("wrote ").append(c.file().toString().replace('\\', '/')).append(" (").append(c.dialect().simulator());
             if (!c.leftOut().isEmpty()) {
-                sb.append(String.format(Locale.ROOT, "; refitted without %s, worst RMS %s mV instead of %s mV",
-                        String.join(" ", c.leftOut().stream().map(Param::keyword).toList()),
-                        Units.millivolts(c.refit().orElseThrow().worstRms(), 3), Units.millivolts(r.worstRms(), 3)));
+                sb.append("; refitted without ").append(String.join(" ", c.leftOut().stream().map(Param::keyword).toList()))
+                        .append(", worst RMS ").append(c.refit().orElseThrow().costAgainst(r));
             }
             sb.append(")\n");
         }

@@ -249,10 +249,8 @@ public final class FitWorkflow {
             lines.add("rules: " + request.rules().stream().map(ParameterRule::text).collect(Collectors.joining(" ")));
         }
         if (!leftOut.isEmpty()) {
-            lines.add(String.format(Locale.ROOT,
-                    "%s cannot carry %s: refitted without; worst RMS residual %s mV instead of %s mV",
-                    d.shortName(), leftOut.stream().map(Param::keyword).collect(Collectors.joining(" ")),
-                    mv(forCard.worstRms(), 3), mv(full.worstRms(), 3)));
+            lines.add(d.shortName() + " cannot carry " + leftOut.stream().map(Param::keyword).collect(Collectors.joining(" "))
+                    + ": refitted without; worst RMS residual " + forCard.costAgainst(full));
         }
         lines.add("verify, from this card's folder: cardwright verify " + request.cardPath(d).getFileName() + " "
                 + request.data().stream().map(p -> relative(home, p)).collect(Collectors.joining(" ")));
