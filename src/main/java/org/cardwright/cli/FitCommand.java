@@ -22,10 +22,11 @@ import picocli.CommandLine.Parameters;
 /** {@code cardwright fit}: measurements in, model cards out. */
 @Command(name = "fit", mixinStandardHelpOptions = true, sortOptions = false,
         description = {
-            "Fits the diode model to forward I-V data at one or more temperatures, all at once, and writes a",
-            "card per dialect (default: ngspice and spice3) as OUT/NAME.DIALECT.lib.",
-            "Optional terms (recombination ISR/NR, high injection IKF, RS temperature coefficient TRS1) go in",
-            "only when the data call for them; the summary says which and why."},
+            "Fits one diode card to everything measured on a part, at every temperature at once: forward I-V,",
+            "reverse breakdown, C-V and reverse-recovery records; series-resistor bench logs are corrected for",
+            "the meter's draw. Writes a card per dialect (default: ngspice and spice3) as OUT/NAME.DIALECT.lib.",
+            "Optional terms (recombination ISR/NR, high injection IKF, TRS1, self-heating RTH0) go in only when",
+            "the data call for them; the summary says which and why."},
         footerHeading = "%nExamples%n",
         footer = {
             "  cardwright fit fixtures/demo/ks1-forward-*.csv --name KS1 --out models",
@@ -73,7 +74,7 @@ final class FitCommand implements Callable<Integer> {
 
     @Option(names = "--self-heating", paramLabel = "HOW", defaultValue = "fit",
             description = "When the junction warms itself at high current: fit (carry RTH0 on the card) or exclude "
-                    + "(leave out points warmed by more than 1 K, fit without RTH0). Default: ${DEFAULT-VALUE}.")
+                    + "(leave out the points whose voltage the warming moves by more than 0.1 mV, fit without RTH0). Default: ${DEFAULT-VALUE}.")
     String selfHeating;
 
     @Option(names = "--robust",

@@ -27,7 +27,7 @@ import picocli.CommandLine.Option;
         footerHeading = "%nExit codes%n",
         footer = {
             "  0  done; for verify: the card reproduces the data",
-            "  1  verify: the card does not reproduce the data within the limits",
+            "  1  verify, check: a card does not reproduce its data within the limits; compare: beyond the limits",
             "  2  wrong command line",
             "  3  an input file is unreadable or malformed",
             "  4  the data cannot support a fit",
@@ -49,7 +49,7 @@ public final class Main implements Runnable {
 
     @Override
     public void run() {
-        throw new CommandLine.ParameterException(spec.commandLine(), "name a command: fit or verify (try --help)");
+        throw new CommandLine.ParameterException(spec.commandLine(), "name a command: fit, verify, build, tweak, compare or check (try --help)");
     }
 
     public static void main(String[] args) {

@@ -208,7 +208,7 @@ public final class ForwardExtraction {
                     if (bound > -BIC_THRESHOLD) {
                         lastDelta.put(term, Double.NaN);
                         unobservable.put(term, String.format(Locale.ROOT,
-                                "no sign of it in the residuals: adding it could lower BIC by at most %.1f (score test)", -bound));
+                                "no sign of it in the residuals: at best BIC would change by %+.1f (score test; needs below -%.0f)", bound, BIC_THRESHOLD));
                         continue;
                     }
                 }

@@ -50,6 +50,14 @@ public final class FitJson {
             o.put("points", f.iv().size() + f.cv().size());
             inputs.add(o);
         }
+        for (org.cardwright.data.RecoveryReader.Records f : outcome.inputs().recovery()) {
+            Map<String, Object> o = Json.object();
+            o.put("file", Inputs.displayName(f.file()));
+            o.put("sha256", f.sha256());
+            o.put("kind", "RECOVERY");
+            o.put("points", f.records().size());
+            inputs.add(o);
+        }
         root.put("inputs", inputs);
         root.put("notes", List.copyOf(outcome.inputs().notes()));
         return Json.write(root);

@@ -243,7 +243,7 @@ public final class FitWorkflow {
         for (RecoveryReader.Records f : inputs.recovery()) {
             lines.add("data: " + relative(home, f.file()) + " sha256 " + f.sha256());
         }
-        lines.add(String.format(Locale.ROOT, "fit: %d points (%d forward I-V%s); forward worst RMS residual %s mV",
+        lines.add(String.format(Locale.ROOT, "fit: %d points fitted, read from %d forward I-V%s; forward worst RMS residual %s mV",
                 full.points(), inputs.forward().size(), otherKinds(inputs), mv(forCard.worstRms(), 3)));
         if (!request.rules().isEmpty()) {
             lines.add("rules: " + request.rules().stream().map(ParameterRule::text).collect(Collectors.joining(" ")));
@@ -253,8 +253,29 @@ public final class FitWorkflow {
                     + ": refitted without; worst RMS residual " + forCard.costAgainst(full));
         }
         lines.add("verify, from this card's folder: cardwright verify " + request.cardPath(d).getFileName() + " "
-                + request.data().stream().map(p -> relative(home, p)).collect(Collectors.joining(" ")));
+                + request.data().stream().map(p -> relative(home, p)).collect(Collectors.joining(" "))
+                + verifyOptions(request, d));
         return lines;
+    }
+
+    /** The options a verify of this card needs to read the data as the fit did. */
+    private static String verifyOptions(FitRequest request, Dialect d) {
+        StringBuilder sb = new StringBuilder();
+        if (d != Dialect.NGSPICE) {
+            sb.append(" --dialect ").append(d.shortName());
+        }
+        request.temperature().ifPresent(t -> sb.append(" --temp ").append(
+                org.cardwright.card.SpiceNumbers.format(t - org.cardwright.model.Ngspice39.CELSIUS_TO_KELVIN, 6)));
+        if (request.capacitance().strayCapacitance() != 0) {
+            sb.append(" --stray-capacitance ").append(org.cardwright.card.SpiceNumbers.format(request.capacitance().strayCapacitance(), 6));
+        }
+        if (request.capacitance().frequency() != org.cardwright.fit.CapacitanceOptions.DEFAULT_FREQUENCY) {
+            sb.append(" --cv-frequency ").append(org.cardwright.card.SpiceNumbers.format(request.capacitance().frequency(), 6));
+        }
+        if (Double.isFinite(request.bench().meterResistance())) {
+            sb.append(" --meter-resistance ").append(org.cardwright.card.SpiceNumbers.format(request.bench().meterResistance(), 6));
+        }
+        return sb.toString();
     }
 
     /** {@code file} relative to {@code folder}, with forward slashes. */
@@ -272,7 +293,7 @@ public final class FitWorkflow {
     private static String otherKinds(Inputs inputs) {
         StringBuilder sb = new StringBuilder();
         if (!inputs.reverse().isEmpty()) {
-            sb.append(", ").append(inputs.reverse().size()).append(" reverse I-V");
+            sb.append(", ").append(inputs.reverse().size()).append(" reverse I-V (leakage below breakdown is compared, not fitted)");
         }
         if (!inputs.capacitance().isEmpty()) {
             sb.append(", ").append(inputs.capacitance().size()).append(" C-V");

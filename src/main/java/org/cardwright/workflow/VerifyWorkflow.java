@@ -51,7 +51,7 @@ public final class VerifyWorkflow {
             throws DataFileException, SimulationException, OutputException, IOException {
         JunctionVerification all = runAll(request, v -> jsonRenderer.apply(v.forward().orElseThrow()));
         if (all.forward().isEmpty()) {
-            throw new DataFileException(request.data().get(0), 0, "no forward I-V points (positive current) to verify against", "");
+            throw new DataFileException(request.data().get(0), 0, "no forward I-V points (positive current) to verify against", null);
         }
         return all.forward().get();
     }
@@ -76,7 +76,7 @@ public final class VerifyWorkflow {
         List<String> notes = new ArrayList<>(parsed.notices());
         notes.addAll(inputs.notes());
         if (data.forward().isEmpty() && data.reverse().isEmpty() && data.capacitance().isEmpty() && data.recovery().isEmpty()) {
-            throw new DataFileException(request.data().get(0), 0, "no I-V or C-V points to verify against", "");
+            throw new DataFileException(request.data().get(0), 0, "no I-V or C-V points to verify against", null);
         }
         CardUnderTest card = new CardUnderTest(parsed.name(), parsed.parameters(), text);
         SimulationEngine engine = Engines.byName(request.engine());
@@ -126,6 +126,10 @@ public final class VerifyWorkflow {
             data.recovery().forEach(r -> recs.add(new RecoveryVerification.Record(r.forwardCurrent(), -r.reverseCurrent(),
                     r.recoveryTime(), r.temperature(), r.source() + ":" + r.line())));
             recovery = Optional.of(RecoveryVerification.of(parsed.parameters(), recs));
+        }
+        if (forward.isEmpty() && breakdown.isEmpty() && capacitance.isEmpty() && recovery.isEmpty()) {
+            throw new DataFileException(request.data().get(0), 0,
+                    "nothing the card can be held to: the reverse points lie below breakdown, where leakage is compared by fit but not verified", null);
         }
         JunctionVerification v = new JunctionVerification(forward, breakdown, capacitance, recovery, notes);
         if (request.json().isPresent()) {
