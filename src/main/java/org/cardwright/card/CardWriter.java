@@ -121,7 +121,7 @@ public final class CardWriter {
                 continue;
             }
             Map<String, String> entry = new LinkedHashMap<>();
-            entry.put("keyword", p.keyword());
+            entry.put("keyword", dialect.keyword(p));
             entry.put("value", SpiceNumbers.format(p.toCardValue(parameters.get(p)), significantDigits));
             lines.add(entry);
         }

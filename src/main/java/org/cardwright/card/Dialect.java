@@ -58,13 +58,48 @@ public enum Dialect {
                     Param.XTI, Param.FC, Param.TNOM),
             Map.of("PB", Param.VJ, "MJ", Param.M, "EGAP", Param.EG),
             List.of("BV", "IBV", "KF", "AF", "CJSW", "CJS", "PBSW", "PBS", "MJSW", "MJS",
-                    "GPARALLEL", "GP", "FLAGS", "MOS_LEVEL"));
+                    "GPARALLEL", "GP", "FLAGS", "MOS_LEVEL")),
+    /**
+     * Xyce 7.6 or later, diode level 1 (which from 7.6 on takes ISR, NR, IKF, NBV and the RS and BV temperature
+     * coefficients; earlier releases reject them at level 1). Read from Xyce's source as recorded in
+     * shared/reference/diode-model.md section 8; Xyce is not packaged for Debian, so no card is run in Xyce here.
+     *
+     * <p>Xyce states the breakdown temperature law as BV(1 + TBV1 dT), so ngspice's TCV (BV - TCV dT, TLEV 0)
+     * goes on the card as TBV1 = -TCV/BV; Xyce's NR defaults to 2, so a card with ISR always states NR. Its
+     * high-injection law and constants differ from ngspice's: a card is fitted with Xyce's own equations
+     * ({@link #flavour()}).
+     */
+    XYCE("xyce", "Xyce 7.6 or later (diode level 1)", "xyce.ftl",
+            EnumSet.of(Param.IS, Param.N, Param.RS, Param.ISR, Param.NR, Param.IKF, Param.EG, Param.XTI,
+                    Param.TRS1, Param.TRS2, Param.CJO, Param.VJ, Param.M, Param.FC, Param.TT, Param.BV, Param.IBV,
+                    Param.NBV, Param.TCV, Param.TNOM),
+            Map.of("JS", Param.IS, "CJ", Param.CJO, "CJ0", Param.CJO, "VB", Param.BV, "TRS", Param.TRS1,
+                    "TBV1", Param.TCV),
+            List.of("LEVEL", "AREA", "KF", "AF", "TBV2", "TIKF", "IBVL", "NBVL", "JSW", "NS", "CJSW", "CJP",
+                    "PHP", "VJSW", "MJSW", "FCS", "IRF", "LAMBERTW"));
 
     /**
      * The XTI gnucap 2017.10.03 uses when a card gives none [1]. Checked by running: a card without XTI and one
      * with XTI=3 give the same forward voltage at 125 degC ({@code GnucapCardTest}).
      */
     static final double GNUCAP_DEFAULT_XTI = 3.0;
+    /** Xyce's NR when a card gives ISR without NR (reference section 8) [1]. */
+    static final double XYCE_DEFAULT_NR = 2.0;
+
+    /** The keyword this dialect writes for {@code p}: Xyce states the BV temperature coefficient as TBV1. */
+    public String keyword(Param p) {
+        return this == XYCE && p == Param.TCV ? "TBV1" : p.keyword();
+    }
+
+    /** Whose equations a card in this dialect is evaluated with, and so fitted with. */
+    public org.cardwright.model.Flavour flavour() {
+        return switch (this) {
+            case NGSPICE -> org.cardwright.model.Flavour.NGSPICE_39;
+            case SPICE3 -> org.cardwright.model.Flavour.SPICE3F5;
+            case GNUCAP -> org.cardwright.model.Flavour.GNUCAP_2017;
+            case XYCE -> org.cardwright.model.Flavour.XYCE;
+        };
+    }
 
     private final String shortName;
     private final String simulator;
@@ -149,6 +184,17 @@ public enum Dialect {
      * @return the values to write on the card [SI]
      */
     public DiodeParameters toCard(DiodeParameters ngspiceMeaning) {
+        if (this == XYCE) {
+            DiodeParameters p = ngspiceMeaning;
+            if (p.isGiven(Param.TCV) && p.isGiven(Param.BV)) {
+                double tcv = p.get(Param.TCV);
+                p = p.with(Param.TCV, p.get(Param.TLEV) == 0 ? -tcv / p.get(Param.BV) : -tcv);
+            }
+            if (p.isGiven(Param.ISR) && !p.isGiven(Param.NR)) {
+                p = p.with(Param.NR, Param.NR.defaultValue());
+            }
+            return p.without(Param.TLEV);
+        }
         if (this != GNUCAP) {
             return ngspiceMeaning;
         }
@@ -168,6 +214,17 @@ public enum Dialect {
      * @return the same parameters in ngspice 39 meaning [SI]
      */
     public DiodeParameters fromCard(DiodeParameters cardValues) {
+        if (this == XYCE) {
+            DiodeParameters p = cardValues;
+            if (p.isGiven(Param.TCV)) {
+                // the card's TBV1, relative to BV; without BV it has nothing to act on
+                p = p.isGiven(Param.BV) ? p.with(Param.TCV, -p.get(Param.TCV) * p.get(Param.BV)) : p.without(Param.TCV);
+            }
+            if (p.isGiven(Param.ISR) && !p.isGiven(Param.NR)) {
+                p = p.with(Param.NR, XYCE_DEFAULT_NR);
+            }
+            return p;
+        }
         if (this != GNUCAP) {
             return cardValues;
         }

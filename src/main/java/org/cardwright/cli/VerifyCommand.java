@@ -43,8 +43,8 @@ final class VerifyCommand implements Callable<Integer> {
     @Option(names = "--model", paramLabel = "NAME", description = "Which model, when the file holds several.")
     String model;
 
-    @Option(names = "--dialect", paramLabel = "D", defaultValue = "ngspice",
-            description = "Dialect to read the card in (default: ${DEFAULT-VALUE}).")
+    @Option(names = "--dialect", paramLabel = "D",
+            description = "Dialect to read the card in: ngspice, spice3, gnucap, xyce (default: from a NAME.DIALECT.lib file name, else ngspice).")
     String dialect;
 
     @Option(names = "--limit-rms", paramLabel = "MV", defaultValue = "2",
@@ -67,9 +67,23 @@ final class VerifyCommand implements Callable<Integer> {
     @picocli.CommandLine.Spec
     picocli.CommandLine.Model.CommandSpec spec;
 
+    /** The --dialect given, else the one a NAME.DIALECT.lib file name names, else ngspice. */
+    static Dialect dialectOf(Path card, String option) {
+        if (option != null) {
+            return Dialect.byName(option);
+        }
+        String file = card.getFileName().toString().toLowerCase(java.util.Locale.ROOT);
+        for (Dialect d : Dialect.values()) {
+            if (file.endsWith("." + d.shortName() + ".lib")) {
+                return d;
+            }
+        }
+        return Dialect.NGSPICE;
+    }
+
     @Override
     public Integer call() throws Exception {
-        VerifyRequest request = new VerifyRequest(card, data, engine, Optional.ofNullable(model), Dialect.byName(dialect),
+        VerifyRequest request = new VerifyRequest(card, data, engine, Optional.ofNullable(model), dialectOf(card, dialect),
                 reading.temperatureKelvin(),
                 new Tolerance(limitRms * 1e-3, limitMax * 1e-3), Optional.ofNullable(json), force,
                 reading.capacitance(),

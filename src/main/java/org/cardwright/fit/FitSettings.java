@@ -72,6 +72,11 @@ public record FitSettings(Map<Param, ParameterRule> rules, DeviceKind kind, doub
         return new FitSettings(rules, k, nominalTemperature, options, selfHeating);
     }
 
+    /** This evaluated with other equations or options (a dialect's flavour). */
+    public FitSettings withOptions(SimulatorOptions other) {
+        return new FitSettings(rules, kind, nominalTemperature, other, selfHeating);
+    }
+
     /** This with another self-heating remedy. */
     public FitSettings withSelfHeating(SelfHeatingRemedy remedy) {
         return new FitSettings(rules, kind, nominalTemperature, options, remedy);

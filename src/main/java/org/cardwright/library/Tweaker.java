@@ -10,6 +10,7 @@ import org.cardwright.data.ReadOptions;
 import org.cardwright.fit.FitInputException;
 import org.cardwright.fit.ParameterRule;
 import org.cardwright.model.DiodeParameters;
+import org.cardwright.model.Param;
 import org.cardwright.model.SimulatorOptions;
 import org.cardwright.sim.BuiltinEngine;
 import org.cardwright.sim.CardUnderTest;
@@ -64,8 +65,16 @@ final class Tweaker {
         String line = "tweak: " + tweak.text() + "; " + tweak.param() + " " + card(tweak, fitted) + " -> " + card(tweak, value);
         List<String> notes = new ArrayList<>();
         if (tweak.refit()) {
-            PartFitter.Fitted refitted = new PartFitter().fit(part, root, recipe,
-                    List.of(ParameterRule.fixed(tweak.param(), value)), List.of(line));
+            // the refit moves the other parameters around the tweak but keeps the base fit's set of terms, so
+            // that no new term (self-heating, say) quietly undoes the margin the tweak was meant to add
+            List<ParameterRule> rules = new ArrayList<>(List.of(ParameterRule.fixed(tweak.param(), value)));
+            for (Param term : List.of(Param.ISR, Param.IKF, Param.TRS1, Param.RTH0)) {
+                if (term != tweak.param() && !base.full().parameters().isGiven(term)) {
+                    rules.add(new ParameterRule(term, ParameterRule.Kind.OFF, Double.NaN,
+                            Double.NEGATIVE_INFINITY, Double.POSITIVE_INFINITY));
+                }
+            }
+            PartFitter.Fitted refitted = new PartFitter().fit(part, root, recipe, rules, List.of(line));
             return new Result(base, refitted, tweak, fitted, value, notes);
         }
         List<MeasuredPoint> points = forwardPoints(part, root);

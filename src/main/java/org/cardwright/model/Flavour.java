@@ -19,10 +19,15 @@ package org.cardwright.model;
 public enum Flavour {
     /** ngspice 39, the reference simulator. */
     NGSPICE_39("ngspice 39", Ngspice39.K_OVER_Q, false, true, Ngspice39.DEFAULT_GMIN),
+    /** Berkeley SPICE3f5: ngspice's equations with the older constants. */
+    SPICE3F5("SPICE3f5", OlderConstants.K_OVER_Q, false, true, Ngspice39.DEFAULT_GMIN),
     /** Xyce levels 1 and 2 (current releases). */
     XYCE("Xyce", OlderConstants.K_OVER_Q, true, true, Ngspice39.DEFAULT_GMIN),
-    /** gnucap 2017.10.03 with default FLAGS. */
-    GNUCAP_2017("gnucap 2017", OlderConstants.K_OVER_Q, false, false, 0.0);
+    /**
+     * gnucap 2017.10.03 with default FLAGS. It has no GMIN in the diode, but it connects 1e-12 S from every node
+     * to ground, which for a diode to ground acts as the same parallel conductance (found by running gnucap).
+     */
+    GNUCAP_2017("gnucap 2017", OlderConstants.K_OVER_Q, false, false, Ngspice39.DEFAULT_GMIN);
 
     private final String label;
     private final double kOverQ;

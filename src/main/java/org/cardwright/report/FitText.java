@@ -60,6 +60,9 @@ public final class FitText {
             if (!c.leftOut().isEmpty()) {
                 sb.append("; refitted without ").append(String.join(" ", c.leftOut().stream().map(Param::keyword).toList()))
                         .append(", worst RMS ").append(c.refit().orElseThrow().costAgainst(r));
+            } else if (c.refit().isPresent()) {
+                sb.append("; fitted with ").append(c.dialect().flavour().label()).append("'s own equations, worst RMS ")
+                        .append(c.refit().get().costAgainst(r));
             }
             sb.append(")\n");
         }

@@ -3,7 +3,6 @@ package org.cardwright.workflow;
 import java.nio.file.Path;
 import java.time.Duration;
 import java.util.Locale;
-import org.cardwright.model.SimulatorOptions;
 import org.cardwright.sim.BuiltinEngine;
 import org.cardwright.sim.NgspiceEngine;
 import org.cardwright.sim.SimulationEngine;
@@ -13,7 +12,7 @@ import org.cardwright.sim.process.SimulatorProcess;
 /** Engines by name. */
 public final class Engines {
     /** Names accepted by {@link #byName}. */
-    public static final String NAMES = "builtin, ngspice";
+    public static final String NAMES = "builtin, ngspice, gnucap";
     /** Longest an external simulator may run for one verification [s]. */
     private static final Duration TIMEOUT = Duration.ofSeconds(120);
 
@@ -32,9 +31,24 @@ public final class Engines {
 
     /** The engine called {@code name}; ngspice is looked up on the PATH or in CARDWRIGHT_NGSPICE. */
     public static SimulationEngine byName(String name) throws SimulationException {
+        return byName(name, org.cardwright.model.Flavour.NGSPICE_39);
+    }
+
+    /**
+     * The engine called {@code name}; the built-in one evaluates {@code flavour}'s equations (those of the
+     * simulator the card was written for).
+     */
+    public static SimulationEngine byName(String name, org.cardwright.model.Flavour flavour) throws SimulationException {
         switch (name.toLowerCase(Locale.ROOT)) {
             case "builtin":
-                return new BuiltinEngine(SimulatorOptions.NGSPICE_DEFAULTS);
+                return new BuiltinEngine(flavour.options());
+            case "gnucap": {
+                Path exe = SimulatorProcess.locate(SimulatorProcess.Kind.GNUCAP).orElseThrow(() -> new SimulationException(
+                        "gnucap not found on the PATH: install it (Debian/Ubuntu: apt-get install gnucap) or set "
+                                + SimulatorProcess.GNUCAP_VARIABLE + " to its path"));
+                return new org.cardwright.sim.GnucapEngine(new SimulatorProcess(SimulatorProcess.Kind.GNUCAP, exe, TIMEOUT),
+                        workFolder());
+            }
             case "ngspice": {
                 Path exe = SimulatorProcess.locate(SimulatorProcess.Kind.NGSPICE).orElseThrow(() -> new SimulationException(
                         "ngspice not found on the PATH: install it (Debian/Ubuntu: apt-get install ngspice) or set "
@@ -48,9 +62,16 @@ public final class Engines {
 
     /** The capacitance engine called {@code name}: builtin or ngspice (AC analysis). */
     public static org.cardwright.sim.CapacitanceEngine capacitanceByName(String name) throws SimulationException {
+        return capacitanceByName(name, org.cardwright.model.Flavour.NGSPICE_39);
+    }
+
+    /** The capacitance engine called {@code name}; gnucap has none, so it falls to the built-in gnucap flavour. */
+    public static org.cardwright.sim.CapacitanceEngine capacitanceByName(String name, org.cardwright.model.Flavour flavour)
+            throws SimulationException {
         switch (name.toLowerCase(Locale.ROOT)) {
             case "builtin":
-                return new org.cardwright.sim.BuiltinCapacitance(SimulatorOptions.NGSPICE_DEFAULTS);
+            case "gnucap":
+                return new org.cardwright.sim.BuiltinCapacitance(flavour.options());
             case "ngspice": {
                 Path exe = SimulatorProcess.locate(SimulatorProcess.Kind.NGSPICE).orElseThrow(() -> new SimulationException(
                         "ngspice not found on the PATH: install it (Debian/Ubuntu: apt-get install ngspice) or set "

@@ -90,14 +90,21 @@ public final class FitWorkflow {
             }
             FitResult forCard = full;
             Optional<FitResult> refit = Optional.empty();
-            if (!leftOut.isEmpty()) {
+            boolean otherEquations = d.flavour() != settings.options().flavour();
+            if (!leftOut.isEmpty() || otherEquations) {
                 List<ParameterRule> rules = new ArrayList<>(request.rules());
-                for (Param p : leftOut) {
-                    // "off": the parameter is not given, so the dialect's default (or its term's absence) holds
-                    rules.add(new ParameterRule(p, ParameterRule.Kind.OFF, Double.NaN,
-                            Double.NEGATIVE_INFINITY, Double.POSITIVE_INFINITY));
+                for (Param p : Param.values()) {
+                    // "off": whatever the dialect cannot carry stays out of its refit, including terms the refit
+                    // might otherwise reach for in place of the ones it lost (not only those the full fit used)
+                    if (!d.carries(p) && p != Param.TNOM) {
+                        rules.add(new ParameterRule(p, ParameterRule.Kind.OFF, Double.NaN,
+                                Double.NEGATIVE_INFINITY, Double.POSITIVE_INFINITY));
+                    }
                 }
-                forCard = extract(settings.withRules(rules), request, data);
+                // the card is fitted with the equations of the simulator that will read it
+                FitSettings target = settings.withRules(rules).withOptions(
+                        new org.cardwright.model.SimulatorOptions(settings.options().gmin(), settings.options().reltol(), d.flavour()));
+                forCard = extract(target, request, data);
                 refit = Optional.of(forCard);
             }
             ModelCard card = new ModelCard(request.name(), forCard.parameters(),
@@ -247,6 +254,11 @@ public final class FitWorkflow {
                 full.points(), inputs.forward().size(), otherKinds(inputs), mv(forCard.worstRms(), 3)));
         if (!request.rules().isEmpty()) {
             lines.add("rules: " + request.rules().stream().map(ParameterRule::text).collect(Collectors.joining(" ")));
+        }
+        if (d.flavour() != org.cardwright.model.Flavour.NGSPICE_39) {
+            lines.add("fitted with " + d.flavour().label() + "'s own equations (constants"
+                    + (d.flavour().xyceKnee() ? ", high-injection law" : "")
+                    + (d.flavour().spiceReverse() ? "" : ", reverse bias without breakdown") + "); see docs/dialects.md");
         }
         if (!leftOut.isEmpty()) {
             lines.add(d.shortName() + " cannot carry " + leftOut.stream().map(Param::keyword).collect(Collectors.joining(" "))

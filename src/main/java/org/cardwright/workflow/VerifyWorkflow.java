@@ -79,7 +79,7 @@ public final class VerifyWorkflow {
             throw new DataFileException(request.data().get(0), 0, "no I-V or C-V points to verify against", null);
         }
         CardUnderTest card = new CardUnderTest(parsed.name(), parsed.parameters(), text);
-        SimulationEngine engine = Engines.byName(request.engine());
+        SimulationEngine engine = Engines.byName(request.engine(), request.dialect().flavour());
 
         Optional<Verification> forward = Optional.empty();
         if (!data.forward().isEmpty()) {
@@ -117,7 +117,7 @@ public final class VerifyWorkflow {
             List<CapacitanceMeasurement> pts = new ArrayList<>();
             data.capacitance().forEach(p -> pts.add(new CapacitanceMeasurement(p.voltage(), p.capacitance(),
                     p.temperature(), p.source(), p.line())));
-            capacitance = Optional.of(new CapacitanceVerifier(Engines.capacitanceByName(request.engine()), CapacitanceTolerance.DEFAULT)
+            capacitance = Optional.of(new CapacitanceVerifier(Engines.capacitanceByName(request.engine(), request.dialect().flavour()), CapacitanceTolerance.DEFAULT)
                     .verify(card, pts, request.capacitance().strayCapacitance(), request.capacitance().frequency(), List.of()));
         }
         Optional<RecoveryVerification> recovery = Optional.empty();

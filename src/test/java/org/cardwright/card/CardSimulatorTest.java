@@ -58,7 +58,8 @@ class CardSimulatorTest {
     }
 
     @ParameterizedTest
-    @EnumSource(Dialect.class)
+    // Xyce cards use Xyce keywords (TBV1) that ngspice does not read; Xyce itself is not installed here
+    @EnumSource(value = Dialect.class, names = {"NGSPICE", "SPICE3", "GNUCAP"})
     void everyWrittenCardLoadsInNgspiceWithoutWarningAndReadsBackItsValues(Dialect dialect) throws Exception {
         ExternalSimulator ngspice = ExternalSimulator.ngspice();
         CardWriter writer = new CardWriter(Optional.empty());

@@ -89,7 +89,7 @@ class DialectTest {
         assertEquals(Dialect.SPICE3, Dialect.byName("SPICE3"));
         assertEquals(Dialect.GNUCAP, Dialect.byName(" GnuCap "));
         IllegalArgumentException e = assertThrows(IllegalArgumentException.class, () -> Dialect.byName("hspice"));
-        assertEquals("unknown dialect 'hspice'; valid names: ngspice, spice3, gnucap", e.getMessage());
+        assertEquals("unknown dialect 'hspice'; valid names: ngspice, spice3, gnucap, xyce", e.getMessage());
         assertThrows(IllegalArgumentException.class, () -> Dialect.byName(null));
     }
 
