@@ -1,7 +1,5 @@
 package org.cardwright.sim;
 
-import java.io.IOException;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
@@ -103,19 +101,9 @@ public final class GnucapEngine implements SimulationEngine {
         if (biases.isEmpty()) {
             return List.of();
         }
-        Path dir;
-        try {
-            Files.createDirectories(workRoot);
-            dir = Files.createTempDirectory(workRoot, "gnucap-");
-        } catch (IOException e) {
-            throw new SimulationException("gnucap: cannot create a work folder under " + workRoot + ": "
-                    + e.getMessage(), e);
-        }
-        SimulatorProcess.Result result = process.run(netlist(card, biases), dir);
-        if (!result.warnings().isEmpty()) {
-            throw new SimulationException("gnucap warned about the card: " + result.warnings().get(0)
-                    + " (netlist kept in " + dir + ")");
-        }
+        SimulatorProcess.Run run = process.runClean(netlist(card, biases), workRoot);
+        SimulatorProcess.Result result = run.result();
+        Path dir = run.folder();
         List<double[]> rows = rows(result.stdout(), TITLE_PREFIX + card.name(), dir);
         if (rows.size() != biases.size()) {
             throw new SimulationException("gnucap returned " + rows.size() + " of " + biases.size()
@@ -129,7 +117,7 @@ public final class GnucapEngine implements SimulationEngine {
                     ? new OperatingPoint(row[0], b.value())
                     : new OperatingPoint(row[1], row[2]));
         }
-        deleteQuietly(dir);
+        SimulatorProcess.discard(dir);
         return out;
     }
 
@@ -238,17 +226,6 @@ public final class GnucapEngine implements SimulationEngine {
                 tag = tag + "x";
             }
             return new Instances("I" + tag + "f", "D" + tag + "f", "V" + tag + "r", "D" + tag + "r");
-        }
-    }
-
-    private static void deleteQuietly(Path dir) {
-        try (var s = Files.list(dir)) {
-            for (Path p : (Iterable<Path>) s::iterator) {
-                Files.deleteIfExists(p);
-            }
-            Files.deleteIfExists(dir);
-        } catch (IOException e) {
-            // a leftover temporary folder is harmless
         }
     }
 }

@@ -87,18 +87,8 @@ public final class NgspiceCapacitance implements CapacitanceEngine {
         if (voltageBiases.isEmpty()) {
             return List.of();
         }
-        Path dir;
-        try {
-            Files.createDirectories(workRoot);
-            dir = Files.createTempDirectory(workRoot, "ngspice-ac-");
-        } catch (IOException e) {
-            throw new SimulationException("ngspice: cannot create a work folder under " + workRoot + ": " + e.getMessage(), e);
-        }
-        SimulatorProcess.Result result = process.run(netlist, dir);
-        if (!result.warnings().isEmpty()) {
-            throw new SimulationException("ngspice warned about the card: " + result.warnings().get(0)
-                    + " (netlist kept in " + dir + ")");
-        }
+        SimulatorProcess.Run run = process.runClean(netlist, workRoot);
+        Path dir = run.folder();
         List<String> lines;
         try {
             lines = Files.readAllLines(dir.resolve(OUTPUT));
@@ -127,18 +117,7 @@ public final class NgspiceCapacitance implements CapacitanceEngine {
             throw new SimulationException("ngspice returned " + out.size() + " of " + voltageBiases.size()
                     + " capacitances (netlist kept in " + dir + ")");
         }
-        deleteQuietly(dir);
+        SimulatorProcess.discard(dir);
         return out;
-    }
-
-    private static void deleteQuietly(Path dir) {
-        try (var s = Files.list(dir)) {
-            for (Path p : (Iterable<Path>) s::iterator) {
-                Files.deleteIfExists(p);
-            }
-            Files.deleteIfExists(dir);
-        } catch (IOException e) {
-            // a leftover temporary folder is harmless
-        }
     }
 }

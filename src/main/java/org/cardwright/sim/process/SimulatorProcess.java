@@ -307,4 +307,47 @@ public final class SimulatorProcess {
                 : String.format(Locale.ROOT, "%.3f", value).replaceAll("0+$", "");
         return number + " s";
     }
+
+    /**
+     * The outcome of {@link #runClean}: the run and the folder it ran in (delete it with {@link #discard} once
+     * its outputs are read; a failure keeps it for the user, and the message says where).
+     *
+     * @param result the run
+     * @param folder its work folder
+     */
+    public record Run(Result result, Path folder) {
+    }
+
+    /**
+     * Runs {@code netlist} in a fresh folder under {@code workRoot} and insists on a clean run: any warning the
+     * simulator prints about the card is a failure, since a card must load without one.
+     */
+    public Run runClean(String netlist, Path workRoot) throws SimulationException {
+        Path dir;
+        try {
+            java.nio.file.Files.createDirectories(workRoot);
+            dir = java.nio.file.Files.createTempDirectory(workRoot, kind.command() + "-");
+        } catch (java.io.IOException e) {
+            throw new SimulationException(kind.command() + ": cannot create a work folder under " + workRoot + ": "
+                    + e.getMessage(), e);
+        }
+        Result result = run(netlist, dir);
+        if (!result.warnings().isEmpty()) {
+            throw new SimulationException(kind.command() + " warned about the card: " + result.warnings().get(0)
+                    + " (netlist kept in " + dir + ")");
+        }
+        return new Run(result, dir);
+    }
+
+    /** Deletes a run's folder; a leftover temporary folder is harmless, so failures are ignored. */
+    public static void discard(Path dir) {
+        try (var s = java.nio.file.Files.list(dir)) {
+            for (Path p : (Iterable<Path>) s::iterator) {
+                java.nio.file.Files.deleteIfExists(p);
+            }
+            java.nio.file.Files.deleteIfExists(dir);
+        } catch (java.io.IOException e) {
+            // a leftover temporary folder is harmless
+        }
+    }
 }
