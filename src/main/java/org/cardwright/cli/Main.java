@@ -77,6 +77,11 @@ public final class Main implements Runnable {
         boolean trace = root != null && root.stackTrace;
         int code;
         String message = ex.getMessage();
+        if (ex instanceof java.nio.file.NoSuchFileException nf) {
+            message = nf.getFile() + ": no such file";
+        } else if (ex instanceof java.nio.file.AccessDeniedException ad) {
+            message = ad.getFile() + ": permission denied";
+        }
         if (ex instanceof DataFileException || ex instanceof CardFormatException || ex instanceof java.io.IOException) {
             code = ExitCodes.BAD_INPUT;
         } else if (ex instanceof FitInputException || ex instanceof FitFailedException) {

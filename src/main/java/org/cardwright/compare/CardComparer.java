@@ -113,7 +113,8 @@ public final class CardComparer {
             for (int k = 0; k < biases.size(); k++) {
                 double x = qa.get(k);
                 double y = qb.get(k);
-                double rel = x == 0 ? (y == 0 ? 0 : Double.POSITIVE_INFINITY) : Math.abs(y - x) / x;
+                // below a femtofarad no meter tells two capacitances apart (common practice, no source)
+                double rel = Math.abs(y - x) / Math.max(Math.abs(x), CAPACITANCE_FLOOR);
                 caps.add(new CardComparison.CapacitanceRow(biases.get(k).temperature(), biases.get(k).value(), x, y,
                         rel > limits.capacitanceRelative()));
             }
@@ -150,7 +151,14 @@ public final class CardComparer {
         return new CardUnderTest(card.name(), card.parameters(), text);
     }
 
+    /** The value a card gives, or its default in parentheses (empty for terms that exist only when given). */
+    /** Capacitances below this count as equal in a comparison [F]. */
+    static final double CAPACITANCE_FLOOR = 1e-15;
+
     private static String cardValue(DiodeParameters p, Param q) {
-        return p.isGiven(q) ? SpiceNumbers.format(q.toCardValue(p.get(q)), 7) : "";
+        if (p.isGiven(q)) {
+            return SpiceNumbers.format(q.toCardValue(p.get(q)), 7);
+        }
+        return q.activeOnlyWhenGiven() ? "" : "(" + SpiceNumbers.format(q.toCardValue(p.get(q)), 7) + ")";
     }
 }

@@ -73,9 +73,9 @@ public record CardComparison(String nameA, String nameB, String engine, List<Par
      * @param flagged     true when the relative difference exceeds the limit
      */
     public record CapacitanceRow(double temperature, double bias, double a, double b, boolean flagged) {
-        /** (B - A)/A, or infinity when A is 0 and B is not [1]. */
+        /** (B - A)/A, with A taken as at least 1 fF so that two cards without capacitance compare as equal [1]. */
         public double relative() {
-            return a == 0 ? (b == 0 ? 0 : Double.POSITIVE_INFINITY) : (b - a) / a;
+            return (b - a) / Math.max(Math.abs(a), 1e-15);
         }
     }
 

@@ -20,7 +20,7 @@ public final class ComparisonText {
         sb.append(String.format(Locale.ROOT, "  %-6s %16s %16s%n", "param", "A", "B"));
         for (CardComparison.ParameterRow r : c.parameters()) {
             sb.append(String.format(Locale.ROOT, "  %-6s %16s %16s%s%n", r.keyword(), dash(r.a()), dash(r.b()),
-                    r.a().equals(r.b()) ? "" : "  *"));
+                    bare(r.a()).equals(bare(r.b())) ? "" : "  *"));
         }
 
         sb.append(String.format(Locale.ROOT, "%nForward voltage at each decade of current; limit %.3f mV%n",
@@ -90,5 +90,10 @@ public final class ComparisonText {
 
     private static String trim(double x) {
         return new java.math.BigDecimal(Double.toString(x)).stripTrailingZeros().toPlainString();
+    }
+
+    /** A parameter cell without the parentheses that mark a default. */
+    private static String bare(String cell) {
+        return cell.startsWith("(") && cell.endsWith(")") ? cell.substring(1, cell.length() - 1) : cell;
     }
 }
