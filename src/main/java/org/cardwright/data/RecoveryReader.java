@@ -17,11 +17,13 @@ import java.util.OptionalDouble;
  * Reads reverse-recovery records (docs/formats.md, "Recovery records"): a CSV with one header row and the
  * columns {@code IF}, {@code IR} and {@code trr}, optionally {@code T}; units in brackets or parentheses as in
  * every cardwright file ({@code IF [mA]}, {@code trr (ns)}, {@code T [degC]}). IR is the reverse current during
- * recovery and, like every reverse current here, negative. Comment lines start with {@code #}.
+ * recovery and, like every reverse current here, negative. Comment lines start with {@code #}. Cells may be
+ * separated by commas, semicolons or tabs (as the header line shows) and take SPICE suffixes, as in the other
+ * measurement files.
  */
 public final class RecoveryReader {
     private static final Map<String, Double> CURRENT = Map.of("a", 1.0, "ma", 1e-3, "ua", 1e-6, "\u00b5a", 1e-6,
-            "na", 1e-9);
+            "na", 1e-9, "pa", 1e-12);
     private static final Map<String, Double> TIME = Map.of("s", 1.0, "ms", 1e-3, "us", 1e-6, "\u00b5s", 1e-6,
             "ns", 1e-9, "ps", 1e-12);
 
@@ -41,7 +43,7 @@ public final class RecoveryReader {
                     continue;
                 }
                 List<String> names = new ArrayList<>();
-                for (String cell : t.split(",")) {
+                for (String cell : t.split(String.valueOf(delimiterOf(t)))) {
                     names.add(name(cell));
                 }
                 return names.contains("if") && names.contains("ir") && names.contains("trr");
@@ -78,13 +80,17 @@ public final class RecoveryReader {
         double[] scale = null;
         boolean celsius = true;
         List<RecoveryRecord> out = new ArrayList<>();
+        char delimiter = ',';
         for (int i = 0; i < lines.length; i++) {
             int lineNo = i + 1;
             String t = lines[i].trim();
             if (t.isEmpty() || t.startsWith("#")) {
                 continue;
             }
-            String[] cells = t.split(",", -1);
+            if (col == null) {
+                delimiter = delimiterOf(t);
+            }
+            String[] cells = t.split(java.util.regex.Pattern.quote(String.valueOf(delimiter)), -1);
             if (col == null) {
                 col = new int[] {-1, -1, -1, -1};
                 scale = new double[] {1, 1, 1, 1};
@@ -131,9 +137,11 @@ public final class RecoveryReader {
                 }
                 String raw = cells[col[w]].trim();
                 try {
-                    v[w] = Double.parseDouble(raw) * scale[w];
-                } catch (NumberFormatException e) {
-                    throw new DataFileException(file, lineNo, "not a number", raw);
+                    // the same number reading as every other cardwright file: SPICE suffixes, and a decimal
+                    // comma when cells are not separated by commas
+                    v[w] = CellNumber.parse(raw, delimiter != ',').value().doubleValue() * scale[w];
+                } catch (CellProblem e) {
+                    throw new DataFileException(file, lineNo, e.getMessage(), raw);
                 }
                 if (!Double.isFinite(v[w])) {
                     throw new DataFileException(file, lineNo, "not a finite number", raw);
@@ -159,6 +167,11 @@ public final class RecoveryReader {
             throw new DataFileException(file, 0, "no recovery records", null);
         }
         return new Records(file, sha, out);
+    }
+
+    /** Tab, else semicolon, else comma: whichever the header line uses. */
+    private static char delimiterOf(String header) {
+        return header.indexOf('\t') >= 0 ? '\t' : header.indexOf(';') >= 0 ? ';' : ',';
     }
 
     private static String name(String cell) {

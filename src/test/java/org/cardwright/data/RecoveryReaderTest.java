@@ -42,4 +42,15 @@ class RecoveryReaderTest {
     void plainIvFilesAreNotTakenForRecoveryRecords() {
         assertFalse(RecoveryReader.looksLikeRecovery(FIXTURES.resolve("demo/ks1-forward-25C.csv")));
     }
+
+    @Test
+    void semicolonsDecimalCommasAndSuffixesReadToTheSameRecords(@org.junit.jupiter.api.io.TempDir Path dir) throws Exception {
+        Path f = dir.resolve("export.csv");
+        java.nio.file.Files.writeString(f, "# invented test input\nIF;IR;trr;T [degC]\n10m;-10m;2,783n;25\n");
+        RecoveryRecord r = new RecoveryReader(OptionalDouble.empty()).read(f).records().get(0);
+        assertEquals(10e-3, r.forwardCurrent(), 1e-18);
+        assertEquals(-10e-3, r.reverseCurrent(), 1e-18);
+        assertEquals(2.783e-9, r.recoveryTime(), 1e-21);
+        assertTrue(RecoveryReader.looksLikeRecovery(f));
+    }
 }
