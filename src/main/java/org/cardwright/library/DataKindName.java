@@ -13,9 +13,9 @@ public enum DataKindName {
     /** Capacitance against reverse voltage, CSV with V and C columns. */
     CV("cv", true),
     /** Reverse-recovery records. */
-    RECOVERY("recovery", false),
+    RECOVERY("recovery", true),
     /** Bench log: supply, series resistor and meter readings. */
-    BENCH_LOG("bench-log", false);
+    BENCH_LOG("bench-log", true);
 
     private final String spelling;
     private final boolean readable;

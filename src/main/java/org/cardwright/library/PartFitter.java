@@ -92,7 +92,7 @@ final class PartFitter {
         try (StagedInputs inputs = StagedInputs.of(part, root)) {
             if (inputs.paths().isEmpty()) {
                 throw new DeviceFileException(part.path(), part.data().get(0).line(),
-                        "no data file of a kind this version fits (forward, reverse, cv)");
+                        "no data file of a kind this version fits (forward, reverse, cv, recovery, bench-log)");
             }
             FitRequest request = new FitRequest(inputs.paths(), part.model(), part.dialects(), scratch, Optional.empty(),
                     inputs.temperature(), part.kind(), rules, part.digits(), true, templates(part));
@@ -136,7 +136,9 @@ final class PartFitter {
 
     /** The device file says what each file holds; the reader tells I-V from C-V by its columns: they must agree. */
     private static void checkKinds(DeviceFile part, FitOutcome outcome) throws DeviceFileException {
-        List<DataSource> readable = part.data().stream().filter(s -> s.kind().readable()).toList();
+        // recovery records are read apart from the I-V and C-V files, so they have no place in this pairing
+        List<DataSource> readable = part.data().stream()
+                .filter(s -> s.kind().readable() && s.kind() != DataKindName.RECOVERY).toList();
         List<MeasurementFile> files = outcome.inputs().files();
         for (int i = 0; i < readable.size() && i < files.size(); i++) {
             DataSource s = readable.get(i);

@@ -34,7 +34,7 @@ class DeviceFileReaderTest {
             "    kind: reverse",                        // 8
             "  - file: data/x1-log.csv",                // 9
             "    kind: bench-log",                      // 10
-            "    options: {series-resistance: 1k}",     // 11
+            "    temperature: 25",                      // 11
             "rules: [RS=0.5, \"N=1..2\", IKF=off]",     // 12
             "dialects: [ngspice, gnucap]",              // 13
             "digits: 8",                                // 14
@@ -61,7 +61,7 @@ class DeviceFileReaderTest {
         assertEquals(DataKindName.FORWARD, d.data().get(0).kind());
         assertEquals(DataKindName.REVERSE, d.data().get(1).kind());
         assertEquals(DataKindName.BENCH_LOG, d.data().get(2).kind());
-        assertEquals("1k", d.data().get(2).options().get("series-resistance"));
+        assertEquals(298.15, d.data().get(2).temperature().getAsDouble(), 1e-9);
         assertEquals(7, d.data().get(1).line());
         assertEquals(List.of(Param.RS, Param.N, Param.IKF), d.rules().stream().map(ParameterRule::param).toList());
         assertEquals(ParameterRule.Kind.BOUNDED, d.rules().get(1).kind());
@@ -85,7 +85,7 @@ class DeviceFileReaderTest {
                 "tolerance: {leakage-factor: 4, forward-rms-mv: 3.0}",
                 "data:", "  - {file: data/x1-25C.csv, kind: forward, temperature: 25.0}",
                 "  - {file: data/x1-rev.csv, kind: reverse}",
-                "  - {file: data/x1-log.csv, kind: bench-log, options: {series-resistance: 1k}}", "");
+                "  - {file: data/x1-log.csv, kind: bench-log, temperature: 25}", "");
         assertEquals(read(GOOD).canonicalSettings(), read(reordered).canonicalSettings());
     }
 

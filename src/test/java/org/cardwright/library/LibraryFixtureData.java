@@ -167,10 +167,11 @@ public final class LibraryFixtureData {
 
     private static void recovery(Path csv) throws IOException {
         String text = "# Invented demo data, not a measurement: reverse-recovery records of the SW1, an invented switching diode.\n"
-                + "# Listed in SW1.device.yaml as kind recovery; this version of cardwright records its hash but does not read it.\n"
+                + "# Listed in SW1.device.yaml as kind recovery. Written from the charge-control relation trr = TT ln(1 + IF/|IR|)\n"
+                + "# with TT = 5 ns, rounded to 10 ps; IR is negative, as every reverse current in cardwright's files.\n"
                 + "# Regenerate: see fixtures/library/README.md.\n"
                 + "IF [mA],IR [mA],trr [ns],T [degC]\n"
-                + "10,10,3.9,25\n10,20,3.1,25\n20,20,3.6,25\n";
+                + "10,-10,3.47,25\n10,-20,2.03,25\n20,-20,3.47,25\n";
         Files.createDirectories(csv.getParent());
         Files.writeString(csv, text, StandardCharsets.UTF_8);
     }
