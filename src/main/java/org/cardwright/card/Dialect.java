@@ -60,8 +60,8 @@ public enum Dialect {
             List.of("BV", "IBV", "KF", "AF", "CJSW", "CJS", "PBSW", "PBS", "MJSW", "MJS",
                     "GPARALLEL", "GP", "FLAGS", "MOS_LEVEL")),
     /**
-     * Xyce 7.6 or later, diode level 1 (which from 7.6 on takes ISR, NR, IKF, NBV and the RS and BV temperature
-     * coefficients; earlier releases reject them at level 1). Read from Xyce's source as recorded in
+     * Xyce 7.7 or later, diode level 1 (from 7.6 level 1 takes ISR, NR, IKF and the RS and BV temperature
+     * coefficients, earlier releases reject them; NBV acts only from 7.7 on). Read from Xyce's source as recorded in
      * shared/reference/diode-model.md section 8; Xyce is not packaged for Debian, so no card is run in Xyce here.
      *
      * <p>Xyce states the breakdown temperature law as BV(1 + TBV1 dT), so ngspice's TCV (BV - TCV dT, TLEV 0)
@@ -69,7 +69,7 @@ public enum Dialect {
      * high-injection law and constants differ from ngspice's: a card is fitted with Xyce's own equations
      * ({@link #flavour()}).
      */
-    XYCE("xyce", "Xyce 7.6 or later (diode level 1)", "xyce.ftl",
+    XYCE("xyce", "Xyce 7.7 or later (diode level 1)", "xyce.ftl",
             EnumSet.of(Param.IS, Param.N, Param.RS, Param.ISR, Param.NR, Param.IKF, Param.EG, Param.XTI,
                     Param.TRS1, Param.TRS2, Param.CJO, Param.VJ, Param.M, Param.FC, Param.TT, Param.BV, Param.IBV,
                     Param.NBV, Param.TCV, Param.TNOM),

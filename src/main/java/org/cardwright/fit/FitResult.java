@@ -56,6 +56,11 @@ public record FitResult(DiodeParameters parameters, List<FittedParameter> fitted
                 worstRms() * 1e3, better.worstRms() * 1e3));
         java.util.Map<String, Double> mine = worstOtherByKind();
         java.util.Map<String, Double> theirs = better.worstOtherByKind();
+        for (java.util.Map.Entry<String, Double> e : theirs.entrySet()) {
+            if (!mine.containsKey(e.getKey())) {
+                sb.append(", ").append(e.getKey()).append(" not carried");
+            }
+        }
         for (java.util.Map.Entry<String, Double> e : mine.entrySet()) {
             String unit = otherResiduals.stream().filter(k -> k.kind().equals(e.getKey())).findFirst().orElseThrow().unit();
             sb.append(String.format(java.util.Locale.ROOT, ", %s %.3f %s (%.3f %s with every term)", e.getKey(), e.getValue(),

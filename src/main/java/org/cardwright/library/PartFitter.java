@@ -77,7 +77,7 @@ final class PartFitter {
      *
      * @param cards  one per dialect, in the device file's order
      * @param full   the full fit
-     * @param points forward points fitted
+     * @param points points fitted, every data kind
      * @param notes  what the fit set aside or changed, names relative to the library root
      */
     record Fitted(List<Card> cards, FitResult full, int points, List<String> notes) {
@@ -172,7 +172,7 @@ final class PartFitter {
             lines.add("rules: " + rules.stream().map(ParameterRule::text).collect(Collectors.joining(" ")));
         }
         lines.addAll(extraLines);
-        lines.add(String.format(Locale.ROOT, "fit: %d forward points; worst RMS residual %s mV", points,
+        lines.add(String.format(Locale.ROOT, "fit: %d points; forward worst RMS residual %s mV", points,
                 mv(Residual.worstRms(residuals))));
         for (Residual r : residuals) {
             lines.add(String.format(Locale.ROOT, "residual at %s degC: RMS %s mV, max %s mV (%d points)",

@@ -29,7 +29,7 @@ public final class BuiltinCapacitance implements CapacitanceEngine {
 
     @Override
     public String describe() {
-        return "builtin (ngspice 39 level-1 diode small-signal equations, evaluated in process)";
+        return "builtin (" + options.flavour().label() + " level-1 diode small-signal equations, evaluated in process)";
     }
 
     @Override

@@ -25,7 +25,8 @@ public final class BuiltinEngine implements SimulationEngine {
 
     @Override
     public String describe() {
-        return "builtin (ngspice 39 level-1 diode equations, evaluated in process; self-heating when RTH0 is given)";
+        return "builtin (" + options.flavour().label()
+                + " level-1 diode equations, evaluated in process; self-heating when RTH0 is given)";
     }
 
     @Override

@@ -273,9 +273,6 @@ public final class FitWorkflow {
     /** The options a verify of this card needs to read the data as the fit did. */
     private static String verifyOptions(FitRequest request, Dialect d) {
         StringBuilder sb = new StringBuilder();
-        if (d != Dialect.NGSPICE) {
-            sb.append(" --dialect ").append(d.shortName());
-        }
         request.temperature().ifPresent(t -> sb.append(" --temp ").append(
                 org.cardwright.card.SpiceNumbers.format(t - org.cardwright.model.Ngspice39.CELSIUS_TO_KELVIN, 6)));
         if (request.capacitance().strayCapacitance() != 0) {

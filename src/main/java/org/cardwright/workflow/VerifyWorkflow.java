@@ -106,7 +106,11 @@ public final class VerifyWorkflow {
             java.util.Arrays.sort(volts);
             double median = volts[volts.length / 2];
             Tolerance t = new Tolerance(BREAKDOWN_RMS_FRACTION * median, BREAKDOWN_MAX_FRACTION * median);
-            breakdown = Optional.of(new Verifier(engine, t).verify(card, pts, List.of()));
+            List<String> bdNotes = new ArrayList<>();
+            if (!parsed.parameters().isGiven(org.cardwright.model.Param.BV) || !request.dialect().flavour().spiceReverse()) {
+                bdNotes.add("the card carries no breakdown (BV), so it cannot reach these reverse currents at any sensible voltage");
+            }
+            breakdown = Optional.of(new Verifier(engine, t).verify(card, pts, bdNotes));
         } else if (!data.reverse().isEmpty()) {
             notes.add(String.format(Locale.ROOT, "%d reverse points below breakdown are not verified (leakage is reported by fit, not held to a limit)",
                     data.reverse().size()));
