@@ -6,6 +6,7 @@ import org.cardwright.verify.CapacitanceResidual;
 import org.cardwright.verify.CapacitanceVerdict;
 import org.cardwright.verify.CapacitanceVerification;
 import org.cardwright.verify.JunctionVerification;
+import org.cardwright.verify.LeakageVerification;
 import org.cardwright.verify.RecoveryVerification;
 import org.cardwright.verify.PointResidual;
 import org.cardwright.verify.TemperatureVerdict;
@@ -42,6 +43,24 @@ public final class VerificationJson {
             rec.put("pass", v.pass());
             rec.put("temperatures", temps);
             root.put("recovery", rec);
+        });
+        all.leakage().ifPresent(v -> {
+            List<Object> temps = Json.array();
+            for (LeakageVerification.Verdict t : v.perTemperature()) {
+                Map<String, Object> o = Json.object();
+                o.put("temperature", t.temperature());
+                o.put("points", t.points());
+                o.put("rms_residual_decades", t.rmsDecades());
+                o.put("max_residual_decades", t.maxDecades());
+                o.put("worst_at", t.worst());
+                o.put("pass", t.pass());
+                temps.add(o);
+            }
+            Map<String, Object> lk = Json.object();
+            lk.put("pass", v.pass());
+            lk.put("temperatures", temps);
+            lk.put("notes", List.copyOf(v.notes()));
+            root.put("leakage", lk);
         });
         root.put("notes", List.copyOf(all.notes()));
         return Json.write(root);

@@ -4,6 +4,7 @@ import java.util.Locale;
 import org.cardwright.verify.CapacitanceVerdict;
 import org.cardwright.verify.CapacitanceVerification;
 import org.cardwright.verify.JunctionVerification;
+import org.cardwright.verify.LeakageVerification;
 import org.cardwright.verify.RecoveryVerification;
 import org.cardwright.verify.TemperatureVerdict;
 import org.cardwright.verify.Verification;
@@ -23,6 +24,7 @@ public final class VerificationText {
         all.breakdown().ifPresent(v -> sb.append(section("Reverse breakdown", v)));
         all.capacitance().ifPresent(v -> sb.append(capacitance(v)));
         all.recovery().ifPresent(v -> sb.append(recovery(v)));
+        all.leakage().ifPresent(v -> sb.append(leakage(v)));
         sb.append(all.pass() ? "reproduces the data within the limits\n" : "does NOT reproduce the data within the limits\n");
         return sb.toString();
     }
@@ -52,6 +54,23 @@ public final class VerificationText {
         for (RecoveryVerification.Verdict t : v.perTemperature()) {
             sb.append(String.format(Locale.ROOT, "  %8s %6d %9.3f %9.3f  %-28s %s%n", Units.celsius(t.temperature()),
                     t.points(), t.rmsNs(), t.maxNs(), t.worst(), t.pass() ? "pass" : "FAIL"));
+        }
+        return sb.append('\n').toString();
+    }
+
+    private static String leakage(LeakageVerification v) {
+        StringBuilder sb = new StringBuilder();
+        for (String n : v.notes()) {
+            sb.append("note: ").append(n).append('\n');
+        }
+        sb.append("Reverse leakage below breakdown: current at the measured voltage, log10(simulated/measured)\n");
+        sb.append(String.format(Locale.ROOT, "Limits per temperature: RMS %.1f decade, any point %.1f decade%n",
+                LeakageVerification.RMS_DECADES, LeakageVerification.MAX_DECADES));
+        sb.append(String.format(Locale.ROOT, "  %8s %6s %10s %10s  %-28s %s%n", "T [degC]", "points", "RMS [dec]", "max [dec]",
+                "where", "result"));
+        for (LeakageVerification.Verdict t : v.perTemperature()) {
+            sb.append(String.format(Locale.ROOT, "  %8s %6d %10.3f %10.3f  %-28s %s%n", Units.celsius(t.temperature()),
+                    t.points(), t.rmsDecades(), t.maxDecades(), t.worst(), t.pass() ? "pass" : "FAIL"));
         }
         return sb.append('\n').toString();
     }

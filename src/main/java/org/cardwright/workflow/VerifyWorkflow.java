@@ -5,7 +5,6 @@ import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.util.ArrayList;
 import java.util.List;
-import java.util.Locale;
 import java.util.Optional;
 import java.util.function.Function;
 import org.cardwright.card.CardReader;
@@ -23,6 +22,7 @@ import org.cardwright.verify.CapacitanceTolerance;
 import org.cardwright.verify.CapacitanceVerification;
 import org.cardwright.verify.CapacitanceVerifier;
 import org.cardwright.verify.JunctionVerification;
+import org.cardwright.verify.LeakageVerification;
 import org.cardwright.verify.MeasuredPoint;
 import org.cardwright.verify.RecoveryVerification;
 import org.cardwright.verify.Tolerance;
@@ -111,9 +111,14 @@ public final class VerifyWorkflow {
                 bdNotes.add("the card carries no breakdown (BV), so it cannot reach these reverse currents at any sensible voltage");
             }
             breakdown = Optional.of(new Verifier(engine, t).verify(card, pts, bdNotes));
-        } else if (!data.reverse().isEmpty()) {
-            notes.add(String.format(Locale.ROOT, "%d reverse points below breakdown are not verified (leakage is reported by fit, not held to a limit)",
-                    data.reverse().size()));
+        }
+        Optional<LeakageVerification> leakage = Optional.empty();
+        if (!split.leakage().isEmpty()) {
+            List<MeasuredPoint> pts = new ArrayList<>();
+            for (ReversePoint p : split.leakage()) {
+                pts.add(new MeasuredPoint(p.voltage(), p.current(), p.temperature(), p.source(), p.line()));
+            }
+            leakage = Optional.of(LeakageVerification.of(engine, card, pts));
         }
 
         Optional<CapacitanceVerification> capacitance = Optional.empty();
@@ -131,11 +136,7 @@ public final class VerifyWorkflow {
                     r.recoveryTime(), r.temperature(), r.source() + ":" + r.line())));
             recovery = Optional.of(RecoveryVerification.of(parsed.parameters(), recs));
         }
-        if (forward.isEmpty() && breakdown.isEmpty() && capacitance.isEmpty() && recovery.isEmpty()) {
-            throw new DataFileException(request.data().get(0), 0,
-                    "nothing the card can be held to: the reverse points lie below breakdown, where leakage is compared by fit but not verified", null);
-        }
-        JunctionVerification v = new JunctionVerification(forward, breakdown, capacitance, recovery, notes);
+        JunctionVerification v = new JunctionVerification(forward, breakdown, capacitance, recovery, leakage, notes);
         if (request.json().isPresent()) {
             OutputFiles.writeAtomically(request.json().get(), jsonRenderer.apply(v));
         }
