@@ -86,6 +86,7 @@ public record Inputs(List<MeasurementFile> files, List<Located> forward, List<Lo
         }
         setAsideCompliance(forward, notes);
         setAsideCompliance(reverse, notes);
+        setAsideBelowFloor(forward, notes);
         return new Inputs(List.copyOf(files), List.copyOf(forward), List.copyOf(reverse), List.copyOf(capacitance),
                 List.copyOf(recovery), List.copyOf(notes));
     }
@@ -134,6 +135,50 @@ public record Inputs(List<MeasurementFile> files, List<Located> forward, List<Lo
         }
         points.removeAll(plateau);
     }
+
+    /**
+     * Below an instrument's current floor a forward sweep stops rising: a higher voltage reads the same or a
+     * smaller current. Reading down from the top of each sweep (same file and temperature, by voltage), the first
+     * point whose current is not smaller than the point above it, in the bottom {@value #FLOOR_DECADES} decades
+     * of the sweep's currents, marks the floor; it and every point below it are set aside and named.
+     */
+    static void setAsideBelowFloor(List<Located> points, List<String> notes) {
+        java.util.Map<String, List<Located>> groups = new java.util.LinkedHashMap<>();
+        for (Located l : points) {
+            groups.computeIfAbsent(l.source() + "@" + l.point().temperature(), k -> new ArrayList<>()).add(l);
+        }
+        java.util.Set<Located> floor = new java.util.LinkedHashSet<>();
+        for (List<Located> g : groups.values()) {
+            List<Located> byV = new ArrayList<>(g);
+            byV.sort(java.util.Comparator.comparingDouble(l -> l.point().voltage()));
+            double top = byV.stream().mapToDouble(l -> l.point().current()).max().orElse(0);
+            double bottom = byV.stream().mapToDouble(l -> l.point().current()).min().orElse(0);
+            double limit = Math.min(top * Math.pow(10, -FLOOR_DECADES), bottom * 1e3);
+            int cut = -1;
+            for (int i = byV.size() - 1; i > 0; i--) {
+                Located here = byV.get(i);
+                Located below = byV.get(i - 1);
+                if (below.point().current() >= here.point().current() && here.point().current() < limit
+                        && here.point().voltage() - below.point().voltage() > 1e-9) {
+                    cut = i;
+                    break;
+                }
+            }
+            if (cut > 0) {
+                List<Located> gone = byV.subList(0, cut + 1);
+                floor.addAll(gone);
+                notes.add(String.format(java.util.Locale.ROOT,
+                        "%s: %d forward points at and below %.4g V set aside: the current stops rising there (lines %s), "
+                                + "which is the instrument's floor, not the diode",
+                        gone.get(0).source(), gone.size(), byV.get(cut).point().voltage(),
+                        String.join(", ", gone.stream().map(l -> Integer.toString(l.point().line())).toList())));
+            }
+        }
+        points.removeAll(floor);
+    }
+
+    /** The floor is looked for only this many decades above the sweep's smallest current, at most [decades]. */
+    static final double FLOOR_DECADES = 3;
 
     /** Currents this close (relative) count as the same [1]. */
     static final double SAME_CURRENT = 1e-4;
