@@ -27,8 +27,9 @@ import picocli.CommandLine.Parameters;
 /** {@code cardwright compare}: two cards side by side, parameters and behaviour. */
 @Command(name = "compare", mixinStandardHelpOptions = true, sortOptions = false,
         description = {
-            "Compares two diode cards: the parameters side by side, then both cards simulated by the same",
-            "engine: forward voltage at each decade of current at each temperature, reverse leakage,",
+            "Compares two diode cards: the parameters side by side, then both cards simulated (the built-in",
+            "engine uses each card's own simulator's equations): forward voltage at each decade of current at",
+            "each temperature, reverse leakage,",
             "capacitance at a few biases, and the breakdown voltage when a card has BV. Differences beyond",
             "the limits (a device file's tolerances, or the options below) are flagged; exits 1 when any is."},
         footerHeading = "%nExamples%n",
@@ -50,10 +51,10 @@ final class CompareCommand implements Callable<Integer> {
     @Option(names = "--model-b", paramLabel = "NAME", description = "Which model of CARD_B, when it holds several.")
     String modelB;
 
-    @Option(names = "--dialect-a", paramLabel = "D", defaultValue = "ngspice", description = "Dialect of CARD_A (default: ${DEFAULT-VALUE}).")
+    @Option(names = "--dialect-a", paramLabel = "D", description = "Dialect of CARD_A (default: from a NAME.DIALECT.lib file name, else ngspice).")
     String dialectA;
 
-    @Option(names = "--dialect-b", paramLabel = "D", defaultValue = "ngspice", description = "Dialect of CARD_B (default: ${DEFAULT-VALUE}).")
+    @Option(names = "--dialect-b", paramLabel = "D", description = "Dialect of CARD_B (default: from a NAME.DIALECT.lib file name, else ngspice).")
     String dialectB;
 
     @Option(names = "--engine", paramLabel = "E", defaultValue = "builtin",
@@ -87,8 +88,10 @@ final class CompareCommand implements Callable<Integer> {
     @Override
     public Integer call() throws Exception {
         CardReader reader = new CardReader();
-        ParsedCard a = reader.read(cardA, Dialect.byName(dialectA), Optional.ofNullable(modelA));
-        ParsedCard b = reader.read(cardB, Dialect.byName(dialectB), Optional.ofNullable(modelB));
+        Dialect da = VerifyCommand.dialectOf(cardA, dialectA);
+        Dialect db = VerifyCommand.dialectOf(cardB, dialectB);
+        ParsedCard a = reader.read(cardA, da, Optional.ofNullable(modelA));
+        ParsedCard b = reader.read(cardB, db, Optional.ofNullable(modelB));
         PartTolerances t = device == null ? PartTolerances.DEFAULT : new DeviceFileReader().read(device).tolerances();
         double forwardLimit = limitMillivolts != null ? limitMillivolts * 1e-3 : t.forward().max();
         List<Double> kelvin = new ArrayList<>();
@@ -99,7 +102,9 @@ final class CompareCommand implements Callable<Integer> {
                 numbers(leakageVoltages, List.of("1", "5", "20")), numbers(capacitanceBiases, List.of("0", "-1", "-5", "-10")),
                 ComparisonPlan.DEFAULT_FREQUENCY,
                 new ComparisonLimits(forwardLimit, t.leakageFactor(), t.capacitanceRelative(), t.breakdownRelative()));
-        CardComparison c = new CardComparer(Engines.byName(engine), org.cardwright.workflow.Engines.capacitanceByName(engine))
+        // the built-in engine evaluates each card with the equations of the simulator it was written for
+        CardComparison c = new CardComparer(Engines.byName(engine, da.flavour()), Engines.capacitanceByName(engine, da.flavour()),
+                Engines.byName(engine, db.flavour()), Engines.capacitanceByName(engine, db.flavour()))
                 .compare(a, Inputs.displayName(cardA), b, Inputs.displayName(cardB), plan);
         a.notices().forEach(n -> spec.commandLine().getOut().println("note: " + n));
         b.notices().forEach(n -> spec.commandLine().getOut().println("note: " + n));

@@ -31,10 +31,24 @@ public final class CardComparer {
 
     private final SimulationEngine dc;
     private final CapacitanceEngine capacitance;
+    private final SimulationEngine dcB;
+    private final CapacitanceEngine capacitanceB;
 
+    /** Both cards simulated by the same engines. */
     public CardComparer(SimulationEngine dc, CapacitanceEngine capacitance) {
+        this(dc, capacitance, dc, capacitance);
+    }
+
+    /**
+     * Card A by the first pair of engines, card B by the second: each card evaluated with the equations of the
+     * simulator it was written for, when the two dialects differ.
+     */
+    public CardComparer(SimulationEngine dc, CapacitanceEngine capacitance, SimulationEngine dcB,
+                        CapacitanceEngine capacitanceB) {
         this.dc = dc;
         this.capacitance = capacitance;
+        this.dcB = dcB;
+        this.capacitanceB = capacitanceB;
     }
 
     /** Compares {@code a} with {@code b} (differences are B minus A). */
@@ -61,7 +75,7 @@ public final class CardComparer {
             }
         }
         List<OperatingPoint> fa = dc.dc(ca, fwd);
-        List<OperatingPoint> fb = dc.dc(cb, fwd);
+        List<OperatingPoint> fb = dcB.dc(cb, fwd);
         List<CardComparison.ForwardRow> forward = new ArrayList<>();
         for (int k = 0; k < fwd.size(); k++) {
             double va = fa.get(k).voltage();
@@ -87,7 +101,7 @@ public final class CardComparer {
         List<CardComparison.LeakageRow> leakage = new ArrayList<>();
         if (!rev.isEmpty()) {
             List<OperatingPoint> la = dc.dc(ca, rev);
-            List<OperatingPoint> lb = dc.dc(cb, rev);
+            List<OperatingPoint> lb = dcB.dc(cb, rev);
             for (int k = 0; k < rev.size(); k++) {
                 double ia = -la.get(k).current();
                 double ib = -lb.get(k).current();
@@ -109,7 +123,7 @@ public final class CardComparer {
                 }
             }
             List<Double> qa = capacitance.capacitance(ca, biases, plan.frequency());
-            List<Double> qb = capacitance.capacitance(cb, biases, plan.frequency());
+            List<Double> qb = capacitanceB.capacitance(cb, biases, plan.frequency());
             for (int k = 0; k < biases.size(); k++) {
                 double x = qa.get(k);
                 double y = qb.get(k);
@@ -129,7 +143,7 @@ public final class CardComparer {
                 knee.add(Bias.current(-iref, t));
             }
             List<OperatingPoint> ka = pa.isGiven(Param.BV) ? dc.dc(ca, knee) : null;
-            List<OperatingPoint> kb = pb.isGiven(Param.BV) ? dc.dc(cb, knee) : null;
+            List<OperatingPoint> kb = pb.isGiven(Param.BV) ? dcB.dc(cb, knee) : null;
             for (int k = 0; k < knee.size(); k++) {
                 double va = ka == null ? Double.NaN : -ka.get(k).voltage();
                 double vb = kb == null ? Double.NaN : -kb.get(k).voltage();
@@ -139,7 +153,9 @@ public final class CardComparer {
         } else {
             notes.add("breakdown: neither card gives BV");
         }
-        return new CardComparison(a.name() + " (" + sourceA + ")", b.name() + " (" + sourceB + ")", dc.describe(),
+        String engines = dc.describe().equals(dcB.describe()) ? dc.describe()
+                : "A: " + dc.describe() + "; B: " + dcB.describe();
+        return new CardComparison(a.name() + " (" + sourceA + ")", b.name() + " (" + sourceB + ")", engines,
                 params, forward, leakage, caps, breakdown, notes);
     }
 

@@ -14,7 +14,7 @@ public final class ComparisonText {
         StringBuilder sb = new StringBuilder();
         sb.append("A: ").append(c.nameA()).append('\n');
         sb.append("B: ").append(c.nameB()).append('\n');
-        sb.append("Both simulated by ").append(c.engine()).append("; differences are B minus A\n");
+        sb.append("Simulated by ").append(c.engine()).append("; differences are B minus A\n");
 
         sb.append("\nParameters\n");
         sb.append(String.format(Locale.ROOT, "  %-6s %16s %16s%n", "param", "A", "B"));
