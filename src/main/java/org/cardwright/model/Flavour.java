@@ -25,7 +25,8 @@ public enum Flavour {
     XYCE("Xyce", OlderConstants.K_OVER_Q, true, true, Ngspice39.DEFAULT_GMIN),
     /**
      * gnucap 2017.10.03 with default FLAGS. It has no GMIN in the diode, but it connects 1e-12 S from every node
-     * to ground, which for a diode to ground acts as the same parallel conductance (found by running gnucap).
+     * to ground, which for a diode to ground acts as the same parallel conductance (found by running gnucap). It
+     * does not scale CJO or VJ (PB) with temperature; RS has no temperature coefficient in gnucap's card at all.
      */
     GNUCAP_2017("gnucap 2017", OlderConstants.K_OVER_Q, false, false, Ngspice39.DEFAULT_GMIN);
 
@@ -56,6 +57,11 @@ public enum Flavour {
     /** True for Xyce's high-injection law. */
     public boolean xyceKnee() {
         return xyceKnee;
+    }
+
+    /** True when CJO and VJ follow the SPICE3 temperature law; gnucap 2017 keeps them at their TNOM values. */
+    public boolean scalesCapacitance() {
+        return this != GNUCAP_2017;
     }
 
     /** True when reverse bias has SPICE's cubic region and breakdown; false: the Shockley expression throughout. */

@@ -63,6 +63,11 @@ public final class TemperatureLaws {
         double cjT = p.get(Param.CJO)
                 / (1 + m * (CAPACITANCE_TEMPCO * (tnom - Ngspice39.REFERENCE_TEMPERATURE) - gOld))
                 * (1 + m * (CAPACITANCE_TEMPCO * (t - Ngspice39.REFERENCE_TEMPERATURE) - gNew));
+        if (!options.flavour().scalesCapacitance()) {
+            // gnucap 2017: no temperature scaling of the junction potential and capacitance
+            vjT = vj;
+            cjT = p.get(Param.CJO);
+        }
         double fc = p.get(Param.FC);
         double f1 = vjT * (1 - Math.pow(1 - fc, 1 - m)) / (1 - m);
         boolean vjClamped = fc * vjT > 1;

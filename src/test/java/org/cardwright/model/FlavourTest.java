@@ -52,4 +52,16 @@ class FlavourTest {
         DiodeAtTemperature d = TemperatureLaws.at(p, 300.15, Flavour.GNUCAP_2017.options());
         assertEquals(-1e-12 - 1e-12 * 20, JunctionCurrent.current(d, -20), 1e-24, "no breakdown at -20 V");
     }
+
+    @Test
+    void gnucapKeepsJunctionCapacitanceAtItsNominalValue() {
+        // reference section 9: gnucap has "no temperature scaling of CJO, PB or RS"; confirmed against gnucap in
+        // GnucapCapacitanceTest (same C at 125 and -40 degC as at TNOM)
+        DiodeParameters p = DiodeParameters.of(Map.of(Param.CJO, 20e-12, Param.VJ, 0.75, Param.M, 0.33));
+        DiodeAtTemperature hot = TemperatureLaws.at(p, 398.15, Flavour.GNUCAP_2017.options());
+        assertEquals(20e-12, hot.junctionCapacitance(), 0);
+        assertEquals(0.75, hot.junctionPotential(), 0);
+        DiodeAtTemperature ng = TemperatureLaws.at(p, 398.15, Flavour.NGSPICE_39.options());
+        assertEquals(true, Math.abs(ng.junctionCapacitance() / 20e-12 - 1) > 0.05, "ngspice does scale it");
+    }
 }
