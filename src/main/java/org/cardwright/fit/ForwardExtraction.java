@@ -198,6 +198,7 @@ public final class ForwardExtraction {
         // ---- stage 3: optional terms, best first, while BIC falls by more than the threshold --------------
         Map<Term, Double> lastDelta = new LinkedHashMap<>();
         Map<Term, String> unobservable = new LinkedHashMap<>();
+        List<Term> accepted = new ArrayList<>();
         while (!candidates.isEmpty()) {
             Term chosen = null;
             Optimiser.Run chosenRun = null;
@@ -248,8 +249,41 @@ public final class ForwardExtraction {
             decisions.add(new TermDecision(chosen.name(), chosen.params(), true, chosenBic - bestBic,
                     String.format(Locale.ROOT, "BIC fell by %.1f (threshold %.0f)", bestBic - chosenBic, BIC_THRESHOLD)));
             candidates.remove(chosen);
+            accepted.add(chosen);
             best = chosenRun;
             bestBic = chosenBic;
+        }
+        // backward check: a term taken early (self-heating standing in for a knee not yet added, say) must still
+        // earn its place once the others are in; one that no longer lowers BIC by the threshold is taken out
+        if (accepted.size() > 1) {
+            for (Term term : new ArrayList<>(accepted)) {
+                List<Param> without = new ArrayList<>(best.layout().free());
+                without.removeAll(term.params());
+                DiodeParameters reduced = best.parameters();
+                for (Param p : term.params()) {
+                    reduced = reduced.without(p);
+                }
+                Optimiser.Run r;
+                try {
+                    r = run(blocks, reduced, without);
+                } catch (RuntimeException e) {
+                    continue;
+                }
+                double b = bic(r.rss(), n, r.layout().size());
+                if (b - bestBic < BIC_THRESHOLD) {
+                    accepted.remove(term);
+                    for (int k = 0; k < decisions.size(); k++) {
+                        if (decisions.get(k).term().equals(term.name())) {
+                            decisions.set(k, new TermDecision(term.name(), term.params(), false, b - bestBic,
+                                    String.format(Locale.ROOT,
+                                            "taken out again once the other terms were in: without it BIC rises by only %+.1f (needs %.0f)",
+                                            b - bestBic, BIC_THRESHOLD)));
+                        }
+                    }
+                    best = r;
+                    bestBic = b;
+                }
+            }
         }
         for (Term term : candidates) {
             double d = lastDelta.getOrDefault(term, Double.NaN);

@@ -44,4 +44,27 @@ class FitEdgeCasesTest {
         assertEquals(3, s.leakage().size(), "-1, -2 and -3 V");
         assertTrue(s.leakage().stream().anyMatch(p -> p.voltage() == -3));
     }
+
+    @Test
+    void aTermTakenEarlyIsDroppedWhenTheRightOnesExplainTheData() throws Exception {
+        // a base-emitter junction with a strong knee and no self-heating: taken greedily, RTH0 first stands in for
+        // part of the knee; once IKF is in, the backward check must take it out again
+        DiodeParameters truth = DiodeParameters.of(Map.of(Param.IS, 3e-16, Param.N, 1.0, Param.RS, 12.0,
+                Param.ISR, 5e-13, Param.NR, 1.8, Param.IKF, 3e-3));
+        java.util.Random r = new java.util.Random(3);
+        List<FitPoint> pts = new ArrayList<>();
+        for (double c : new double[] {0, 50, 100}) {
+            DiodeAtTemperature d = TemperatureLaws.at(truth, c + 273.15, SimulatorOptions.NGSPICE_DEFAULTS);
+            for (int k = 0; k <= 64; k++) {
+                double i = 1e-9 * Math.pow(10, k / 8.0);
+                double v = DiodeSolver.voltageAtCurrent(d, i) + 2e-4 * r.nextGaussian();
+                pts.add(new FitPoint(i * (1 + 1e-3 * r.nextGaussian()), v, c + 273.15, 1e-3, "be.csv", pts.size() + 2));
+            }
+        }
+        FitResult fit = new JunctionExtraction(FitSettings.defaults().withKind(DeviceKind.BASE_EMITTER), CapacitanceOptions.DEFAULT)
+                .fit(ExtractionData.forwardOnly(pts));
+        assertTrue(!fit.parameters().isGiven(Param.RTH0), "no self-heating on the card: " + fit.terms());
+        assertTrue(fit.parameters().isGiven(Param.IKF) && fit.parameters().isGiven(Param.ISR), fit.terms().toString());
+        assertEquals(3e-3, fit.parameters().get(Param.IKF), 0.05 * 3e-3);
+    }
 }
