@@ -256,7 +256,8 @@ public final class ForwardExtraction {
         // backward check: a term taken early (self-heating standing in for a knee not yet added, say) must still
         // earn its place once the others are in; one that no longer lowers BIC by the threshold is taken out
         if (accepted.size() > 1) {
-            for (Term term : new ArrayList<>(accepted)) {
+            // the last term taken was judged with every other one already in; the earlier ones need the check
+            for (Term term : new ArrayList<>(accepted.subList(0, accepted.size() - 1))) {
                 List<Param> without = new ArrayList<>(best.layout().free());
                 without.removeAll(term.params());
                 DiodeParameters reduced = best.parameters();
