@@ -52,19 +52,22 @@ public record FitResult(DiodeParameters parameters, List<FittedParameter> fitted
      * in both, e.g. "forward 20.312 mV (0.254 mV with every term), breakdown 174.1 mV (0.7 mV with every term)".
      */
     public String costAgainst(FitResult better) {
-        StringBuilder sb = new StringBuilder(String.format(java.util.Locale.ROOT, "forward %.3f mV (%.3f mV with every term)",
-                worstRms() * 1e3, better.worstRms() * 1e3));
+        StringBuilder sb = new StringBuilder();
+        if (!residuals.isEmpty()) {
+            sb.append(String.format(java.util.Locale.ROOT, "forward %.3f mV (%.3f mV with every term)",
+                    worstRms() * 1e3, better.worstRms() * 1e3));
+        }
         java.util.Map<String, Double> mine = worstOtherByKind();
         java.util.Map<String, Double> theirs = better.worstOtherByKind();
         for (java.util.Map.Entry<String, Double> e : theirs.entrySet()) {
             if (!mine.containsKey(e.getKey())) {
-                sb.append(", ").append(e.getKey()).append(" not carried");
+                sb.append(sb.length() == 0 ? "" : ", ").append(e.getKey()).append(" not carried");
             }
         }
         for (java.util.Map.Entry<String, Double> e : mine.entrySet()) {
             String unit = otherResiduals.stream().filter(k -> k.kind().equals(e.getKey())).findFirst().orElseThrow().unit();
-            sb.append(String.format(java.util.Locale.ROOT, ", %s %.3f %s (%.3f %s with every term)", e.getKey(), e.getValue(),
-                    unit, theirs.getOrDefault(e.getKey(), Double.NaN), unit));
+            sb.append(sb.length() == 0 ? "" : ", ").append(String.format(java.util.Locale.ROOT, "%s %.3f %s (%.3f %s with every term)",
+                    e.getKey(), e.getValue(), unit, theirs.getOrDefault(e.getKey(), Double.NaN), unit));
         }
         return sb.toString();
     }
