@@ -7,8 +7,6 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.TreeMap;
-import org.apache.commons.math3.linear.RealMatrix;
-import org.apache.commons.math3.linear.SingularValueDecomposition;
 import org.cardwright.model.DiodeAtTemperature;
 import org.cardwright.model.DiodeParameters;
 import org.cardwright.model.JunctionCapacitance;
@@ -36,8 +34,6 @@ import org.cardwright.model.TemperatureLaws;
  * RS and the conductance in TT·g. A known stray capacitance is subtracted from every reading.
  */
 public final class CapacitanceExtraction {
-    /** A correlation beyond this is reported [1]. */
-    private static final double STRONG_CORRELATION = 0.995;
     /** Mean squared weighted residual below which fits are indistinguishable [1]. */
     private static final double RESIDUAL_FLOOR_SQUARED = 1e-6;
     /** Distinct reverse-bias voltages needed at one temperature for CJO, VJ and M. */
@@ -374,26 +370,12 @@ public final class CapacitanceExtraction {
         double reduced = dof > 0 ? chi2 / dof : Double.NaN;
         DiodeParameters p = best.parameters();
 
-        double[] se = new double[k];
-        double[][] corr = new double[k][k];
-        if (k > 0) {
-            RealMatrix j = model.jacobian(best.x());
-            SingularValueDecomposition svd = new SingularValueDecomposition(j.transpose().multiply(j));
-            RealMatrix cov = svd.getSolver().getInverse();
-            // Commons Math's covariance is unscaled: multiply by the reduced chi-square
-            double scale = Double.isFinite(reduced) ? reduced : 1;
-            boolean singular = svd.getConditionNumber() > 1e15;
-            for (int a = 0; a < k; a++) {
-                double sx = singular ? Double.POSITIVE_INFINITY : Math.sqrt(Math.max(cov.getEntry(a, a) * scale, 0));
-                se[a] = layout.isLog(a) ? layout.value(a, best.x()[a]) * sx : sx;
-                for (int b = 0; b < k; b++) {
-                    corr[a][b] = cov.getEntry(a, b) / Math.sqrt(cov.getEntry(a, a) * cov.getEntry(b, b));
-                }
-            }
-            if (singular) {
-                warnings.add("the capacitance parameters are not all independent for this data (the curvature matrix "
-                        + "is singular); standard errors are not available");
-            }
+        Uncertainty u = Uncertainty.of(model, best, reduced);
+        double[] se = u.standardErrors();
+        double[][] corr = u.correlations();
+        if (u.singular()) {
+            warnings.add("the capacitance parameters are not all independent for this data (the curvature matrix "
+                    + "is singular); standard errors are not available");
         }
 
         List<FittedParameter> fitted = new ArrayList<>();
@@ -424,15 +406,7 @@ public final class CapacitanceExtraction {
                         q, num(b[0]), num(b[1])));
             }
         }
-        for (int a = 0; a < k; a++) {
-            for (int b = a + 1; b < k; b++) {
-                if (Math.abs(corr[a][b]) > STRONG_CORRELATION) {
-                    warnings.add(String.format(Locale.ROOT,
-                            "%s and %s are strongly correlated (r = %.4f): the data fix a combination of them better than each alone",
-                            layout.free().get(a), layout.free().get(b), corr[a][b]));
-                }
-            }
-        }
+        u.addCorrelationWarnings(layout, warnings);
         List<Double> checkTemperatures = new ArrayList<>(byT.keySet());
         checkTemperatures.add(Ngspice39.REFERENCE_TEMPERATURE);
         for (double t : checkTemperatures) {

@@ -6,8 +6,6 @@ import java.util.Locale;
 import java.util.Map;
 import java.util.TreeMap;
 import java.util.function.Function;
-import org.apache.commons.math3.linear.RealMatrix;
-import org.apache.commons.math3.linear.SingularValueDecomposition;
 import org.cardwright.model.DiodeParameters;
 import org.cardwright.model.Param;
 
@@ -16,9 +14,6 @@ import org.cardwright.model.Param;
  * scaled by the reduced chi-square, correlations, residual statistics, and the warnings a user must see.
  */
 final class ResultAssembly {
-    /** A correlation beyond this is reported [1]. */
-    private static final double STRONG_CORRELATION = 0.995;
-
     private ResultAssembly() {
     }
 
@@ -43,28 +38,11 @@ final class ResultAssembly {
         double chi2 = best.rss();
         double reduced = dof > 0 ? chi2 / dof : Double.NaN;
 
-        double[] se = new double[k];
-        double[][] corr = new double[k][k];
-        if (k > 0) {
-            RealMatrix j = model.jacobian(best.x());
-            RealMatrix jtj = j.transpose().multiply(j);
-            SingularValueDecomposition svd = new SingularValueDecomposition(jtj);
-            RealMatrix cov = svd.getSolver().getInverse();
-            // Commons Math gives the unscaled covariance; multiply by the reduced chi-square (see
-            // Hipparchus EvaluationTest.testComputeSigma for the same convention)
-            double scale = Double.isFinite(reduced) ? reduced : 1;
-            boolean singular = svd.getConditionNumber() > 1e15;
-            for (int a = 0; a < k; a++) {
-                double var = cov.getEntry(a, a) * scale;
-                double sx = singular ? Double.POSITIVE_INFINITY : Math.sqrt(Math.max(var, 0));
-                se[a] = layout.isLog(a) ? layout.value(a, best.x()[a]) * sx : sx;
-                for (int b = 0; b < k; b++) {
-                    corr[a][b] = cov.getEntry(a, b) / Math.sqrt(cov.getEntry(a, a) * cov.getEntry(b, b));
-                }
-            }
-            if (singular) {
-                warnings.add("the fitted parameters are not all independent for this data (the curvature matrix is singular); standard errors are not available");
-            }
+        Uncertainty u = Uncertainty.of(model, best, reduced);
+        double[] se = u.standardErrors();
+        double[][] corr = u.correlations();
+        if (u.singular()) {
+            warnings.add("the fitted parameters are not all independent for this data (the curvature matrix is singular); standard errors are not available");
         }
 
         List<FittedParameter> fitted = new ArrayList<>();
@@ -100,15 +78,8 @@ final class ResultAssembly {
                 }
             }
         }
-        for (int a = 0; a < k; a++) {
-            for (int b = a + 1; b < k; b++) {
-                if (Math.abs(corr[a][b]) > STRONG_CORRELATION) {
-                    warnings.add(String.format(Locale.ROOT,
-                            "%s and %s are strongly correlated (r = %.4f): the data fix a combination of them better than each alone",
-                            layout.free().get(a), layout.free().get(b), corr[a][b]));
-                }
-            }
-        }
+        u.addCorrelationWarnings(layout, warnings);
+
 
         double[] v = forward.voltages(p);
         List<SweepResiduals> residuals = new ArrayList<>();
