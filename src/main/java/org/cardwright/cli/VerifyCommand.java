@@ -5,12 +5,14 @@ import java.util.List;
 import java.util.Optional;
 import java.util.concurrent.Callable;
 import org.cardwright.card.Dialect;
+import org.cardwright.report.HtmlReport;
 import org.cardwright.report.VerificationJson;
 import org.cardwright.report.VerificationText;
 import org.cardwright.verify.Tolerance;
 import org.cardwright.verify.JunctionVerification;
 import org.cardwright.workflow.Engines;
 import org.cardwright.workflow.Inputs;
+import org.cardwright.workflow.OutputFiles;
 import org.cardwright.workflow.VerifyRequest;
 import org.cardwright.workflow.VerifyWorkflow;
 import picocli.CommandLine.Command;
@@ -27,6 +29,7 @@ import picocli.CommandLine.Parameters;
         footer = {
             "  cardwright verify models/KS1.ngspice.lib fixtures/demo/ks1-forward-*.csv",
             "  cardwright verify models/KS1.ngspice.lib fixtures/demo/ks1-*.csv --engine ngspice --json check.json",
+            "  cardwright verify models/KS1.ngspice.lib fixtures/demo/ks1-*.csv --html KS1-evidence.html",
             "  cardwright verify vendor.lib bench.csv --temp 25 --model D7 --limit-rms 5 --limit-max 15"})
 final class VerifyCommand implements Callable<Integer> {
 
@@ -58,7 +61,11 @@ final class VerifyCommand implements Callable<Integer> {
     @Option(names = "--json", paramLabel = "FILE", description = "Also write the result, point by point, as JSON.")
     Path json;
 
-    @Option(names = "--force", description = "Replace an existing JSON file.")
+    @Option(names = "--html", paramLabel = "FILE",
+            description = "Also write an evidence page: one self-contained HTML file with plots and tables.")
+    Path html;
+
+    @Option(names = "--force", description = "Replace an existing JSON or HTML file.")
     boolean force;
 
     @picocli.CommandLine.Mixin
@@ -83,12 +90,21 @@ final class VerifyCommand implements Callable<Integer> {
 
     @Override
     public Integer call() throws Exception {
+        if (html != null) {
+            if (json != null && json.toAbsolutePath().normalize().equals(html.toAbsolutePath().normalize())) {
+                throw new IllegalArgumentException("--json and --html both name " + html + "; give them different files");
+            }
+            OutputFiles.checkWritable(List.of(html), force);
+        }
         VerifyRequest request = new VerifyRequest(card, data, engine, Optional.ofNullable(model), dialectOf(card, dialect),
                 reading.temperatureKelvin(),
                 new Tolerance(limitRms * 1e-3, limitMax * 1e-3), Optional.ofNullable(json), force,
                 reading.capacitance(),
                 reading.bench(true));
         JunctionVerification v = new VerifyWorkflow().runAll(request, r -> VerificationJson.write(r, Inputs.displayName(card)));
+        if (html != null) {
+            OutputFiles.writeAtomically(html, HtmlReport.render(v, Inputs.displayName(card)));
+        }
         spec.commandLine().getOut().print(VerificationText.render(v));
         spec.commandLine().getOut().flush();
         return v.pass() ? ExitCodes.OK : ExitCodes.NOT_REPRODUCED;

@@ -1,0 +1,183 @@
+package org.cardwright.report;
+
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+
+/**
+ * One axis of an evidence plot: its scale (linear, or logarithmic in whole decades), its range, its ticks and its
+ * label. Ranges snap outward to tick positions so a plot's frame sits on ticks; tick labels are formatted with
+ * {@link Locale#ROOT} so the same data always give the same text.
+ */
+final class PlotAxis {
+    /** How values map to positions. */
+    enum Scale { LINEAR, LOG }
+
+    /**
+     * A tick mark.
+     *
+     * @param value where it sits, in the axis's unit
+     * @param label its text; empty for an unlabelled tick
+     * @param major true for a tick that also draws a grid line
+     */
+    record Tick(double value, String label, boolean major) {
+    }
+
+    /** About how many labelled ticks a linear axis aims for [1]. */
+    private static final double LINEAR_TICKS = 6;
+    /** Most decade labels a log axis shows before it labels only every second (third, ...) decade [1]. */
+    private static final int MAX_DECADE_LABELS = 9;
+    /**
+     * Share of the data span added on each side of a linear axis before snapping, so no marker is cut by the frame:
+     * 1 % of a plot's width is about 5 px, more than a marker's radius [1].
+     */
+    private static final double PAD_FRACTION = 0.01;
+
+    private final Scale scale;
+    private final double low;
+    private final double high;
+    private final String label;
+    private final List<Tick> ticks;
+
+    private PlotAxis(Scale scale, double low, double high, String label, List<Tick> ticks) {
+        this.scale = scale;
+        this.low = low;
+        this.high = high;
+        this.label = label;
+        this.ticks = List.copyOf(ticks);
+    }
+
+    /** A linear axis covering {@code min..max} (finite, any order), padded a little and snapped to 1-2-5 steps. */
+    static PlotAxis linear(double min, double max, String label) {
+        double lo = Math.min(min, max);
+        double hi = Math.max(min, max);
+        if (!Double.isFinite(lo) || !Double.isFinite(hi)) {
+            throw new IllegalArgumentException("a plot axis needs finite limits, got " + min + " and " + max);
+        }
+        double span = hi - lo;
+        if (span == 0) {
+            span = lo == 0 ? 1 : Math.abs(lo) * 0.1;
+            lo -= span / 2;
+            hi += span / 2;
+        }
+        // pad, but never across zero: data that start at 0 V keep their axis starting at 0
+        lo = lo >= 0 ? Math.max(0, lo - PAD_FRACTION * span) : lo - PAD_FRACTION * span;
+        hi = hi <= 0 ? Math.min(0, hi + PAD_FRACTION * span) : hi + PAD_FRACTION * span;
+        return snapped(lo, hi, label);
+    }
+
+    /** A linear axis from 0 to {@code max} (positive, finite), padded at the top and snapped to 1-2-5 steps. */
+    static PlotAxis fromZero(double max, String label) {
+        if (!(max > 0) || !Double.isFinite(max)) {
+            throw new IllegalArgumentException("an axis from zero needs a positive finite top, got " + max);
+        }
+        return snapped(0, max * (1 + PAD_FRACTION), label);
+    }
+
+    /** A linear axis from {@code -extent} to {@code +extent}, snapped outward to 1-2-5 steps; for residuals. */
+    static PlotAxis symmetric(double extent, String label) {
+        double e = extent > 0 && Double.isFinite(extent) ? extent : 1;
+        return snapped(-e, e, label);
+    }
+
+    /** A logarithmic axis covering the positive values {@code min..max} in whole decades. */
+    static PlotAxis log(double min, double max, String label) {
+        double lo = Math.min(min, max);
+        double hi = Math.max(min, max);
+        if (!(lo > 0) || !Double.isFinite(hi)) {
+            throw new IllegalArgumentException("a log axis needs positive finite limits, got " + min + " and " + max);
+        }
+        int first = (int) Math.floor(Math.log10(lo) + 1e-9);
+        int last = (int) Math.ceil(Math.log10(hi) - 1e-9);
+        if (last <= first) {
+            last = first + 1;
+        }
+        int every = (last - first + MAX_DECADE_LABELS - 1) / MAX_DECADE_LABELS;
+        List<Tick> ticks = new ArrayList<>();
+        for (int d = first; d <= last; d++) {
+            double decade = Math.pow(10, d);
+            boolean labelled = Math.floorMod(d - first, every) == 0;
+            ticks.add(new Tick(decade, labelled ? decadeLabel(d) : "", true));
+            if (d < last) {
+                for (int m = 2; m <= 9; m++) {
+                    ticks.add(new Tick(m * decade, "", false));
+                }
+            }
+        }
+        return new PlotAxis(Scale.LOG, Math.pow(10, first), Math.pow(10, last), label, ticks);
+    }
+
+    private static PlotAxis snapped(double lo, double hi, String label) {
+        double step = niceStep((hi - lo) / LINEAR_TICKS);
+        long firstIndex = (long) Math.floor(lo / step + 1e-9);
+        long lastIndex = (long) Math.ceil(hi / step - 1e-9);
+        int decimals = Math.max(0, (int) -Math.floor(Math.log10(step) + 1e-9));
+        List<Tick> ticks = new ArrayList<>();
+        for (long i = firstIndex; i <= lastIndex; i++) {
+            double v = i * step;
+            ticks.add(new Tick(v, number(v, decimals), true));
+        }
+        return new PlotAxis(Scale.LINEAR, firstIndex * step, lastIndex * step, label, ticks);
+    }
+
+    /** The 1, 2 or 5 times a power of ten nearest above {@code raw}. */
+    static double niceStep(double raw) {
+        double magnitude = Math.pow(10, Math.floor(Math.log10(raw)));
+        double norm = raw / magnitude;
+        double nice = norm <= 1 ? 1 : norm <= 2 ? 2 : norm <= 5 ? 5 : 10;
+        return nice * magnitude;
+    }
+
+    /** {@code value} with {@code decimals} decimals; never "-0". */
+    private static String number(double value, int decimals) {
+        String s = String.format(Locale.ROOT, "%." + decimals + "f", value);
+        return s.matches("-0(\\.0*)?") ? s.substring(1) : s;
+    }
+
+    /**
+     * 10^exponent as a SPICE number with a scale suffix: 1f, 10f, 100f, 1p, ..., 1m, 10m, 100m, 1, 10, 100, 1k,
+     * ..., 1meg, ..., 1g, ..., 1t; outside f..t, 1e-18 style.
+     */
+    static String decadeLabel(int exponent) {
+        String[] suffix = {"f", "p", "n", "u", "m", "", "k", "meg", "g", "t"};
+        int group = Math.floorDiv(exponent, 3);
+        if (group < -5 || group > 4) {
+            return "1e" + exponent;
+        }
+        int mantissa = (int) Math.round(Math.pow(10, exponent - 3 * group));
+        return mantissa + suffix[group + 5];
+    }
+
+    /** Position of {@code value} along the axis, 0 at the low end and 1 at the high end [1]. */
+    double fraction(double value) {
+        if (scale == Scale.LOG) {
+            return (Math.log10(value) - Math.log10(low)) / (Math.log10(high) - Math.log10(low));
+        }
+        return (value - low) / (high - low);
+    }
+
+    /** True when {@code value} can be placed on this axis (finite, and positive on a log axis). */
+    boolean accepts(double value) {
+        return Double.isFinite(value) && (scale == Scale.LINEAR || value > 0);
+    }
+
+    Scale scale() {
+        return scale;
+    }
+
+    double low() {
+        return low;
+    }
+
+    double high() {
+        return high;
+    }
+
+    String label() {
+        return label;
+    }
+
+    List<Tick> ticks() {
+        return ticks;
+    }
+}

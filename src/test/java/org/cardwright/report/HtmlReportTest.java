@@ -1,0 +1,467 @@
+package org.cardwright.report;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.io.ByteArrayInputStream;
+import java.io.PrintWriter;
+import java.io.StringWriter;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.Optional;
+import java.util.regex.Matcher;
+import java.util.regex.Pattern;
+import javax.xml.parsers.DocumentBuilder;
+import javax.xml.parsers.DocumentBuilderFactory;
+import org.cardwright.cli.Main;
+import org.cardwright.model.DiodeParameters;
+import org.cardwright.model.Param;
+import org.cardwright.model.SimulatorOptions;
+import org.cardwright.sim.Bias;
+import org.cardwright.sim.BuiltinCapacitance;
+import org.cardwright.sim.BuiltinEngine;
+import org.cardwright.sim.CardUnderTest;
+import org.cardwright.testsupport.Simulators;
+import org.cardwright.verify.CapacitanceMeasurement;
+import org.cardwright.verify.CapacitanceTolerance;
+import org.cardwright.verify.CapacitanceVerification;
+import org.cardwright.verify.CapacitanceVerifier;
+import org.cardwright.verify.JunctionVerification;
+import org.cardwright.verify.LeakageVerification;
+import org.cardwright.verify.MeasuredPoint;
+import org.cardwright.verify.RecoveryVerification;
+import org.cardwright.verify.Tolerance;
+import org.cardwright.verify.Verification;
+import org.cardwright.verify.Verifier;
+import org.junit.jupiter.api.Test;
+import org.w3c.dom.Document;
+import org.w3c.dom.Element;
+import org.w3c.dom.NodeList;
+
+/**
+ * The evidence page: every plot is well-formed SVG, each temperature gets one line and one marker per point,
+ * the limits are drawn where they belong, the page is byte-stable and self-contained, and the CLI writes it and
+ * refuses to overwrite it without --force. The verification comes from the built-in engine on an invented card
+ * and invented "measurements" made by moving the card's own simulation by offsets chosen here.
+ */
+class HtmlReportTest {
+    /** Invented card: a small silicon zener-like junction (no real part). */
+    private static final DiodeParameters CARD = DiodeParameters.of(Map.ofEntries(Map.entry(Param.IS, 2e-15),
+            Map.entry(Param.N, 1.05), Map.entry(Param.RS, 0.8), Map.entry(Param.BV, 5.6), Map.entry(Param.IBV, 1e-3),
+            Map.entry(Param.CJO, 1.2e-10), Map.entry(Param.VJ, 0.75), Map.entry(Param.M, 0.4), Map.entry(Param.TT, 2e-8),
+            Map.entry(Param.EG, 1.11), Map.entry(Param.XTI, 3.0)));
+    private static final String NAME = "HR1";
+    private static final double T25 = 298.15;
+    private static final double T85 = 358.15;
+    private static final SimulatorOptions OPTIONS = SimulatorOptions.NGSPICE_DEFAULTS;
+
+    /** Forward currents at 25 degC: 100 nA to 100 mA, one a decade [A]. */
+    private static final double[] FORWARD_25 = {1e-7, 1e-6, 1e-5, 1e-4, 1e-3, 1e-2, 1e-1};
+    /** Offsets added to the card's voltage to make the 25 degC "measurements" [V]; all well inside 2 mV / 5 mV. */
+    private static final double[] OFFSET_25 = {0.4e-3, -0.3e-3, 0.2e-3, 0, -0.5e-3, 0.3e-3, -0.1e-3};
+    /** Forward currents at 85 degC [A]. */
+    private static final double[] FORWARD_85 = {1e-6, 1e-4, 1e-2, 5e-2};
+    /** Offsets at 85 degC [V]; the 8 mV one breaks the 5 mV single-point limit, so 85 degC fails. */
+    private static final double[] OFFSET_85 = {0.2e-3, 8e-3, -0.4e-3, 0.1e-3};
+    /** Reverse currents in breakdown at 25 degC [A]. */
+    private static final double[] BREAKDOWN_25 = {-1e-4, -1e-3, -1e-2};
+    /** C-V biases at 25 degC [V] and 85 degC. */
+    private static final double[] CV_25 = {-4, -2, -1, 0};
+    private static final double[] CV_85 = {-3, -1, 0.2};
+    /** Relative offsets of the C-V "readings" from the card [1]; all inside 1 % RMS / 3 % max. */
+    private static final double CV_OFFSET = 0.004;
+
+    /**
+     * Coordinates are written with 0.1 px resolution, so a distance between two lines is off by at most 0.1 px; on
+     * distances of tens of pixels a ratio of distances is good to about 0.5 % [1].
+     */
+    private static final double PIXEL_RATIO_TOLERANCE = 0.005;
+
+    // ---------------------------------------------------------------------------------------------------------
+
+    @Test
+    void everyPlotIsWellFormedSvgAndTheWholePageParsesAsXml() throws Exception {
+        String page = HtmlReport.render(verification(), "cards/HR1.ngspice.lib");
+        List<Element> svgs = svgs(page);
+        // forward, breakdown and C-V: a curve and a residual plot each; recovery and leakage have tables only
+        assertEquals(6, svgs.size(), "plots on the page");
+        // the page as a whole is also well-formed (XHTML-compatible syntax), so any XML tool can read it
+        parse(page);
+    }
+
+    @Test
+    void eachTemperatureHasOneLineAndOneMarkerPerPoint() throws Exception {
+        List<Element> svgs = svgs(HtmlReport.render(verification(), "cards/HR1.ngspice.lib"));
+        Map<String, List<Integer>> expected = Map.of(
+                "forward-curve", List.of(FORWARD_25.length, FORWARD_85.length),
+                "forward-residuals", List.of(FORWARD_25.length, FORWARD_85.length),
+                "breakdown-curve", List.of(BREAKDOWN_25.length),
+                "breakdown-residuals", List.of(BREAKDOWN_25.length),
+                "capacitance-curve", List.of(CV_25.length, CV_85.length),
+                "capacitance-residuals", List.of(CV_25.length, CV_85.length));
+        for (Element svg : svgs) {
+            String id = svg.getAttribute("id");
+            List<Element> series = byClass(svg, "g", "series");
+            List<Integer> counts = expected.get(id);
+            assertEquals(counts.size(), series.size(), id + ": one series per temperature");
+            for (int i = 0; i < series.size(); i++) {
+                Element g = series.get(i);
+                int n = counts.get(i);
+                assertEquals(1, g.getElementsByTagName("polyline").getLength(), id + " " + g.getAttribute("data-series"));
+                assertEquals(n, g.getElementsByTagName("circle").getLength(), id + " " + g.getAttribute("data-series"));
+                String points = ((Element) g.getElementsByTagName("polyline").item(0)).getAttribute("points");
+                assertEquals(n, points.trim().split("\\s+").length, id + ": line vertices");
+            }
+            // series in rising temperature, labelled in degC, each in its own colour
+            List<String> keys = series.stream().map(g -> g.getAttribute("data-series")).toList();
+            assertEquals(counts.size() == 2 ? List.of("25.0", "85.0") : List.of("25.0"), keys, id);
+            assertEquals(series.size(), series.stream().map(g -> g.getAttribute("stroke")).distinct().count(), id);
+        }
+    }
+
+    @Test
+    void markersFollowTheData() throws Exception {
+        Element curve = svg(HtmlReport.render(verification(), "c.lib"), "forward-curve");
+        // 25 degC: current rises with each point, so on a log axis drawn upwards every marker sits higher (smaller y)
+        List<Element> circles = elements(byClass(curve, "g", "series").get(0), "circle");
+        for (int i = 1; i < circles.size(); i++) {
+            assertTrue(y(circles.get(i), "cy") < y(circles.get(i - 1), "cy"), "marker " + i + " above marker " + (i - 1));
+        }
+        // one decade a point: equal vertical steps on a log axis (within the 0.1 px rounding, twice)
+        double step = y(circles.get(0), "cy") - y(circles.get(1), "cy");
+        for (int i = 2; i < circles.size(); i++) {
+            assertEquals(step, y(circles.get(i - 1), "cy") - y(circles.get(i), "cy"), 0.2, "decade step " + i);
+        }
+        // each marker names the file and line it came from
+        assertTrue(circles.get(0).getTextContent().startsWith("fwd-25.csv:1,"), circles.get(0).getTextContent());
+    }
+
+    @Test
+    void residualPlotsDrawBothLimitsOnEachSideOfZero() throws Exception {
+        String page = HtmlReport.render(verification(), "c.lib");
+        Verification forward = verification().forward().orElseThrow();
+        assertLimits(svg(page, "forward-residuals"), forward.tolerance().rms(), forward.tolerance().max());
+        Verification breakdown = verification().breakdown().orElseThrow();
+        assertLimits(svg(page, "breakdown-residuals"), breakdown.tolerance().rms(), breakdown.tolerance().max());
+        assertLimits(svg(page, "capacitance-residuals"), CapacitanceTolerance.DEFAULT.rmsPercent(),
+                CapacitanceTolerance.DEFAULT.maxPercent());
+        // the legend names the limits in the plot's unit
+        assertTrue(svg(page, "forward-residuals").getTextContent().contains("RMS limit \u00b12.00 mV"));
+        assertTrue(svg(page, "capacitance-residuals").getTextContent().contains("point limit \u00b13.00 %"));
+    }
+
+    @Test
+    void cardValuesFarOffTheScaleAreLeftOutAndCounted() throws Exception {
+        // a card without BV cannot carry breakdown currents: its voltage there is absurd (or not finite)
+        CardUnderTest noBreakdown = new CardUnderTest(NAME, CARD.without(Param.BV), "*");
+        BuiltinEngine engine = new BuiltinEngine(OPTIONS);
+        List<MeasuredPoint> reverse = shifted(engine, new CardUnderTest(NAME, CARD, "*"), BREAKDOWN_25,
+                new double[] {0, 0, 0}, T25, "rev-25.csv");
+        Verification bd = new Verifier(engine, new Tolerance(0.03, 0.06)).verify(noBreakdown, reverse, List.of());
+        assertFalse(bd.pass(), "precondition: the card without BV fails");
+        String page = HtmlReport.render(new JunctionVerification(Optional.empty(), Optional.of(bd), Optional.empty(),
+                Optional.empty(), Optional.empty(), List.of()), "c.lib");
+        Element curve = svg(page, "breakdown-curve");
+        Element g = byClass(curve, "g", "series").get(0);
+        assertEquals(BREAKDOWN_25.length, g.getElementsByTagName("circle").getLength(), "measured points all drawn");
+        assertEquals(0, g.getElementsByTagName("polyline").getLength(), "no line through off-scale card values");
+        Element residuals = svg(page, "breakdown-residuals");
+        assertEquals(0, byClass(residuals, "g", "series").get(0).getElementsByTagName("circle").getLength());
+        assertEquals(2, page.split(Pattern.quote(BREAKDOWN_25.length + " of the card's values are off the scale"), -1).length - 1,
+                "both captions count the values left out");
+        assertTrue(page.contains("class=\"verdict fail\""));
+    }
+
+    @Test
+    void logAxesTickAtDecadesWithSpiceSuffixes() throws Exception {
+        // SPICE scale suffixes f p n u m k meg g t (fact of the trade: SPICE reads M as milli, so mega is meg)
+        assertEquals("1n", PlotAxis.decadeLabel(-9));
+        assertEquals("10n", PlotAxis.decadeLabel(-8));
+        assertEquals("100u", PlotAxis.decadeLabel(-4));
+        assertEquals("1", PlotAxis.decadeLabel(0));
+        assertEquals("10k", PlotAxis.decadeLabel(4));
+        assertEquals("1meg", PlotAxis.decadeLabel(6));
+        assertEquals("1f", PlotAxis.decadeLabel(-15));
+        Element residuals = svg(HtmlReport.render(verification(), "c.lib"), "forward-residuals");
+        List<String> labels = elements(byClass(residuals, "g", "ticks").get(0), "text").stream()
+                .map(Element::getTextContent).toList();
+        // forward currents 100 nA .. 100 mA: decades 100n .. 100m along x, linear mV ticks up the side
+        for (String decade : List.of("100n", "1u", "10u", "100u", "1m", "10m", "100m")) {
+            assertTrue(labels.contains(decade), decade + " in " + labels);
+        }
+        assertTrue(labels.contains("0"), "zero residual tick in " + labels);
+        // linear axes tick at 1-2-5 steps
+        assertEquals(0.5, PlotAxis.niceStep(0.37), 1e-15);
+        assertEquals(2e-3, PlotAxis.niceStep(1.2e-3), 1e-18);
+        PlotAxis volts = PlotAxis.linear(0.013, 0.98, "V");
+        assertEquals(0.0, volts.low(), 0.0, "an axis of positive data is not padded below zero");
+        assertEquals(List.of("0.0", "0.2", "0.4", "0.6", "0.8", "1.0"),
+                volts.ticks().stream().map(PlotAxis.Tick::label).toList());
+    }
+
+    @Test
+    void headerTablesAndVerdictSayWhatFailed() throws Exception {
+        String page = HtmlReport.render(verification(), "cards/<HR1>&.lib");
+        assertTrue(page.contains("<h1>Card HR1</h1>"), "card name");
+        assertTrue(page.contains("cards/&lt;HR1&gt;&amp;.lib"), "card file, escaped");
+        assertTrue(page.contains(new BuiltinEngine(OPTIONS).describe()), "engine");
+        assertTrue(page.contains(new BuiltinCapacitance(OPTIONS).describe()), "capacitance engine");
+        assertTrue(page.contains("class=\"verdict fail\""), "overall verdict: 85 degC forward fails");
+        String forward = between(page, "<section id=\"forward\">", "</section>");
+        assertEquals(1, rows(forward, "85.0").stream().filter(r -> r.contains(">FAIL<")).count(), "85 degC row fails");
+        assertEquals(1, rows(forward, "25.0").stream().filter(r -> r.contains(">pass<")).count(), "25 degC row passes");
+        assertTrue(rows(forward, "85.0").get(0).contains("fwd-85.csv:2"), "largest residual at the 8 mV point");
+        for (String id : List.of("breakdown", "capacitance", "recovery", "leakage")) {
+            assertTrue(page.contains("<section id=\"" + id + "\">"), id);
+        }
+        assertTrue(page.contains("<li>invented note with &lt;markup&gt; &amp; an ampersand</li>"), "notes, escaped");
+    }
+
+    @Test
+    void sameInputGivesTheSameBytesWhateverTheDefaultLocale() throws Exception {
+        Locale saved = Locale.getDefault();
+        String first;
+        String second;
+        try {
+            Locale.setDefault(Locale.US);
+            first = HtmlReport.render(verification(), "c.lib");
+            Locale.setDefault(Locale.GERMANY); // decimal comma: any locale-dependent formatting would differ here
+            second = HtmlReport.render(verification(), "c.lib");
+        } finally {
+            Locale.setDefault(saved);
+        }
+        assertEquals(first, second);
+        assertEquals(first, HtmlReport.render(verification(), "c.lib"), "a third render, in the default locale");
+    }
+
+    @Test
+    void pageIsSelfContained() throws Exception {
+        String page = HtmlReport.render(verification(), "c.lib");
+        assertFalse(page.toLowerCase(Locale.ROOT).contains("<script"), "no scripts");
+        assertFalse(page.toLowerCase(Locale.ROOT).contains("<link"), "no linked resources");
+        assertFalse(page.contains("<img"), "no images");
+        assertFalse(page.contains("@import"), "no imported style sheets");
+        // the only address on the page is the SVG namespace name, which is never fetched
+        Matcher m = Pattern.compile("(https?:)?//[^\"\\s)]+").matcher(page.replace(" // ", " "));
+        while (m.find()) {
+            assertEquals("http://www.w3.org/2000/svg", m.group(), "external reference");
+        }
+        Matcher url = Pattern.compile("url\\(([^)]*)\\)").matcher(page);
+        while (url.find()) {
+            assertTrue(url.group(1).startsWith("#"), "only in-page url() references: " + url.group());
+        }
+    }
+
+    @Test
+    void cliWritesThePageAndRefusesToOverwriteWithoutForce() throws Exception {
+        Path dir = Simulators.tempDir("html-report-cli");
+        Path card = dir.resolve("HR1.ngspice.lib");
+        Files.writeString(card, "* Invented card for a test, not a real part.\n"
+                + ".model HR1 D(IS=2e-15 N=1.05 RS=0.8 EG=1.11 XTI=3)\n", StandardCharsets.UTF_8);
+        Path data = dir.resolve("hr1-forward.csv");
+        StringBuilder csv = new StringBuilder("# Invented data for a test: the card's own simulation, not a measurement.\n"
+                + "V [V],I [A],T [degC]\n");
+        List<Bias> biases = new ArrayList<>();
+        for (double i : FORWARD_25) {
+            biases.add(Bias.current(i, T25));
+        }
+        var ops = new BuiltinEngine(OPTIONS).dc(new CardUnderTest(NAME, CARD, "*"), biases);
+        for (int k = 0; k < ops.size(); k++) {
+            csv.append(String.format(Locale.ROOT, "%.7f,%.6e,25.0%n", ops.get(k).voltage(), FORWARD_25[k]));
+        }
+        Files.writeString(data, csv.toString(), StandardCharsets.UTF_8);
+        Path html = dir.resolve("out").resolve("HR1-evidence.html");
+
+        Run first = run("verify", card.toString(), data.toString(), "--html", html.toString());
+        assertEquals(0, first.code, first.err);
+        String written = Files.readString(html, StandardCharsets.UTF_8);
+        assertTrue(written.startsWith("<!DOCTYPE html>"), "an HTML page");
+        assertTrue(written.contains("<h1>Card HR1</h1>") && written.contains("class=\"verdict pass\""), "header");
+        assertEquals(2, svgs(written).size(), "forward curve and residuals");
+
+        Run again = run("verify", card.toString(), data.toString(), "--html", html.toString());
+        assertEquals(6, again.code, "exit code 6 (output refused): " + again.err);
+        assertTrue(again.err.contains(html.toString()) && again.err.contains("--force"), again.err);
+        assertEquals(written, Files.readString(html, StandardCharsets.UTF_8), "the page is left as it was");
+
+        Files.writeString(html, "stale", StandardCharsets.UTF_8);
+        Run forced = run("verify", card.toString(), data.toString(), "--html", html.toString(), "--force");
+        assertEquals(0, forced.code, forced.err);
+        assertEquals(written, Files.readString(html, StandardCharsets.UTF_8), "replaced, and byte-identical to the first");
+
+        Run same = run("verify", card.toString(), data.toString(), "--html", html.toString(), "--json", html.toString(),
+                "--force");
+        assertEquals(2, same.code, "--json and --html on one file is a usage error: " + same.err);
+    }
+
+    // ---------------------------------------------------------------------------------------------------------
+
+    /** A verification of every kind, built from the built-in engine; 85 degC forward fails on purpose. */
+    private static JunctionVerification verification() throws Exception {
+        CardUnderTest card = new CardUnderTest(NAME, CARD, "* invented card");
+        BuiltinEngine engine = new BuiltinEngine(OPTIONS);
+        List<MeasuredPoint> forward = new ArrayList<>();
+        forward.addAll(shifted(engine, card, FORWARD_25, OFFSET_25, T25, "fwd-25.csv"));
+        forward.addAll(shifted(engine, card, FORWARD_85, OFFSET_85, T85, "fwd-85.csv"));
+        Verification fwd = new Verifier(engine, Tolerance.DEFAULT).verify(card, forward, List.of());
+
+        List<MeasuredPoint> reverse = shifted(engine, card, BREAKDOWN_25, new double[] {5e-3, -3e-3, 2e-3}, T25, "rev-25.csv");
+        Verification bd = new Verifier(engine, new Tolerance(0.03, 0.06)).verify(card, reverse,
+                List.of("invented breakdown note"));
+
+        List<CapacitanceMeasurement> cv = new ArrayList<>();
+        cv.addAll(capacitance(card, CV_25, T25, "cv-25.csv"));
+        cv.addAll(capacitance(card, CV_85, T85, "cv-85.csv"));
+        CapacitanceVerification cap = new CapacitanceVerifier(new BuiltinCapacitance(OPTIONS), CapacitanceTolerance.DEFAULT)
+                .verify(card, cv, 0, 1e6, List.of());
+
+        RecoveryVerification rec = RecoveryVerification.of(CARD, List.of(
+                new RecoveryVerification.Record(1e-2, -1e-2, 1.4e-8, T25, "trr-25.csv:3")));
+        LeakageVerification leak = LeakageVerification.of(engine, card, List.of(
+                new MeasuredPoint(-2, -2.1e-15, T25, "rev-25.csv", 9)));
+        return new JunctionVerification(Optional.of(fwd), Optional.of(bd), Optional.of(cap), Optional.of(rec),
+                Optional.of(leak), List.of("invented note with <markup> & an ampersand"));
+    }
+
+    /** Points at the given currents whose voltage is the card's plus {@code offsets}; lines number from 1. */
+    private static List<MeasuredPoint> shifted(BuiltinEngine engine, CardUnderTest card, double[] currents,
+                                               double[] offsets, double temperature, String file) {
+        List<Bias> biases = new ArrayList<>();
+        for (double i : currents) {
+            biases.add(Bias.current(i, temperature));
+        }
+        var ops = engine.dc(card, biases);
+        List<MeasuredPoint> out = new ArrayList<>();
+        for (int k = 0; k < currents.length; k++) {
+            out.add(new MeasuredPoint(ops.get(k).voltage() + offsets[k], currents[k], temperature, file, k + 1));
+        }
+        return out;
+    }
+
+    /** C-V readings a little above the card's capacitance, alternately below. */
+    private static List<CapacitanceMeasurement> capacitance(CardUnderTest card, double[] volts, double temperature,
+                                                            String file) throws Exception {
+        List<Bias> biases = new ArrayList<>();
+        for (double v : volts) {
+            biases.add(Bias.voltage(v, temperature));
+        }
+        List<Double> c = new BuiltinCapacitance(OPTIONS).capacitance(card, biases, 1e6);
+        List<CapacitanceMeasurement> out = new ArrayList<>();
+        for (int k = 0; k < volts.length; k++) {
+            double sign = k % 2 == 0 ? 1 : -1;
+            out.add(new CapacitanceMeasurement(volts[k], c.get(k) * (1 + sign * CV_OFFSET), temperature, file, k + 1));
+        }
+        return out;
+    }
+
+    /**
+     * Four dashed limit lines outside the legend: two at +-rms and two at +-max, symmetric about the zero line,
+     * with their distances from it in the ratio max/rms.
+     */
+    private static void assertLimits(Element svg, double rms, double max) {
+        String id = svg.getAttribute("id");
+        double zero = y(byClass(svg, "line", "zero").get(0), "y1");
+        List<Element> rmsLines = byClass(svg, "line", "limit rms").stream().filter(l -> !inLegend(l)).toList();
+        List<Element> maxLines = byClass(svg, "line", "limit max").stream().filter(l -> !inLegend(l)).toList();
+        assertEquals(2, rmsLines.size(), id + ": RMS limit lines");
+        assertEquals(2, maxLines.size(), id + ": max limit lines");
+        double rmsUp = zero - y(rmsLines.get(0), "y1");
+        double rmsDown = y(rmsLines.get(1), "y1") - zero;
+        double maxUp = zero - y(maxLines.get(0), "y1");
+        double maxDown = y(maxLines.get(1), "y1") - zero;
+        assertTrue(rmsUp > 0 && maxUp > rmsUp, id + ": limits above zero, max beyond RMS");
+        assertEquals(rmsUp, rmsDown, 0.11, id + ": RMS lines symmetric about zero");
+        assertEquals(maxUp, maxDown, 0.11, id + ": max lines symmetric about zero");
+        assertEquals(max / rms, maxUp / rmsUp, PIXEL_RATIO_TOLERANCE * max / rms, id + ": max/RMS distance ratio");
+        // the lines are horizontal and span the plot
+        for (Element l : List.of(rmsLines.get(0), maxLines.get(0))) {
+            assertEquals(y(l, "y1"), y(l, "y2"), 0.0, id);
+            assertTrue(y(l, "x2") - y(l, "x1") > SvgPlot.WIDTH / 2.0, id + ": spans the plot");
+        }
+    }
+
+    private static boolean inLegend(Element e) {
+        for (org.w3c.dom.Node n = e.getParentNode(); n instanceof Element p; n = p.getParentNode()) {
+            if (p.getAttribute("class").equals("legend")) {
+                return true;
+            }
+        }
+        return false;
+    }
+
+    private static double y(Element e, String attribute) {
+        return Double.parseDouble(e.getAttribute(attribute));
+    }
+
+    /** Every {@code <svg>...</svg>} fragment of the page, each parsed on its own. */
+    private static List<Element> svgs(String page) throws Exception {
+        List<Element> out = new ArrayList<>();
+        Matcher m = Pattern.compile("<svg\\b.*?</svg>", Pattern.DOTALL).matcher(page);
+        while (m.find()) {
+            out.add(parse(m.group()).getDocumentElement());
+        }
+        return out;
+    }
+
+    private static Element svg(String page, String id) throws Exception {
+        return svgs(page).stream().filter(s -> s.getAttribute("id").equals(id)).findFirst()
+                .orElseThrow(() -> new AssertionError("no plot " + id));
+    }
+
+    private static Document parse(String xml) throws Exception {
+        DocumentBuilderFactory f = DocumentBuilderFactory.newInstance();
+        f.setNamespaceAware(true);
+        DocumentBuilder b = f.newDocumentBuilder();
+        b.setErrorHandler(null);
+        return b.parse(new ByteArrayInputStream(xml.getBytes(StandardCharsets.UTF_8)));
+    }
+
+    private static List<Element> elements(Element root, String tag) {
+        NodeList nodes = root.getElementsByTagName(tag);
+        List<Element> out = new ArrayList<>();
+        for (int i = 0; i < nodes.getLength(); i++) {
+            out.add((Element) nodes.item(i));
+        }
+        return out;
+    }
+
+    private static List<Element> byClass(Element root, String tag, String cssClass) {
+        return elements(root, tag).stream().filter(e -> e.getAttribute("class").equals(cssClass)).toList();
+    }
+
+    private static String between(String text, String start, String end) {
+        int a = text.indexOf(start);
+        assertTrue(a >= 0, "missing " + start);
+        return text.substring(a, text.indexOf(end, a));
+    }
+
+    /** Table rows of {@code html} whose first cell ends with the temperature {@code celsius}. */
+    private static List<String> rows(String html, String celsius) {
+        List<String> out = new ArrayList<>();
+        Matcher m = Pattern.compile("<tr><td class=\"text\">(<span[^>]*></span>)?" + Pattern.quote(celsius) + "</td>.*?</tr>")
+                .matcher(html);
+        while (m.find()) {
+            out.add(m.group());
+        }
+        return out;
+    }
+
+    private record Run(int code, String err) {
+    }
+
+    private static Run run(String... args) {
+        StringWriter out = new StringWriter();
+        StringWriter err = new StringWriter();
+        int code;
+        try (PrintWriter o = new PrintWriter(out); PrintWriter e = new PrintWriter(err)) {
+            code = Main.execute(o, e, args);
+        }
+        return new Run(code, err.toString());
+    }
+}
