@@ -22,7 +22,7 @@ public final class OutputFiles {
         }
         for (Path p : targets) {
             if (Files.exists(p)) {
-                throw new OutputException(p + " already exists; pass --force to replace it, or choose another --out folder");
+                throw new OutputException(p + " already exists; pass --force to replace it, or write somewhere else");
             }
         }
     }
