@@ -53,11 +53,7 @@ public final class CapacitanceBlock implements ResidualBlock {
         this.strayCapacitance = strayCapacitance;
         this.frequency = frequency;
         this.options = options;
-        double[] ts = new double[this.points.length];
-        for (int i = 0; i < ts.length; i++) {
-            ts[i] = this.points[i].temperature();
-        }
-        TemperatureGroups groups = TemperatureGroups.of(ts);
+        TemperatureGroups groups = TemperatureGroups.of(this.points, CapacitancePoint::temperature);
         this.temperatures = groups.temperatures();
         this.group = groups.group();
     }

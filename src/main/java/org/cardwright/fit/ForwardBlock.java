@@ -40,11 +40,7 @@ final class ForwardBlock implements ResidualBlock {
     ForwardBlock(List<FitPoint> points, SimulatorOptions options) {
         this.points = points.toArray(new FitPoint[0]);
         this.options = options;
-        double[] ts = new double[this.points.length];
-        for (int i = 0; i < ts.length; i++) {
-            ts[i] = this.points[i].temperature();
-        }
-        TemperatureGroups groups = TemperatureGroups.of(ts);
+        TemperatureGroups groups = TemperatureGroups.of(this.points, FitPoint::temperature);
         this.temperatures = groups.temperatures();
         this.group = groups.group();
     }

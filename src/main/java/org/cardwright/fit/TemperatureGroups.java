@@ -12,6 +12,15 @@ import java.util.TreeMap;
  */
 record TemperatureGroups(double[] temperatures, int[] group) {
 
+    /** Groups {@code points} by the temperature {@code temperature} gives for each [K]. */
+    static <T> TemperatureGroups of(T[] points, java.util.function.ToDoubleFunction<T> temperature) {
+        double[] ts = new double[points.length];
+        for (int i = 0; i < ts.length; i++) {
+            ts[i] = temperature.applyAsDouble(points[i]);
+        }
+        return of(ts);
+    }
+
     /** Groups points by their temperature [K], given in point order. */
     static TemperatureGroups of(double[] pointTemperatures) {
         TreeMap<Double, Integer> index = new TreeMap<>();
