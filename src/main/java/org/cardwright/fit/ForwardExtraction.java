@@ -41,6 +41,8 @@ public final class ForwardExtraction {
     private static final double RESIDUAL_FLOOR_SQUARED = 1e-6;
     /** The widest sweep must span at least this much current [decades]. */
     public static final double MIN_DECADES = 2;
+    /** Fewest forward points for a fit of IS, N and RS with a residual to spare. */
+    public static final int MIN_POINTS = 5;
     /** Sweeps closer together than this in temperature count as one temperature for EG, XTI and TRS1 [K]. */
     public static final double DISTINCT_TEMPERATURE_STEP = 5;
     /** IKF may lie at most this many times above the largest measured current [1]. */
@@ -323,12 +325,17 @@ public final class ForwardExtraction {
                 hi = b;
             }
         }
-        if (widest < MIN_DECADES || points.size() < 5) {
+        if (points.size() < MIN_POINTS) {
+            throw new FitInputException(String.format(Locale.ROOT,
+                    "%s: only %d forward points, line %d (%s A) to line %d (%s A); at least %d are needed to fit IS, N and RS",
+                    lo.source(), points.size(), lo.line(), num(lo.current()), hi.line(), num(hi.current()), MIN_POINTS));
+        }
+        if (widest < MIN_DECADES) {
             throw new FitInputException(String.format(Locale.ROOT,
                     "%s: forward current spans only %.2f decades (%s A at line %d to %s A at line %d, %d points); "
-                            + "at least %.0f decades and 5 points are needed to tell IS from N",
-                    lo.source(), widest, num(lo.current()), lo.line(), num(hi.current()), hi.line(),
-                    points.size(), MIN_DECADES));
+                            + "at least %.0f decades are needed to tell IS from N",
+                    lo.source(), widest, num(lo.current()), lo.line(), num(hi.current()), hi.line(), points.size(),
+                    MIN_DECADES));
         }
         return sweeps;
     }
