@@ -23,11 +23,12 @@ import picocli.CommandLine.Option;
         description = {
             "Fits SPICE diode .model cards to bench measurements and re-simulates each card against the same data.",
             ""},
-        subcommands = {FitCommand.class, VerifyCommand.class, BuildCommand.class, TweakCommand.class, CompareCommand.class, CheckCommand.class, CommandLine.HelpCommand.class},
+        subcommands = {FitCommand.class, VerifyCommand.class, BuildCommand.class, TweakCommand.class, CompareCommand.class, CheckCommand.class, LotCommand.class, CommandLine.HelpCommand.class},
         footerHeading = "%nExit codes%n",
         footer = {
             "  0  done; for verify: the card reproduces the data",
-            "  1  verify, check: a card does not reproduce its data within the limits; compare: beyond the limits",
+            "  1  verify, check: a card does not reproduce its data within the limits; compare: beyond the limits;",
+            "     lot: some parts could not be fitted (listed in the JSON's failed)",
             "  2  wrong command line",
             "  3  an input file is unreadable or malformed",
             "  4  the data cannot support a fit",
