@@ -168,15 +168,27 @@ public final class LotCards {
         return String.join(" ", ps.stream().map(Param::name).toList());
     }
 
+    /** The prefix of the Monte Carlo card's .param names for lot {@code name}: cwlot_ and the name in lower case. */
+    public static String parameterPrefix(String name) {
+        return "cwlot_" + name.replaceAll("[^A-Za-z0-9_]", "_").toLowerCase(Locale.ROOT);
+    }
+
     /**
-     * The ngspice Monte Carlo card: one standard normal per principal component ({@code agauss(0, 1, 1)}), each
-     * statistical parameter the lot's mean plus its loadings times those normals (in its space; log10 parameters
-     * through exp(ln 10 x)), every other parameter as on the typical card. Each {@code mc_source} (or a new run)
-     * draws a new part. ngspice 39 manual, chapter "Parametric netlists" (.param, agauss) and "Statistical
-     * analysis" (mc_source).
+     * The ngspice Monte Carlo card: one standard normal per principal component (the {@code .param}s
+     * PREFIX_z1 ... PREFIX_zK, 0 by default, i.e. the typical part), each statistical parameter the lot's mean plus
+     * its loadings times those normals (in its space; log10 parameters through exp(ln 10 x)), every other parameter
+     * as on the typical card.
+     *
+     * <p>A part is drawn by {@code alterparam PREFIX_zK = agauss(0,1,1)} (no blanks inside the parentheses: alterparam splits at them) for every K, then {@code reset}, in a
+     * {@code .control} loop: measured in ngspice 39, alterparam draws once and every reference sees that value.
+     * The same {@code agauss} written into the {@code .param} line itself would be drawn again at every reference
+     * (ngspice 39 evaluates a random .param where it is used), so parameters sharing a component would be drawn
+     * independently and the correlations lost: the card does not do that. ngspice 39 manual, chapters "Parametric
+     * netlists" (.param, agauss) and "Statistical circuit analysis" (alterparam, reset); recalled and checked in
+     * ngspice 39 by {@code LotAcceptanceTest}.
      */
     static String monteCarloCard(String name, LotStatistics s, List<String> provenance, int digits) {
-        String prefix = "cwlot_" + name.replaceAll("[^A-Za-z0-9_]", "_").toLowerCase(Locale.ROOT);
+        String prefix = parameterPrefix(name);
         double[][] l = s.loadings();
         int comps = l.length == 0 ? 0 : l[0].length;
         DiodeParameters typ = typical(s);
@@ -184,8 +196,15 @@ public final class LotCards {
         for (String line : provenance) {
             sb.append('*').append(line.isEmpty() ? "" : " " + line).append('\n');
         }
+        sb.append("* Monte Carlo in ngspice: in a .control loop, draw every component, reset, then analyse:\n");
         for (int c = 0; c < comps; c++) {
-            sb.append(".param ").append(prefix).append("_z").append(c + 1).append(" = agauss(0, 1, 1)\n");
+            sb.append("*   alterparam ").append(prefix).append("_z").append(c + 1).append(" = agauss(0,1,1)\n");
+        }
+        sb.append("*   reset\n");
+        sb.append("* Left at 0, the z are the typical part. Do not put agauss on the .param lines: ngspice draws a random\n");
+        sb.append("* .param anew wherever it is used, which would lose the correlations.\n");
+        for (int c = 0; c < comps; c++) {
+            sb.append(".param ").append(prefix).append("_z").append(c + 1).append(" = 0\n");
         }
         for (int i = 0; i < s.common().size(); i++) {
             Param p = s.common().get(i);

@@ -354,7 +354,7 @@ public final class LotJob {
             lines.add(String.format(Locale.ROOT, "lot %s: %d parts in the statistics; %s drawn jointly through %d principal components",
                     request.name(), stats.inliers().size(), String.join(" ", stats.common().stream().map(Param::name).toList()),
                     stats.loadings()[0].length));
-            lines.add("each run (or mc_source in a .control loop) draws a new part; set rndseed for a repeatable sequence");
+            lines.add("a part is drawn by alterparam of each z below and reset; set rndseed for a repeatable sequence");
             Path p = request.card("montecarlo", "ngspice");
             files.put(p, LotCards.monteCarloCard(request.name(), stats, lines, request.digits()));
             cards.add(p);

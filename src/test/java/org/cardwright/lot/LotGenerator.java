@@ -120,7 +120,7 @@ final class LotGenerator {
         if (withBad) {
             String b1 = String.format(Locale.ROOT, "P%0" + width + "d", total + 1);
             String b2 = String.format(Locale.ROOT, "P%0" + width + "d", total + 2);
-            Files.writeString(dir.resolve(b1 + ".csv"), "# invented test data: an unreadable file (a cell that is not a number)\nV,I\n0.5,1e-6\n0.6,one milliamp\n",
+            Files.writeString(dir.resolve(b1 + ".csv"), "# invented test data: an unreadable file (a cell that is not a number)\nV,I,T\n0.5,1e-6,25\n0.6,one milliamp,25\n",
                     StandardCharsets.UTF_8);
             Files.write(dir.resolve(b2 + ".csv"), new byte[] {0, 1, 2, (byte) 0xff, (byte) 0xfe, 10, 0, 0});
             bad.add(b1);
