@@ -1,0 +1,199 @@
+package org.cardwright.lot;
+
+import static org.junit.jupiter.api.Assertions.assertArrayEquals;
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.ObjectMapper;
+import java.io.PrintWriter;
+import java.io.StringWriter;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Map;
+import java.util.OptionalDouble;
+import java.util.TreeMap;
+import java.util.stream.Stream;
+import org.cardwright.card.Dialect;
+import org.cardwright.cli.Main;
+import org.cardwright.data.ReadOptions;
+import org.cardwright.fit.CapacitanceOptions;
+import org.cardwright.fit.DeviceKind;
+import org.cardwright.report.LotJson;
+import org.cardwright.testsupport.Simulators;
+import org.junit.jupiter.api.BeforeAll;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.TestInstance;
+
+/**
+ * The lot job's promises on a small invented lot ({@link LotGenerator}, forward I-V only): the same bytes for any
+ * number of threads, after a killed run resumed, and from a long table as from a folder; the JSON contract of
+ * DESIGN.md; the exit codes.
+ */
+@TestInstance(TestInstance.Lifecycle.PER_CLASS)
+class LotJobTest {
+    private static final int PARTS = 16;
+    private Path dir;
+    private LotGenerator.Lot lot;
+
+    @BeforeAll
+    void makeLot() throws Exception {
+        dir = Simulators.tempDir("lot-job");
+        lot = LotGenerator.write(dir.resolve("parts"), PARTS, 77L, false, false);
+    }
+
+    private static int lot(Path out, String... extra) {
+        List<String> args = new ArrayList<>(List.of("lot"));
+        args.addAll(List.of(extra));
+        args.addAll(List.of("--name", "LOTJ", "--out", out.toString(), "--no-progress"));
+        return Main.execute(new PrintWriter(new StringWriter()), new PrintWriter(new StringWriter()), args.toArray(String[]::new));
+    }
+
+    /** Every output file (not the state folder) by name, with its bytes. */
+    private static Map<String, byte[]> outputs(Path out) throws Exception {
+        Map<String, byte[]> m = new TreeMap<>();
+        try (Stream<Path> s = Files.list(out)) {
+            for (Path p : s.filter(Files::isRegularFile).toList()) {
+                m.put(p.getFileName().toString(), Files.readAllBytes(p));
+            }
+        }
+        return m;
+    }
+
+    private static void assertSameOutputs(Map<String, byte[]> a, Map<String, byte[]> b) {
+        assertEquals(a.keySet(), b.keySet());
+        for (String k : a.keySet()) {
+            assertArrayEquals(a.get(k), b.get(k), k + " differs");
+        }
+    }
+
+    @Test
+    void oneThreadAndTwoThreadsWriteTheSameBytesAndFollowTheContract() throws Exception {
+        String parts = dir.resolve("parts").toString();
+        assertEquals(0, lot(dir.resolve("one"), parts, "--jobs", "1"), "every part fitted: exit 0");
+        assertEquals(0, lot(dir.resolve("two"), parts, "--jobs", "2"));
+        Map<String, byte[]> one = outputs(dir.resolve("one"));
+        assertSameOutputs(one, outputs(dir.resolve("two")));
+
+        // the contract of DESIGN.md, "cardwright lot"
+        assertTrue(one.containsKey("LOTJ.typical.ngspice.lib"), one.keySet().toString());
+        JsonNode json = new ObjectMapper().readTree(one.get("LOTJ.lot.json"));
+        assertTrue(json.get("failed").isArray() && json.get("failed").isEmpty());
+        assertTrue(json.get("outliers").isArray());
+        for (String p : List.of("IS", "N", "RS")) {
+            JsonNode s = json.get("statistics").get(p);
+            assertTrue(s.get("mean").isNumber() && s.get("std").isNumber(), p);
+            assertEquals(p.equals("IS") ? "log10" : "linear", s.get("space").asText());
+            assertEquals(1.0, json.get("correlation").get(p).get(p).asDouble(), 0.0, "a parameter's correlation with itself is 1");
+        }
+        assertEquals(json.get("correlation").get("IS").get("N").asDouble(), json.get("correlation").get("N").get("IS").asDouble(), 0.0);
+
+        assertEquals(6, lot(dir.resolve("one"), parts), "a finished lot is not overwritten without --force");
+    }
+
+    @Test
+    void aKilledRunResumesWhereItStoppedWithTheSameBytes() throws Exception {
+        Path full = dir.resolve("full");
+        assertEquals(0, lot(full, dir.resolve("parts").toString(), "--jobs", "2"));
+        Map<String, byte[]> expected = outputs(full);
+
+        // a run killed part-way: no outputs yet, some parts' results stored, one of them cut off mid-write
+        Path killed = dir.resolve("killed");
+        assertEquals(0, lot(killed, dir.resolve("parts").toString(), "--jobs", "2"));
+        for (String name : outputs(killed).keySet()) {
+            Files.delete(killed.resolve(name));
+        }
+        Path stateParts = killed.resolve("LOTJ.lot-state/parts");
+        List<Path> stored;
+        try (Stream<Path> s = Files.list(stateParts)) {
+            stored = s.sorted().toList();
+        }
+        for (int i = 0; i < stored.size(); i += 2) {
+            Files.delete(stored.get(i));
+        }
+        String cut = Files.readString(stored.get(1), StandardCharsets.UTF_8);
+        Files.writeString(stored.get(1), cut.substring(0, cut.length() / 2), StandardCharsets.UTF_8);
+        int kept = stored.size() / 2 - 1;
+
+        LotOutcome resumed = new LotJob().run(request(killed, 2, false), LotJson::write, LotProgress.NONE);
+        assertEquals(kept, resumed.reused(), "the intact stored results are taken, the cut one is fitted again");
+        assertSameOutputs(expected, outputs(killed));
+
+        // a changed part file makes its stored result stale
+        Path file = dir.resolve("parts").resolve(lot.normal().get(3)).resolve("forward.csv");
+        String text = Files.readString(file, StandardCharsets.UTF_8);
+        try {
+            Files.writeString(file, text + "# a comment added later\n", StandardCharsets.UTF_8);
+            LotOutcome again = new LotJob().run(request(killed, 2, true), LotJson::write, LotProgress.NONE);
+            assertEquals(PARTS - 1, again.reused());
+        } finally {
+            Files.writeString(file, text, StandardCharsets.UTF_8);
+        }
+    }
+
+    private LotRequest request(Path out, int jobs, boolean force) {
+        LotSettings settings = new LotSettings(ReadOptions.defaults(), DeviceKind.SILICON_PN, List.of(), CapacitanceOptions.DEFAULT);
+        return new LotRequest(List.of(dir.resolve("parts")), "LOTJ", out, List.of(Dialect.NGSPICE), jobs, settings, 3.0,
+                Map.of(), OptionalDouble.empty(), 7, force, java.util.Optional.empty());
+    }
+
+    @Test
+    void aLongTableGivesThePartsOfAFolderAndNamesItsOwnLineForABadRow() throws Exception {
+        Path folderOut = dir.resolve("from-folder");
+        assertEquals(0, lot(folderOut, dir.resolve("parts").toString(), "--jobs", "2"));
+        // the same parts as one long table: part, V, I, T; one row of the fourth part broken
+        StringBuilder table = new StringBuilder("# invented test data: the LotJobTest lot as one table\npart,V [V],I [A],T [degC]\n");
+        int line = 2;
+        int badLine = -1;
+        String badPart = lot.normal().get(3);
+        for (String part : lot.normal()) {
+            List<String> rows = Files.readAllLines(dir.resolve("parts").resolve(part).resolve("forward.csv"));
+            for (String row : rows) {
+                if (row.startsWith("#") || row.startsWith("V")) {
+                    continue;
+                }
+                line++;
+                if (part.equals(badPart) && badLine < 0 && line > 10) {
+                    badLine = line;
+                    row = row.replaceFirst(",", ",x");
+                }
+                table.append(part).append(',').append(row).append('\n');
+            }
+        }
+        Path csv = dir.resolve("lot-table.csv");
+        Files.writeString(csv, table.toString(), StandardCharsets.UTF_8);
+        Path tableOut = dir.resolve("from-table");
+        assertEquals(1, lot(tableOut, csv.toString(), "--jobs", "2"), "a part failed: exit 1");
+        JsonNode json = new ObjectMapper().readTree(tableOut.resolve("LOTJ.lot.json").toFile());
+        assertEquals(1, json.get("failed").size());
+        assertEquals(badPart, json.get("failed").get(0).get("part").asText());
+        String reason = json.get("failed").get(0).get("reason").asText();
+        assertTrue(reason.contains("lot-table.csv:" + badLine + ":"), reason);
+
+        // every other part: the same fitted parameters as from the folder
+        Map<String, String> fromFolder = rows(folderOut.resolve("LOTJ.parts.csv"));
+        Map<String, String> fromTable = rows(tableOut.resolve("LOTJ.parts.csv"));
+        int compared = 0;
+        for (String part : lot.normal()) {
+            if (!part.equals(badPart)) {
+                assertEquals(fromFolder.get(part).replaceAll(",(ok|outlier),", ","), fromTable.get(part).replaceAll(",(ok|outlier),", ","), part);
+                compared++;
+            }
+        }
+        assertEquals(PARTS - 1, compared);
+    }
+
+    /** part name to the IS..RS cells of its row (status and later columns left out). */
+    private static Map<String, String> rows(Path csv) throws Exception {
+        Map<String, String> m = new TreeMap<>();
+        List<String> lines = Files.readAllLines(csv);
+        for (String l : lines.subList(1, lines.size())) {
+            String[] f = l.split(",", -1);
+            m.put(f[0], String.join(",", List.of(f).subList(2, 8)));
+        }
+        return m;
+    }
+}
