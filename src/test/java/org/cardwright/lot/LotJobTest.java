@@ -186,6 +186,26 @@ class LotJobTest {
         assertEquals(PARTS - 1, compared);
     }
 
+    @Test
+    void theReadmeExampleLotRecoversItsGeneratingDistribution() throws Exception {
+        // fixtures/lot: 24 invented parts simulated in ngspice 39 from a stated distribution (verify/tools/MakeLot.java),
+        // part LT1-17 with four times the RS
+        Path out = dir.resolve("readme-example");
+        Path table = Simulators.projectDir().resolve("fixtures/lot/lt1-lot-forward.csv");
+        assertEquals(0, lot(out, table.toString(), "--jobs", "2"));
+        JsonNode json = new ObjectMapper().readTree(out.resolve("LOTJ.lot.json").toFile());
+        List<String> outliers = new ArrayList<>();
+        json.get("outliers").forEach(o -> outliers.add(o.asText()));
+        assertTrue(outliers.contains("LT1-17"), outliers.toString());
+        // stated means of MakeLot (log10 IS, N, RS); a drawn lot of ~22 parts scatters by std/sqrt(n): three standard errors
+        Map<String, Double> stated = Map.of("IS", -14.3, "N", 1.03, "RS", 0.9);
+        for (Map.Entry<String, Double> e : stated.entrySet()) {
+            JsonNode s = json.get("statistics").get(e.getKey());
+            double se = s.get("std").asDouble() / Math.sqrt(s.get("n").asDouble());
+            assertEquals(e.getValue(), s.get("mean").asDouble(), 3 * se, e.getKey());
+        }
+    }
+
     /** part name to the IS..RS cells of its row (status and later columns left out). */
     private static Map<String, String> rows(Path csv) throws Exception {
         Map<String, String> m = new TreeMap<>();
