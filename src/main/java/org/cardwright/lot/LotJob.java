@@ -47,9 +47,64 @@ public final class LotJob {
     static final double IF_POSITION = 0.75;
     private static final String PLAN_FILE = "plan.txt";
 
+    /**
+     * A lot ready to fit: its parts, its plan, and the results an earlier run left that are still valid.
+     *
+     * @param request  the request
+     * @param parts    the parts, sorted by name
+     * @param plan     the lot's term choice and datasheet conditions
+     * @param results  stored results by part index (null where the part still has to be fitted)
+     * @param todo     indices of the parts to fit
+     * @param startNanos when preparation began ({@link System#nanoTime})
+     */
+    public record Prepared(LotRequest request, List<LotParts.Part> parts, LotPlan plan, PartResult[] results,
+                           List<Integer> todo, long startNanos) {
+        /** Parts whose stored result was taken. */
+        public int reused() {
+            return parts.size() - todo.size();
+        }
+    }
+
     /** Runs the lot; {@code json} renders the JSON from the outcome. */
     public LotOutcome run(LotRequest request, Function<LotOutcome, String> json, LotProgress progress)
             throws IOException, OutputException {
+        ExecutorService pool = Executors.newFixedThreadPool(request.jobs(), r -> {
+            Thread t = new Thread(r, "cardwright-lot");
+            t.setDaemon(true);
+            return t;
+        });
+        try {
+            Prepared prepared = prepare(request, pool, progress);
+            PartResult[] results = prepared.results();
+            LotFitter fitter = new LotFitter(request.settings());
+            Path state = request.stateDir();
+            AtomicInteger done = new AtomicInteger(prepared.reused());
+            AtomicInteger failed = new AtomicInteger((int) Arrays.stream(results).filter(r -> r != null && !r.ok()).count());
+            progress.update("fit", done.get(), prepared.parts().size(), failed.get());
+            List<Future<PartResult>> futures = new ArrayList<>();
+            for (int i : prepared.todo()) {
+                LotParts.Part part = prepared.parts().get(i);
+                futures.add(pool.submit(() -> {
+                    PartResult r = fitAndStore(fitter, part, prepared.plan(), state);
+                    progress.update("fit", done.incrementAndGet(), prepared.parts().size(), r.ok() ? failed.get() : failed.incrementAndGet());
+                    return r;
+                }));
+            }
+            for (int k = 0; k < prepared.todo().size(); k++) {
+                results[prepared.todo().get(k)] = get(futures.get(k));
+            }
+            return finish(prepared, json);
+        } finally {
+            pool.shutdownNow();
+        }
+    }
+
+    /**
+     * Everything before the per-part fits: the output check, the parts, the plan (from the state folder, or chosen
+     * on a sample fitted on {@code pool}) and the stored results that still match.
+     */
+    public Prepared prepare(LotRequest request, ExecutorService pool, LotProgress progress) throws IOException, OutputException {
+        long start = System.nanoTime();
         Path state = request.stateDir();
         if (!request.force() && Files.exists(request.json())) {
             throw new OutputException(request.json() + " already exists: this lot was finished; pass --force to run it again, or write somewhere else");
@@ -57,47 +112,36 @@ public final class LotJob {
         Files.createDirectories(state.resolve("parts"));
         List<LotParts.Part> parts = LotParts.find(request.inputs(), state.resolve("tables"));
         LotFitter fitter = new LotFitter(request.settings());
-        ExecutorService pool = Executors.newFixedThreadPool(request.jobs(), r -> {
-            Thread t = new Thread(r, "cardwright-lot");
-            t.setDaemon(true);
-            return t;
-        });
-        long start = System.nanoTime();
-        try {
-            LotPlan plan = plan(request, parts, fitter, pool, progress);
-            PartResult[] results = new PartResult[parts.size()];
-            List<Integer> todo = new ArrayList<>();
-            int reused = 0;
-            for (int i = 0; i < parts.size(); i++) {
-                PartResult stored = stored(state, parts.get(i));
-                if (stored != null && stored.fingerprint().equals(fitter.fingerprint(parts.get(i), plan))) {
-                    results[i] = stored;
-                    reused++;
-                } else {
-                    todo.add(i);
-                }
+        LotPlan plan = plan(request, parts, fitter, pool, progress);
+        PartResult[] results = new PartResult[parts.size()];
+        List<Integer> todo = new ArrayList<>();
+        for (int i = 0; i < parts.size(); i++) {
+            PartResult stored = stored(state, parts.get(i));
+            if (stored != null && stored.fingerprint().equals(fitter.fingerprint(parts.get(i), plan))) {
+                results[i] = stored;
+            } else {
+                todo.add(i);
             }
-            AtomicInteger done = new AtomicInteger(reused);
-            AtomicInteger failed = new AtomicInteger((int) Arrays.stream(results).filter(r -> r != null && !r.ok()).count());
-            progress.update("fit", done.get(), parts.size(), failed.get());
-            List<Future<PartResult>> futures = new ArrayList<>();
-            for (int i : todo) {
-                LotParts.Part part = parts.get(i);
-                futures.add(pool.submit(() -> {
-                    PartResult r = fitter.fit(part, plan);
-                    OutputFiles.writeAtomically(statePath(state, part.name()), r.toText());
-                    progress.update("fit", done.incrementAndGet(), parts.size(), r.ok() ? failed.get() : failed.incrementAndGet());
-                    return r;
-                }));
-            }
-            for (int k = 0; k < todo.size(); k++) {
-                results[todo.get(k)] = get(futures.get(k));
-            }
-            double seconds = (System.nanoTime() - start) * 1e-9;
-            return finish(request, List.of(results), plan, reused, seconds, json);
-        } finally {
-            pool.shutdownNow();
         }
+        return new Prepared(request, parts, plan, results, todo, start);
+    }
+
+    /** Fits one part and stores its result in the state folder at once (the per-part work of every path). */
+    public static PartResult fitAndStore(LotFitter fitter, LotParts.Part part, LotPlan plan, Path state) throws OutputException {
+        PartResult r = fitter.fit(part, plan);
+        OutputFiles.writeAtomically(statePath(state, part.name()), r.toText());
+        return r;
+    }
+
+    /** Statistics, cards, tables and JSON of a prepared lot whose results are all in. */
+    public LotOutcome finish(Prepared prepared, Function<LotOutcome, String> json) throws OutputException {
+        for (int i = 0; i < prepared.results().length; i++) {
+            if (prepared.results()[i] == null) {
+                throw new IllegalStateException("part " + prepared.parts().get(i).name() + " has no result");
+            }
+        }
+        double seconds = (System.nanoTime() - prepared.startNanos()) * 1e-9;
+        return finish(prepared.request(), List.of(prepared.results()), prepared.plan(), prepared.reused(), seconds, json);
     }
 
     private static PartResult get(Future<PartResult> f) throws IOException, OutputException {

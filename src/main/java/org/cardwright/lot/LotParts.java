@@ -45,6 +45,63 @@ public final class LotParts {
             lines = Map.copyOf(lines);
         }
 
+        /** This part as one line of text, for engines that carry work between processes ({@link #decode}). */
+        public String encode() {
+            StringBuilder sb = new StringBuilder(escape(name));
+            for (Path f : files) {
+                sb.append("\tf\t").append(escape(f.toString()));
+                LineMap m = lines.get(f);
+                if (m != null) {
+                    StringBuilder ls = new StringBuilder();
+                    for (int i = 0; i < m.tableLines().length; i++) {
+                        ls.append(i == 0 ? "" : ",").append(m.tableLines()[i]);
+                    }
+                    sb.append("\tm\t").append(escape(m.table().toString())).append('\t').append(ls);
+                }
+            }
+            return sb.toString();
+        }
+
+        /** The part {@link #encode} wrote. */
+        public static Part decode(String text) {
+            String[] f = text.split("\t", -1);
+            String name = unescape(f[0]);
+            List<Path> files = new ArrayList<>();
+            Map<Path, LineMap> lines = new LinkedHashMap<>();
+            int i = 1;
+            while (i < f.length) {
+                if (f[i].equals("f")) {
+                    files.add(Path.of(unescape(f[i + 1])));
+                    i += 2;
+                } else if (f[i].equals("m")) {
+                    int[] ls = f[i + 2].isEmpty() ? new int[0] : java.util.Arrays.stream(f[i + 2].split(",")).mapToInt(Integer::parseInt).toArray();
+                    lines.put(files.get(files.size() - 1), new LineMap(Path.of(unescape(f[i + 1])), ls));
+                    i += 3;
+                } else {
+                    throw new IllegalArgumentException("not an encoded part: " + text);
+                }
+            }
+            return new Part(name, files, lines);
+        }
+
+        private static String escape(String s) {
+            return s.replace("\\", "\\\\").replace("\t", "\\t").replace("\n", "\\n").replace("\r", "\\r");
+        }
+
+        private static String unescape(String s) {
+            StringBuilder sb = new StringBuilder();
+            for (int i = 0; i < s.length(); i++) {
+                char c = s.charAt(i);
+                if (c == '\\' && i + 1 < s.length()) {
+                    char n = s.charAt(++i);
+                    sb.append(n == 't' ? '\t' : n == 'n' ? '\n' : n == 'r' ? '\r' : n);
+                } else {
+                    sb.append(c);
+                }
+            }
+            return sb.toString();
+        }
+
         /** The message of a reading error, with split files named by their table and the table's line number. */
         String describe(DataFileException e) {
             LineMap m = e.file() == null ? null : lines.get(e.file());

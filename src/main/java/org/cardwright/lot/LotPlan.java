@@ -27,8 +27,8 @@ public record LotPlan(List<ParameterRule> rules, List<String> reasons, Map<Datas
         sample = List.copyOf(sample);
     }
 
-    /** The plan as text, for the state folder and fingerprints. */
-    String toText() {
+    /** The plan as text, for the state folder, fingerprints and other engines. */
+    public String toText() {
         StringBuilder sb = new StringBuilder();
         for (ParameterRule r : rules) {
             sb.append("rule\t").append(r.text()).append('\n');
@@ -48,7 +48,7 @@ public record LotPlan(List<ParameterRule> rules, List<String> reasons, Map<Datas
     }
 
     /** Reads {@link #toText}; null when incomplete. */
-    static LotPlan fromText(String text) {
+    public static LotPlan fromText(String text) {
         List<ParameterRule> rules = new ArrayList<>();
         List<String> reasons = new ArrayList<>();
         Map<Datasheet.Quantity, Double> conditions = new EnumMap<>(Datasheet.Quantity.class);

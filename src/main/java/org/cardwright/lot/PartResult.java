@@ -46,8 +46,8 @@ public record PartResult(String part, String fingerprint, String reason, Map<Par
         return reason == null;
     }
 
-    /** The state-file text. */
-    String toText() {
+    /** The state-file text (also how other engines carry a result back). */
+    public String toText() {
         StringBuilder sb = new StringBuilder();
         sb.append("part\t").append(part).append('\n');
         sb.append("fingerprint\t").append(fingerprint).append('\n');
@@ -72,7 +72,7 @@ public record PartResult(String part, String fingerprint, String reason, Map<Par
     }
 
     /** Reads {@link #toText}; null when the text is incomplete or malformed (the part is then fitted again). */
-    static PartResult fromText(String text) {
+    public static PartResult fromText(String text) {
         String part = null;
         String fingerprint = null;
         String reason = null;
