@@ -31,7 +31,9 @@ public record LotPlan(List<ParameterRule> rules, List<String> reasons, Map<Datas
     public String toText() {
         StringBuilder sb = new StringBuilder();
         for (ParameterRule r : rules) {
-            sb.append("rule\t").append(r.text()).append('\n');
+            // the lot's rules are FREE or OFF without values; written as kind and parameter, since the rule parser
+            // (for users) refuses OFF for terms such as TRS1 that have no "not given" state
+            sb.append("rule\t").append(r.kind().name()).append('\t').append(r.param().name()).append('\n');
         }
         for (String r : reasons) {
             sb.append("reason\t").append(r).append('\n');
@@ -59,7 +61,8 @@ public record LotPlan(List<ParameterRule> rules, List<String> reasons, Map<Datas
             for (String line : text.split("\n")) {
                 String[] f = line.split("\t", 3);
                 switch (f[0]) {
-                    case "rule" -> rules.add(ParameterRule.parse(f[1], Double::parseDouble));
+                    case "rule" -> rules.add(new ParameterRule(Param.valueOf(f[2]), ParameterRule.Kind.valueOf(f[1]), Double.NaN,
+                            Double.NEGATIVE_INFINITY, Double.POSITIVE_INFINITY));
                     case "reason" -> reasons.add(f[1]);
                     case "condition" -> conditions.put(Datasheet.Quantity.valueOf(f[1]), Double.parseDouble(f[2]));
                     case "temperature" -> t = Double.parseDouble(f[1]);
