@@ -128,8 +128,7 @@ public final class LotParts {
     /**
      * The parts of {@code inputs}, sorted by name. Long tables are split into {@code splitDir}.
      *
-     * @throws IOException when an input cannot be listed or read
-     * @throws IllegalArgumentException when no part is found
+     * @throws IOException when an input cannot be listed or read, or holds no part
      */
     public static List<Part> find(List<Path> inputs, Path splitDir) throws IOException {
         Map<String, List<Path>> files = new TreeMap<>();
@@ -168,7 +167,7 @@ public final class LotParts {
             parts.add(new Part(e.getKey(), sorted, lines.getOrDefault(e.getKey(), Map.of())));
         }
         if (parts.isEmpty()) {
-            throw new IllegalArgumentException(inputs.stream().map(Path::toString).reduce((a, b) -> a + ", " + b).orElse("")
+            throw new IOException(inputs.stream().map(Path::toString).reduce((a, b) -> a + ", " + b).orElse("")
                     + ": no parts found (a folder with one file or sub-folder per part, or a table with a part column)");
         }
         return parts;

@@ -33,7 +33,13 @@ public final class LotBenchmark {
             switch (args[i]) {
                 case "--parts" -> parts = Integer.parseInt(args[++i]);
                 case "--warmup" -> warmup = Integer.parseInt(args[++i]);
-                default -> throw new IllegalArgumentException("unknown option " + args[i] + " (--parts N, --warmup N)");
+                case "--write" -> {
+                    // only write the acceptance-style lot (C-V, outliers, two unreadable files) for other tools to time
+                    LotGenerator.Lot lot = LotGenerator.write(Path.of(args[++i]), parts, 20261203L, true, true);
+                    System.out.println("wrote " + (lot.normal().size() + lot.outliers().size() + lot.unreadable().size()) + " parts");
+                    return;
+                }
+                default -> throw new IllegalArgumentException("unknown option " + args[i] + " (--parts N, --warmup N, --write DIR)");
             }
         }
         Path root = Files.createTempDirectory("cardwright-lot-bench-");
