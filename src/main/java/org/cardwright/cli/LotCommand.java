@@ -21,6 +21,7 @@ import org.cardwright.lot.LotProgress;
 import org.cardwright.lot.LotRequest;
 import org.cardwright.lot.LotSettings;
 import org.cardwright.model.Ngspice39;
+import org.cardwright.report.LotHtml;
 import org.cardwright.report.LotJson;
 import org.cardwright.report.LotText;
 import picocli.CommandLine.Command;
@@ -32,7 +33,7 @@ import picocli.CommandLine.Parameters;
         description = {
             "Fits every part of a lot with the same terms, on all cores, and writes the lot's statistics (log10 for",
             "IS-like parameters, linear for N, RS, ...), its outliers, datasheet min/typ/max, a typical card, corner",
-            "cards and an ngspice Monte Carlo card into OUT: NAME.lot.json, NAME.parts.csv, NAME.statistics.csv,",
+            "cards and an ngspice Monte Carlo card into OUT: NAME.lot.json, NAME.lot.html, NAME.parts.csv, NAME.statistics.csv,",
             "NAME.typical.DIALECT.lib, NAME.vf-low/vf-high/pcK-low/pcK-high.DIALECT.lib, NAME.montecarlo.ngspice.lib.",
             "A killed run started again continues where it stopped (state in OUT/NAME.lot-state)."},
         footerHeading = "%nExamples%n",
@@ -133,7 +134,7 @@ final class LotCommand implements Callable<Integer> {
                 atTemp == null ? OptionalDouble.empty() : OptionalDouble.of(atTemp + Ngspice39.CELSIUS_TO_KELVIN),
                 digits, force, Optional.ofNullable(templates));
         Progress progress = new Progress(spec.commandLine().getErr(), !noProgress);
-        LotOutcome outcome = new LotJob().run(request, LotJson::write, progress);
+        LotOutcome outcome = new LotJob().run(request, LotJson::write, LotHtml::write, progress);
         progress.end();
         spec.commandLine().getOut().print(LotText.render(outcome));
         spec.commandLine().getOut().flush();

@@ -68,6 +68,12 @@ public final class LotJob {
     /** Runs the lot; {@code json} renders the JSON from the outcome. */
     public LotOutcome run(LotRequest request, Function<LotOutcome, String> json, LotProgress progress)
             throws IOException, OutputException {
+        return run(request, json, null, progress);
+    }
+
+    /** Runs the lot; {@code json} renders the JSON, {@code html} (if not null) the page NAME.lot.html. */
+    public LotOutcome run(LotRequest request, Function<LotOutcome, String> json, Function<LotOutcome, String> html,
+                          LotProgress progress) throws IOException, OutputException {
         ExecutorService pool = Executors.newFixedThreadPool(request.jobs(), r -> {
             Thread t = new Thread(r, "cardwright-lot");
             t.setDaemon(true);
@@ -93,7 +99,7 @@ public final class LotJob {
             for (int k = 0; k < prepared.todo().size(); k++) {
                 results[prepared.todo().get(k)] = get(futures.get(k));
             }
-            return finish(prepared, json);
+            return finish(prepared, json, html);
         } finally {
             pool.shutdownNow();
         }
@@ -135,13 +141,19 @@ public final class LotJob {
 
     /** Statistics, cards, tables and JSON of a prepared lot whose results are all in. */
     public LotOutcome finish(Prepared prepared, Function<LotOutcome, String> json) throws OutputException {
+        return finish(prepared, json, null);
+    }
+
+    /** As {@link #finish(Prepared, Function)}, and the page NAME.lot.html when {@code html} is not null. */
+    public LotOutcome finish(Prepared prepared, Function<LotOutcome, String> json, Function<LotOutcome, String> html)
+            throws OutputException {
         for (int i = 0; i < prepared.results().length; i++) {
             if (prepared.results()[i] == null) {
                 throw new IllegalStateException("part " + prepared.parts().get(i).name() + " has no result");
             }
         }
         double seconds = (System.nanoTime() - prepared.startNanos()) * 1e-9;
-        return finish(prepared.request(), List.of(prepared.results()), prepared.plan(), prepared.reused(), seconds, json);
+        return finish(prepared.request(), List.of(prepared.results()), prepared.plan(), prepared.reused(), seconds, json, html);
     }
 
     private static PartResult get(Future<PartResult> f) throws IOException, OutputException {
@@ -342,7 +354,7 @@ public final class LotJob {
 
     /** Statistics, cards, tables and JSON, written together. */
     private LotOutcome finish(LotRequest request, List<PartResult> results, LotPlan plan, int reused, double seconds,
-                              Function<LotOutcome, String> json) throws OutputException {
+                              Function<LotOutcome, String> json, Function<LotOutcome, String> html) throws OutputException {
         List<PartResult> ok = results.stream().filter(PartResult::ok).toList();
         LotStatistics stats = LotStatistics.of(ok);
         Double iff = plan.conditions().get(Datasheet.Quantity.VF);
@@ -406,6 +418,9 @@ public final class LotJob {
         LotOutcome outcome = new LotOutcome(request, results, plan, stats, corners, rows, cards, reused, seconds);
         files.put(request.partsCsv(), LotTables.parts(outcome));
         files.put(request.statisticsCsv(), LotTables.statistics(outcome));
+        if (html != null) {
+            files.put(request.html(), html.apply(outcome));
+        }
         files.put(request.json(), json.apply(outcome));
         OutputFiles.writeAllAtomically(files);
         return outcome;

@@ -63,6 +63,11 @@ public record LotRequest(List<Path> inputs, String name, Path out, List<Dialect>
         return out.resolve(name + ".lot.json");
     }
 
+    /** The page with the distributions: OUT/NAME.lot.html. */
+    public Path html() {
+        return out.resolve(name + ".lot.html");
+    }
+
     /** The per-part table: OUT/NAME.parts.csv. */
     public Path partsCsv() {
         return out.resolve(name + ".parts.csv");

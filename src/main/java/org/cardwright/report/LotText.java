@@ -49,7 +49,9 @@ public final class LotText {
         for (java.nio.file.Path p : o.cards()) {
             sb.append("  wrote ").append(p).append(System.lineSeparator());
         }
-        sb.append("  wrote ").append(o.request().json()).append(System.lineSeparator());
+        sb.append("  wrote ").append(o.request().json()).append(", ").append(o.request().html().getFileName())
+                .append(", ").append(o.request().partsCsv().getFileName()).append(", ").append(o.request().statisticsCsv().getFileName())
+                .append(System.lineSeparator());
         return sb.toString();
     }
 }

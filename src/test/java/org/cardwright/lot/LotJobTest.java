@@ -118,7 +118,7 @@ class LotJobTest {
         Files.writeString(stored.get(1), cut.substring(0, cut.length() / 2), StandardCharsets.UTF_8);
         int kept = stored.size() / 2 - 1;
 
-        LotOutcome resumed = new LotJob().run(request(killed, 2, false), LotJson::write, LotProgress.NONE);
+        LotOutcome resumed = new LotJob().run(request(killed, 2, false), LotJson::write, org.cardwright.report.LotHtml::write, LotProgress.NONE);
         assertEquals(kept, resumed.reused(), "the intact stored results are taken, the cut one is fitted again");
         assertSameOutputs(expected, outputs(killed));
 
@@ -127,7 +127,7 @@ class LotJobTest {
         String text = Files.readString(file, StandardCharsets.UTF_8);
         try {
             Files.writeString(file, text + "# a comment added later\n", StandardCharsets.UTF_8);
-            LotOutcome again = new LotJob().run(request(killed, 2, true), LotJson::write, LotProgress.NONE);
+            LotOutcome again = new LotJob().run(request(killed, 2, true), LotJson::write, org.cardwright.report.LotHtml::write, LotProgress.NONE);
             assertEquals(PARTS - 1, again.reused());
         } finally {
             Files.writeString(file, text, StandardCharsets.UTF_8);
@@ -197,6 +197,10 @@ class LotJobTest {
         List<String> outliers = new ArrayList<>();
         json.get("outliers").forEach(o -> outliers.add(o.asText()));
         assertTrue(outliers.contains("LT1-17"), outliers.toString());
+        // the page: one histogram per summarised parameter, the outlier named
+        String html = Files.readString(out.resolve("LOTJ.lot.html"), StandardCharsets.UTF_8);
+        assertEquals(json.get("statistics").size(), html.split("<svg ", -1).length - 1);
+        assertTrue(html.contains("<b>LT1-17</b>"), "the outlier is listed on the page");
         // stated means of MakeLot (log10 IS, N, RS); a drawn lot of ~22 parts scatters by std/sqrt(n): three standard errors
         Map<String, Double> stated = Map.of("IS", -14.3, "N", 1.03, "RS", 0.9);
         for (Map.Entry<String, Double> e : stated.entrySet()) {

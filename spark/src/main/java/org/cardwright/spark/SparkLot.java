@@ -30,6 +30,7 @@ import org.cardwright.lot.LotRequest;
 import org.cardwright.lot.LotSettings;
 import org.cardwright.lot.PartResult;
 import org.cardwright.model.Ngspice39;
+import org.cardwright.report.LotHtml;
 import org.cardwright.report.LotJson;
 import org.cardwright.report.LotText;
 
@@ -204,7 +205,7 @@ public final class SparkLot {
             }
             prepared.results()[prepared.todo().get(k)] = r;
         }
-        return job.finish(prepared, LotJson::write);
+        return job.finish(prepared, LotJson::write, LotHtml::write);
     }
 
     /** The per-part task on an executor: the plain path's {@link LotJob#fitAndStore}, settings rebuilt from the options. */
