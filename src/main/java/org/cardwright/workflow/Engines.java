@@ -29,6 +29,18 @@ public final class Engines {
         return work;
     }
 
+    /**
+     * The card as the engines take it: its parsed name and parameters, and the values it states in its own dialect
+     * (what an external simulator's deck is written from; no card text travels).
+     */
+    public static org.cardwright.sim.CardUnderTest underTest(org.cardwright.card.ParsedCard card,
+            org.cardwright.card.Dialect dialect) {
+        java.util.List<org.cardwright.sim.CardUnderTest.Setting> settings = new java.util.ArrayList<>();
+        dialect.statedValues(card.parameters())
+                .forEach((k, v) -> settings.add(new org.cardwright.sim.CardUnderTest.Setting(k, v)));
+        return new org.cardwright.sim.CardUnderTest(card.name(), card.parameters(), settings);
+    }
+
     /** The engine called {@code name}; ngspice is looked up on the PATH or in CARDWRIGHT_NGSPICE. */
     public static SimulationEngine byName(String name) throws SimulationException {
         return byName(name, org.cardwright.model.Flavour.NGSPICE_39);
