@@ -57,6 +57,9 @@ final class CompareCommand implements Callable<Integer> {
     @Option(names = "--dialect-b", paramLabel = "D", description = "Dialect of CARD_B (default: from a NAME.DIALECT.lib file name, else ngspice).")
     String dialectB;
 
+    @picocli.CommandLine.Mixin
+    SimulatorTimeLimit simulatorTimeLimit = new SimulatorTimeLimit();
+
     @Option(names = "--engine", paramLabel = "E", defaultValue = "builtin",
             description = "Who simulates: " + Engines.NAMES + " (default: ${DEFAULT-VALUE}).")
     String engine;
@@ -87,6 +90,7 @@ final class CompareCommand implements Callable<Integer> {
 
     @Override
     public Integer call() throws Exception {
+        simulatorTimeLimit.apply();
         CardReader reader = new CardReader();
         Dialect da = VerifyCommand.dialectOf(cardA, dialectA);
         Dialect db = VerifyCommand.dialectOf(cardB, dialectB);

@@ -39,6 +39,9 @@ final class VerifyCommand implements Callable<Integer> {
     @Parameters(index = "1..*", arity = "1..*", paramLabel = "DATA", description = "Measurement CSV files.")
     List<Path> data;
 
+    @picocli.CommandLine.Mixin
+    SimulatorTimeLimit simulatorTimeLimit = new SimulatorTimeLimit();
+
     @Option(names = "--engine", paramLabel = "E", defaultValue = "builtin",
             description = "Who simulates: " + Engines.NAMES + " (default: ${DEFAULT-VALUE}).")
     String engine;
@@ -90,6 +93,7 @@ final class VerifyCommand implements Callable<Integer> {
 
     @Override
     public Integer call() throws Exception {
+        simulatorTimeLimit.apply();
         if (html != null) {
             if (json != null && json.toAbsolutePath().normalize().equals(html.toAbsolutePath().normalize())) {
                 throw new IllegalArgumentException("--json and --html both name " + html + "; give them different files");

@@ -102,7 +102,7 @@ public final class GnucapEngine implements SimulationEngine {
         if (biases.isEmpty()) {
             return List.of();
         }
-        SimulatorProcess.Run run = process.runClean(netlist(card, biases), workRoot);
+        SimulatorProcess.Run run = process.runClean(netlist(card, biases), workRoot, biases.size());
         SimulatorProcess.Result result = run.result();
         Path dir = run.folder();
         List<double[]> rows = rows(result.stdout(), TITLE_PREFIX + card.name(), dir);

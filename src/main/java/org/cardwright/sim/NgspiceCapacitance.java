@@ -1,7 +1,5 @@
 package org.cardwright.sim;
 
-import java.io.IOException;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
@@ -87,15 +85,10 @@ public final class NgspiceCapacitance implements CapacitanceEngine {
         if (voltageBiases.isEmpty()) {
             return List.of();
         }
-        SimulatorProcess.Run run = process.runClean(netlist, workRoot);
+        SimulatorProcess.Run run = process.runClean(netlist, workRoot, voltageBiases.size());
         Path dir = run.folder();
         String kept = " (netlist kept in " + dir + ")";
-        List<String> lines;
-        try {
-            lines = Files.readAllLines(dir.resolve(OUTPUT));
-        } catch (IOException e) {
-            throw new SimulationException("ngspice wrote no results" + kept + ": " + e.getMessage(), e);
-        }
+        List<String> lines = ResultTable.lines(dir.resolve(OUTPUT), voltageBiases.size(), "ngspice", kept);
         // two columns: the frequency, the capacitance
         List<Double> out = new ArrayList<>(voltageBiases.size());
         for (double[] row : ResultTable.read(lines, 2, voltageBiases.size(), "ngspice", kept)) {

@@ -1,7 +1,5 @@
 package org.cardwright.sim;
 
-import java.io.IOException;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
@@ -97,15 +95,10 @@ public final class NgspiceEngine implements SimulationEngine {
         if (biases.isEmpty()) {
             return List.of();
         }
-        SimulatorProcess.Run run = process.runClean(netlist(card, biases), workRoot);
+        SimulatorProcess.Run run = process.runClean(netlist(card, biases), workRoot, biases.size());
         Path dir = run.folder();
         String kept = " (netlist kept in " + dir + ")";
-        List<String> lines;
-        try {
-            lines = Files.readAllLines(dir.resolve("points.dat"));
-        } catch (IOException e) {
-            throw new SimulationException("ngspice wrote no results" + kept + ": " + e.getMessage(), e);
-        }
+        List<String> lines = ResultTable.lines(dir.resolve("points.dat"), biases.size(), "ngspice", kept);
         List<double[]> rows = ResultTable.read(lines, 4, biases.size(), "ngspice", kept);
         List<OperatingPoint> out = new ArrayList<>(biases.size());
         for (int k = 0; k < biases.size(); k++) {

@@ -16,7 +16,29 @@ final class ResultTable {
     private static final Pattern DECIMAL = Pattern.compile("[-+]?(\\d+\\.?\\d*|\\.\\d+)([eE][-+]?\\d+)?");
     private static final int FIELD_EXCERPT = 40;
 
+    /** Most bytes one result row may take: four 23-character numbers and blanks need about 100. */
+    static final int MAX_ROW_BYTES = 400;
+
     private ResultTable() {
+    }
+
+    /**
+     * The lines of a result file the simulator wrote, refused unread when it is larger than {@code expectedRows}
+     * rows can be (a runaway or hostile writer must not fill the heap).
+     */
+    static List<String> lines(java.nio.file.Path file, int expectedRows, String what, String kept)
+            throws SimulationException {
+        try {
+            long size = java.nio.file.Files.size(file);
+            long most = (long) MAX_ROW_BYTES * (expectedRows + 1);
+            if (size > most) {
+                throw new SimulationException(what + " wrote " + size + " bytes of results for " + expectedRows
+                        + " operating points, more than " + most + kept);
+            }
+            return java.nio.file.Files.readAllLines(file, java.nio.charset.StandardCharsets.ISO_8859_1);
+        } catch (java.io.IOException e) {
+            throw new SimulationException(what + " wrote no results" + kept + ": " + e.getMessage(), e);
+        }
     }
 
     /**
