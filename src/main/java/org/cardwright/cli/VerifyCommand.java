@@ -46,7 +46,7 @@ final class VerifyCommand implements Callable<Integer> {
             description = "Who simulates: " + Engines.NAMES + " (default: ${DEFAULT-VALUE}).")
     String engine;
 
-    @Option(names = "--model", paramLabel = "NAME", description = "Which model, when the file holds several.")
+    @Option(names = "--model", paramLabel = "NAME", description = "The model name the card must carry (a card file holds one .model).")
     String model;
 
     @Option(names = "--dialect", paramLabel = "D",
