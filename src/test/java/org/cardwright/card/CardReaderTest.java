@@ -219,4 +219,16 @@ class CardReaderTest {
         assertTrue(e.getMessage().startsWith("typed card:2: "), e.getMessage());
         assertTrue(e.getMessage().contains("'RS=-1'"), e.getMessage());
     }
+
+    @Test
+    void aRefusedLineIsQuotedShortAndEscaped() {
+        String hostile = ".model desc D(IS=1n)\n.control \u001b[2J\u0000" + "x".repeat(200) + "\n";
+        CardFormatException e = assertThrows(CardFormatException.class,
+                () -> reader.parse(hostile, "esc.lib", Dialect.NGSPICE));
+        assertTrue(e.getMessage().startsWith("esc.lib:2: refused a simulator control block (.control) after the"),
+                e.getMessage());
+        assertTrue(e.getMessage().contains("'.control \\u001b[2J\\u0000xxx"), e.getMessage());
+        assertTrue(e.getMessage().endsWith("...'"), e.getMessage());
+        assertTrue(e.getMessage().chars().allMatch(c -> c >= 0x20 && c < 0x7f), "printable ASCII only");
+    }
 }
