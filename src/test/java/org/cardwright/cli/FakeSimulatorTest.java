@@ -198,4 +198,15 @@ class FakeSimulatorTest {
         assertEquals("cardwright: CARDWRIGHT_GNUCAP is set to '" + dir + "', which is not an executable file",
                 g.stderr().strip());
     }
+
+    @Test
+    void aTimeLimitThatIsNotAPositiveNumberIsAUsageError() {
+        Path card = Simulators.projectDir().resolve("fixtures/demo/generating-card.lib");
+        Path data = Simulators.projectDir().resolve("fixtures/demo/ks1-forward-25C.csv");
+        for (String bad : List.of("0", "-3", "NaN")) {
+            CliRun run = CliRun.of("verify", card.toString(), data.toString(), "--engine", "ngspice", "--sim-timeout", bad);
+            assertEquals(ExitCodes.USAGE, run.exitCode(), run.describe());
+            assertTrue(run.err().contains("--sim-timeout"), run.describe());
+        }
+    }
 }
