@@ -1,7 +1,7 @@
 package org.cardwright.card;
 
-import java.util.EnumMap;
 import java.util.ArrayList;
+import java.util.EnumMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
