@@ -1,227 +1,159 @@
 package org.cardwright.card;
 
 import java.io.IOException;
+import java.io.InputStream;
+import java.nio.ByteBuffer;
+import java.nio.charset.CharacterCodingException;
+import java.nio.charset.CodingErrorAction;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import java.util.ArrayList;
-import java.util.EnumMap;
-import java.util.HashMap;
 import java.util.List;
 import java.util.Locale;
-import java.util.Map;
 import java.util.Objects;
 import java.util.Optional;
-import java.util.stream.Collectors;
-import org.cardwright.card.CardText.Comment;
 import org.cardwright.card.CardText.Statement;
-import org.cardwright.card.CardText.Token;
-import org.cardwright.model.DiodeParameters;
-import org.cardwright.model.Param;
 
 /**
- * Reads diode {@code .model} cards from text: a card file or a netlist fragment.
+ * Reads a diode card file. A card is data, never netlist text: the file must be exactly one
+ * {@code .model NAME D(...)} statement with its {@code +} continuations, {@code *} comment lines, inline comments
+ * after {@code ;}, {@code $} or {@code //}, and blank lines. Anything else, in any letter case, indentation or
+ * position (a {@code .control} block, {@code .include}/{@code .lib}, {@code .system}, gnucap's {@code !} and
+ * {@code .!} shell lines, an element line such as {@code R99 a 0 10}, any other dot command, a second
+ * {@code .model}) is refused with a one-line {@link CardFormatException} naming the file, the line and what the
+ * line was (a short, escaped excerpt). What a simulator later receives is written from the parsed name and numbers
+ * alone.
  *
- * <p>Every line counts; there is no title line to skip. Accepted: {@code *} comment lines, inline comments after
- * {@code ;}, {@code $} or {@code //}, {@code +} continuation lines, parentheses or none, any letter case,
- * {@code key=value} with or without blanks around {@code =}, SPICE suffixes and the dialect's aliases. Statements
- * other than {@code .model} are passed over. Values become SI at this boundary (TNOM: degrees C to kelvin), and
- * take their ngspice 39 meaning ({@link Dialect#fromCard}: a gnucap card's XTI is read as N times the value).
+ * <p>Within the statement: parentheses around all parameters or none, any letter case, {@code key=value} with or
+ * without blanks around {@code =}, SPICE suffixes and the dialect's aliases. Values become SI at this boundary
+ * (TNOM: degrees C to kelvin), and take their ngspice 39 meaning ({@link Dialect#fromCard}: a gnucap card's XTI is
+ * read as N times the value). A keyword that is not a parameter the dialect carries is not taken; it is reported,
+ * with its value as written, in {@link ParsedCard#notices()}.
  *
- * <p>A keyword that is not a parameter the dialect carries is not taken; it is reported, with its value as
- * written, in {@link ParsedCard#notices()}. Faults are a {@link CardFormatException} naming source, line and text.
+ * <p>The shapes a file may have are {@link CardForm}s, listed in {@link #FORMS}; a new exactly-shaped form is one
+ * more entry there.
  */
 public final class CardReader {
-    private static final String MODEL_KEYWORD = ".MODEL";
-    private static final String DIODE_TYPE = "D";
+    /** Largest card file read [bytes]: a diode card is a few hundred bytes; this bounds work on a hostile file. */
+    public static final long MAX_CARD_BYTES = 1L << 20;
 
-    /** Reads the one card in {@code path}; see {@link #parse(String, String, Dialect)}. */
+    /** The shapes a card file may have, each opened by its own keyword. */
+    static final List<CardForm> FORMS = List.of(new ModelForm());
+
+    /** Reads the card in {@code path}; see {@link #parse(String, String, Dialect)}. */
     public ParsedCard read(Path path, Dialect dialect) throws IOException {
-        return parse(Files.readString(path, StandardCharsets.UTF_8), path.toString(), dialect);
+        return read(path, path.toString(), dialect, Optional.empty());
     }
 
-    /** Reads the card called {@code name} in {@code path}, or its only card when no name is given. */
+    /** Reads the card in {@code path}, which must be called {@code name} when a name is given. */
     public ParsedCard read(Path path, Dialect dialect, Optional<String> name) throws IOException {
-        return parse(Files.readString(path, StandardCharsets.UTF_8), path.toString(), dialect, name);
+        return read(path, path.toString(), dialect, name);
     }
 
-    /** Reads every card in {@code path}, in file order. */
-    public List<ParsedCard> readAll(Path path, Dialect dialect) throws IOException {
-        return parseAll(Files.readString(path, StandardCharsets.UTF_8), path.toString(), dialect);
+    /**
+     * Reads the card in {@code path}, naming it {@code sourceName} in notices and errors. Only a regular file of at
+     * most {@link #MAX_CARD_BYTES} in UTF-8 is read.
+     *
+     * @throws CardFormatException when the file is not a regular file, too large, not UTF-8, or not a card
+     * @throws IOException when the file cannot be read
+     */
+    public ParsedCard read(Path path, String sourceName, Dialect dialect, Optional<String> name) throws IOException {
+        return parse(readText(path, sourceName), sourceName, dialect, name);
+    }
+
+    /** The text of a card file: a regular file, at most {@link #MAX_CARD_BYTES}, strict UTF-8. */
+    public static String readText(Path path, String sourceName) throws IOException {
+        if (!Files.exists(path)) {
+            throw new java.nio.file.NoSuchFileException(sourceName);
+        }
+        if (!Files.isRegularFile(path)) {
+            throw new CardFormatException(sourceName, 0, "not a regular file (a card is a text file)", null);
+        }
+        byte[] bytes;
+        try (InputStream in = Files.newInputStream(path)) {
+            bytes = in.readNBytes((int) MAX_CARD_BYTES + 1);
+        }
+        if (bytes.length > MAX_CARD_BYTES) {
+            throw new CardFormatException(sourceName, 0, "larger than " + MAX_CARD_BYTES
+                    + " bytes; a card file holds one .model statement", null);
+        }
+        try {
+            return StandardCharsets.UTF_8.newDecoder().onMalformedInput(CodingErrorAction.REPORT)
+                    .onUnmappableCharacter(CodingErrorAction.REPORT).decode(ByteBuffer.wrap(bytes)).toString();
+        } catch (CharacterCodingException e) {
+            throw new CardFormatException(sourceName, 0, "not UTF-8 text", null);
+        }
     }
 
     /**
      * Reads the one card in {@code text}.
      *
      * @param sourceName the file name or label used in notices and errors
-     * @throws CardFormatException when the text holds no card or more than one, or a card is malformed
+     * @throws CardFormatException when the text is not exactly one card, or the card is malformed
      */
     public ParsedCard parse(String text, String sourceName, Dialect dialect) {
         return parse(text, sourceName, dialect, Optional.empty());
     }
 
     /**
-     * Reads the card called {@code name} (any letter case, as SPICE compares names), or the only card when
-     * {@code name} is empty.
+     * Reads the one card in {@code text}; when {@code name} is given, the card must carry that name (any letter
+     * case, as SPICE compares names).
      *
-     * @throws CardFormatException when no card matches, or the name is empty and there are several cards
+     * @throws CardFormatException when the text is not exactly one card, the card is malformed, or it has another
+     *     name
      */
     public ParsedCard parse(String text, String sourceName, Dialect dialect, Optional<String> name) {
-        List<ParsedCard> cards = parseAll(text, sourceName, dialect);
-        if (name.isPresent()) {
-            String wanted = name.get();
-            return cards.stream().filter(c -> c.name().equalsIgnoreCase(wanted)).findFirst()
-                    .orElseThrow(() -> new CardFormatException(sourceName, 0,
-                            "no .model named " + wanted + " (found: " + names(cards) + ")", null));
-        }
-        if (cards.size() > 1) {
-            throw new CardFormatException(sourceName, 0,
-                    cards.size() + " .model cards (" + names(cards) + "); choose one by name", null);
-        }
-        return cards.get(0);
-    }
-
-    /**
-     * Reads every diode card in {@code text}, in order. A comment line belongs to the next card, or to the last
-     * card when no card follows it.
-     *
-     * @throws CardFormatException when there is no {@code .model} line, a model is not a diode, a name repeats, or
-     *     a card is malformed
-     */
-    public List<ParsedCard> parseAll(String text, String sourceName, Dialect dialect) {
         Objects.requireNonNull(text, "text");
         Objects.requireNonNull(sourceName, "sourceName");
         Objects.requireNonNull(dialect, "dialect");
         CardText.Layout layout = CardText.split(text, sourceName);
-        List<Statement> models = layout.statements().stream()
-                .filter(s -> s.tokens().get(0).text().toUpperCase(Locale.ROOT).equals(MODEL_KEYWORD))
-                .toList();
-        if (models.isEmpty()) {
+        if (layout.statements().isEmpty()) {
             throw new CardFormatException(sourceName, 0, "no .model line", null);
         }
-        List<ParsedCard> cards = new ArrayList<>();
-        Map<String, Integer> seenNames = new HashMap<>();
-        int previousEnd = 0;
-        for (int k = 0; k < models.size(); k++) {
-            Statement model = models.get(k);
-            int commentsUpTo = k == models.size() - 1 ? Integer.MAX_VALUE : model.lastLine();
-            List<String> comments = commentsBetween(layout.comments(), previousEnd, commentsUpTo);
-            ParsedCard card = readModel(model, comments, sourceName, dialect);
-            Integer earlier = seenNames.putIfAbsent(card.name().toUpperCase(Locale.ROOT), model.firstLine());
-            if (earlier != null) {
-                throw new CardFormatException(sourceName, model.firstLine(),
-                        "model name already used on line " + earlier + ":", card.name());
-            }
-            cards.add(card);
-            previousEnd = model.lastLine();
+        Statement first = layout.statements().get(0);
+        CardForm form = FORMS.stream().filter(f -> f.openingKeyword().equals(first.keyword())).findFirst()
+                .orElseThrow(() -> refuse(sourceName, first, "before the .model statement"));
+        ParsedCard card = form.read(layout, sourceName, dialect);
+        if (name.isPresent() && !card.name().equalsIgnoreCase(name.get())) {
+            throw new CardFormatException(sourceName, first.firstLine(),
+                    "no .model named " + name.get() + "; the card holds", card.name());
         }
-        return List.copyOf(cards);
+        return card;
     }
 
-    private static List<String> commentsBetween(List<Comment> comments, int afterLine, int upToLine) {
-        return comments.stream().filter(c -> c.line() > afterLine && c.line() <= upToLine)
-                .map(Comment::text).toList();
+    /**
+     * The refusal of a statement a card file may not hold: names the source, its line, what kind of line it is
+     * and a short escaped excerpt, e.g. {@code a.lib:4: refused a simulator control block (.control) after the
+     * .model statement: a card file holds one .model statement and comments only '.control'}.
+     *
+     * @param where where the statement stands, e.g. "after the .model statement"
+     */
+    static CardFormatException refuse(String source, Statement statement, String where) {
+        return new CardFormatException(source, statement.firstLine(), "refused " + kind(statement.keyword()) + " "
+                + where + ": a card file holds one .model statement and comments only;", statement.firstLineText());
     }
 
-    private static ParsedCard readModel(Statement model, List<String> comments, String source, Dialect dialect) {
-        List<Token> tokens = model.tokens();
-        Token keyword = tokens.get(0);
-        if (tokens.size() < 2) {
-            throw new CardFormatException(source, keyword.line(), ".model line without a model name:",
-                    keyword.text());
+    /** What a statement is, in a few words, from its first token. */
+    static String kind(String keyword) {
+        String k = keyword.toUpperCase(Locale.ROOT);
+        if (k.startsWith(".CONTROL") || k.startsWith(".ENDC")) {
+            return "a simulator control block (" + k.toLowerCase(Locale.ROOT) + ")";
         }
-        Token name = tokens.get(1);
-        if (!ModelCard.isSpiceIdentifier(name.text())) {
-            throw new CardFormatException(source, name.line(), "model name is not a SPICE identifier:", name.text());
+        if (k.equals(".INCLUDE") || k.equals(".INC") || k.equals(".LIB") || k.equals(".ENDL") || k.equals(".GET")) {
+            return "a file include (" + k.toLowerCase(Locale.ROOT) + ")";
         }
-        if (tokens.size() < 3 || (tokens.size() > 3 && tokens.get(3).text().equals("="))) {
-            Token after = tokens.size() < 3 ? name : tokens.get(2);
-            throw new CardFormatException(source, after.line(),
-                    "no device type after the model name " + name.text() + " at", after.text());
+        if (k.startsWith("!") || k.startsWith(".!") || k.equals(".SYSTEM") || k.equals(".SHELL")) {
+            return "a shell command line";
         }
-        Token type = tokens.get(2);
-        if (!type.text().equalsIgnoreCase(DIODE_TYPE)) {
-            throw new CardFormatException(source, type.line(),
-                    "model " + name.text() + " is not a diode (type D); its type is", type.text());
+        if (k.equals(ModelForm.MODEL_KEYWORD)) {
+            return "a second .model statement";
         }
-        EnumMap<Param, Double> values = new EnumMap<>(Param.class);
-        Map<Param, Token> givenAt = new EnumMap<>(Param.class);
-        List<String> notices = new ArrayList<>();
-        int i = 3;
-        while (i < tokens.size()) {
-            Token key = tokens.get(i);
-            if (key.text().equals("=")) {
-                throw new CardFormatException(source, key.line(), "'=' without a parameter name before it in",
-                        rawAround(tokens, i));
-            }
-            if (i + 1 >= tokens.size() || !tokens.get(i + 1).text().equals("=")) {
-                throw new CardFormatException(source, key.line(), "expected name=value, found", key.text());
-            }
-            if (i + 2 >= tokens.size() || tokens.get(i + 2).text().equals("=")) {
-                throw new CardFormatException(source, key.line(), "no value after", key.text() + "=");
-            }
-            Token value = tokens.get(i + 2);
-            String raw = key.text() + "=" + value.text();
-            take(key, value, raw, source, dialect, values, givenAt, notices);
-            i += 3;
+        if (k.startsWith(".")) {
+            return "a dot command";
         }
-        // back to ngspice meaning (a gnucap card's XTI is XTI/N): the rest of the program sees nothing else
-        return new ParsedCard(name.text(), dialect.fromCard(DiodeParameters.of(values)), notices, comments);
-    }
-
-    private static void take(Token key, Token value, String raw, String source, Dialect dialect,
-            EnumMap<Param, Double> values, Map<Param, Token> givenAt, List<String> notices) {
-        String where = source + ":" + key.line() + ": ";
-        Optional<Param> resolved = dialect.resolve(key.text());
-        if (resolved.isEmpty()) {
-            notices.add(where + noticeFor(key.text(), raw, dialect));
-            return;
+        if (!k.isEmpty() && Character.isLetter(k.charAt(0))) {
+            return "an element or command line";
         }
-        Param p = resolved.get();
-        Token earlier = givenAt.get(p);
-        if (earlier != null) {
-            throw new CardFormatException(source, key.line(), p.keyword() + " already given as " + earlier.text()
-                    + " on line " + earlier.line() + "; repeated as", raw);
-        }
-        double cardValue;
-        try {
-            cardValue = SpiceNumbers.parse(value.text());
-        } catch (NumberFormatException e) {
-            throw new CardFormatException(source, value.line(), "not a number:", raw);
-        }
-        double si = p.fromCardValue(cardValue);
-        try {
-            DiodeParameters.defaults().with(p, si);
-        } catch (IllegalArgumentException e) {
-            throw new CardFormatException(source, value.line(), "value out of range (" + e.getMessage() + "):", raw);
-        }
-        values.put(p, si);
-        givenAt.put(p, key);
-    }
-
-    private static String noticeFor(String keyword, String raw, Dialect dialect) {
-        Optional<Param> elsewhere = Dialect.NGSPICE.resolve(keyword);
-        if (elsewhere.isPresent() && dialect.carries(elsewhere.get())) {
-            return "'" + raw + "' is not a " + dialect.simulator() + " spelling of " + elsewhere.get().keyword()
-                    + "; ignored";
-        }
-        if (elsewhere.isPresent()) {
-            return "'" + raw + "' (" + elsewhere.get().keyword() + ") is not carried by " + dialect.simulator()
-                    + "; ignored";
-        }
-        if (dialect.isKnownUnsupported(keyword)) {
-            return "'" + raw + "' is known to " + dialect.simulator() + " but not modelled by cardwright; ignored";
-        }
-        return "unknown parameter '" + raw + "' for " + dialect.simulator() + "; ignored";
-    }
-
-    private static String rawAround(List<Token> tokens, int index) {
-        int from = Math.max(0, index - 1);
-        int to = Math.min(tokens.size(), index + 2);
-        return tokens.subList(from, to).stream().map(Token::text).collect(Collectors.joining(" "));
-    }
-
-    private static String names(List<ParsedCard> cards) {
-        return cards.stream().map(ParsedCard::name).collect(Collectors.joining(", "));
+        return "a line that is not part of a card";
     }
 }

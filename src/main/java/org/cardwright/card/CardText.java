@@ -2,19 +2,27 @@ package org.cardwright.card;
 
 import java.util.ArrayList;
 import java.util.List;
+import java.util.Locale;
 
 /**
  * Splits SPICE card text into comment lines and logical statements (a line and its {@code +} continuations), and
- * a statement into tokens that remember their physical line. Parentheses and commas separate tokens like blanks;
- * {@code =} is a token of its own. Inline comments start at {@code ;}, {@code $} or {@code //}.
+ * a statement into tokens that remember their physical line. Parentheses are tokens of their own; commas separate
+ * tokens like blanks; {@code =} is a token of its own. Inline comments start at {@code ;}, {@code $} or
+ * {@code //}. Nothing here decides what a statement may be: that is {@link CardReader}'s and its forms' job.
  */
 final class CardText {
     /** A token as written and the 1-based line it stands on. */
     record Token(String text, int line) {
     }
 
-    /** One logical statement: its tokens, in order. */
-    record Statement(List<Token> tokens, int firstLine, int lastLine) {
+    /**
+     * One logical statement: its tokens, in order, and its first physical line as written (for error messages).
+     */
+    record Statement(List<Token> tokens, int firstLine, int lastLine, String firstLineText) {
+        /** The first token in upper case: {@code .MODEL}, {@code .CONTROL}, {@code R99}. */
+        String keyword() {
+            return tokens.get(0).text().toUpperCase(Locale.ROOT);
+        }
     }
 
     /** A {@code *} comment line without the {@code *} and one following blank. */
@@ -36,6 +44,7 @@ final class CardText {
         List<Token> current = null;
         int firstLine = 0;
         int lastLine = 0;
+        String firstText = "";
         for (int i = 0; i < lines.length; i++) {
             int lineNumber = i + 1;
             String line = lines[i];
@@ -59,14 +68,15 @@ final class CardText {
                 continue;
             }
             if (current != null) {
-                statements.add(new Statement(List.copyOf(current), firstLine, lastLine));
+                statements.add(new Statement(List.copyOf(current), firstLine, lastLine, firstText));
             }
             current = new ArrayList<>(tokens(codeStripped, lineNumber));
             firstLine = lineNumber;
             lastLine = lineNumber;
+            firstText = line.strip();
         }
         if (current != null) {
-            statements.add(new Statement(List.copyOf(current), firstLine, lastLine));
+            statements.add(new Statement(List.copyOf(current), firstLine, lastLine, firstText));
         }
         return new Layout(List.copyOf(statements), List.copyOf(comments));
     }
@@ -92,11 +102,11 @@ final class CardText {
         StringBuilder word = new StringBuilder();
         for (int i = 0; i < code.length(); i++) {
             char c = code.charAt(i);
-            if (Character.isWhitespace(c) || c == '(' || c == ')' || c == ',') {
+            if (Character.isWhitespace(c) || c == ',') {
                 flush(word, lineNumber, out);
-            } else if (c == '=') {
+            } else if (c == '=' || c == '(' || c == ')') {
                 flush(word, lineNumber, out);
-                out.add(new Token("=", lineNumber));
+                out.add(new Token(String.valueOf(c), lineNumber));
             } else {
                 word.append(c);
             }

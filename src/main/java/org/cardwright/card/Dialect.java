@@ -236,6 +236,22 @@ public enum Dialect {
     }
 
     /**
+     * The values a card in this dialect states for {@code ngspiceMeaning}: keyword and number as written on the card
+     * (after {@link #toCard}; TNOM in degrees C), for every given parameter the dialect carries, in {@link Param}
+     * order. What {@link CardWriter} formats, and what a simulator deck is written from.
+     */
+    public Map<String, Double> statedValues(DiodeParameters ngspiceMeaning) {
+        DiodeParameters onCard = toCard(ngspiceMeaning);
+        Map<String, Double> out = new LinkedHashMap<>();
+        for (Param p : Param.values()) {
+            if (onCard.isGiven(p) && carries(p)) {
+                out.put(keyword(p), p.toCardValue(onCard.get(p)));
+            }
+        }
+        return Collections.unmodifiableMap(out);
+    }
+
+    /**
      * The dialect called {@code name} (its short name or enum name, any case).
      *
      * @throws IllegalArgumentException listing the valid names

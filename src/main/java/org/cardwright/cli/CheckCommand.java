@@ -29,6 +29,9 @@ final class CheckCommand implements Callable<Integer> {
     @Parameters(index = "0", paramLabel = "ROOT", description = "The library folder.")
     Path root;
 
+    @picocli.CommandLine.Mixin
+    SimulatorTimeLimit simulatorTimeLimit = new SimulatorTimeLimit();
+
     @Option(names = "--engine", paramLabel = "E", defaultValue = "builtin",
             description = "Who simulates: " + Engines.NAMES + " (default: ${DEFAULT-VALUE}).")
     String engine;
@@ -44,6 +47,7 @@ final class CheckCommand implements Callable<Integer> {
 
     @Override
     public Integer call() throws Exception {
+        simulatorTimeLimit.apply();
         Engines.byName(engine);
         PrintWriter out = spec.commandLine().getOut();
         List<CardCheck> checks = new LibraryCheck(engine, allowStale).check(root, line -> {

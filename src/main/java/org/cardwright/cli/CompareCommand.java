@@ -45,10 +45,10 @@ final class CompareCommand implements Callable<Integer> {
     @Parameters(index = "1", paramLabel = "CARD_B", description = "The second card file.")
     Path cardB;
 
-    @Option(names = "--model-a", paramLabel = "NAME", description = "Which model of CARD_A, when it holds several.")
+    @Option(names = "--model-a", paramLabel = "NAME", description = "The model name CARD_A must carry (a card file holds one .model).")
     String modelA;
 
-    @Option(names = "--model-b", paramLabel = "NAME", description = "Which model of CARD_B, when it holds several.")
+    @Option(names = "--model-b", paramLabel = "NAME", description = "The model name CARD_B must carry (a card file holds one .model).")
     String modelB;
 
     @Option(names = "--dialect-a", paramLabel = "D", description = "Dialect of CARD_A (default: from a NAME.DIALECT.lib file name, else ngspice).")
@@ -56,6 +56,9 @@ final class CompareCommand implements Callable<Integer> {
 
     @Option(names = "--dialect-b", paramLabel = "D", description = "Dialect of CARD_B (default: from a NAME.DIALECT.lib file name, else ngspice).")
     String dialectB;
+
+    @picocli.CommandLine.Mixin
+    SimulatorTimeLimit simulatorTimeLimit = new SimulatorTimeLimit();
 
     @Option(names = "--engine", paramLabel = "E", defaultValue = "builtin",
             description = "Who simulates: " + Engines.NAMES + " (default: ${DEFAULT-VALUE}).")
@@ -87,6 +90,7 @@ final class CompareCommand implements Callable<Integer> {
 
     @Override
     public Integer call() throws Exception {
+        simulatorTimeLimit.apply();
         CardReader reader = new CardReader();
         Dialect da = VerifyCommand.dialectOf(cardA, dialectA);
         Dialect db = VerifyCommand.dialectOf(cardB, dialectB);

@@ -39,11 +39,14 @@ final class VerifyCommand implements Callable<Integer> {
     @Parameters(index = "1..*", arity = "1..*", paramLabel = "DATA", description = "Measurement CSV files.")
     List<Path> data;
 
+    @picocli.CommandLine.Mixin
+    SimulatorTimeLimit simulatorTimeLimit = new SimulatorTimeLimit();
+
     @Option(names = "--engine", paramLabel = "E", defaultValue = "builtin",
             description = "Who simulates: " + Engines.NAMES + " (default: ${DEFAULT-VALUE}).")
     String engine;
 
-    @Option(names = "--model", paramLabel = "NAME", description = "Which model, when the file holds several.")
+    @Option(names = "--model", paramLabel = "NAME", description = "The model name the card must carry (a card file holds one .model).")
     String model;
 
     @Option(names = "--dialect", paramLabel = "D",
@@ -90,6 +93,7 @@ final class VerifyCommand implements Callable<Integer> {
 
     @Override
     public Integer call() throws Exception {
+        simulatorTimeLimit.apply();
         if (html != null) {
             if (json != null && json.toAbsolutePath().normalize().equals(html.toAbsolutePath().normalize())) {
                 throw new IllegalArgumentException("--json and --html both name " + html + "; give them different files");

@@ -3,10 +3,6 @@ package org.cardwright.compare;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
-import java.util.Optional;
-import org.cardwright.card.CardWriter;
-import org.cardwright.card.Dialect;
-import org.cardwright.card.ModelCard;
 import org.cardwright.card.ParsedCard;
 import org.cardwright.card.SpiceNumbers;
 import org.cardwright.model.DiodeParameters;
@@ -159,12 +155,9 @@ public final class CardComparer {
                 params, forward, leakage, caps, breakdown, notes);
     }
 
-    /** The card as ngspice text, written from its parameters, for the engines. */
+    /** The card in ngspice keywords and meaning, from its parsed parameters, for the engines. */
     static CardUnderTest underTest(ParsedCard card) {
-        String text = new CardWriter(Optional.empty())
-                .render(new ModelCard(card.name(), card.parameters(), List.of()), Dialect.NGSPICE,
-                        SpiceNumbers.MAX_SIGNIFICANT_DIGITS).text();
-        return new CardUnderTest(card.name(), card.parameters(), text);
+        return CardUnderTest.ngspice(card.name(), card.parameters());
     }
 
     /** The value a card gives, or its default in parentheses (empty for terms that exist only when given). */

@@ -126,7 +126,7 @@ final class Tweaker {
         Verification v;
         try {
             v = new Verifier(new BuiltinEngine(SimulatorOptions.NGSPICE_DEFAULTS), org.cardwright.verify.Tolerance.DEFAULT)
-                    .verify(new CardUnderTest(model, p, ".model " + model + " D()"), points, List.of());
+                    .verify(CardUnderTest.ngspice(model, p), points, List.of());
         } catch (org.cardwright.sim.process.SimulationException e) {
             throw new IllegalStateException("the built-in engine cannot fail: " + e.getMessage(), e);
         }

@@ -9,8 +9,9 @@ import org.cardwright.sim.process.SimulationException;
 import org.cardwright.sim.process.SimulatorProcess;
 
 /**
- * Re-simulates a card in gnucap 2017.10.03 (batch mode, {@code gnucap -b}). The card text must be a gnucap card
- * (the gnucap dialect); it is included verbatim, so what is proven is the file itself.
+ * Re-simulates a card in gnucap 2017.10.03 (batch mode, {@code gnucap -b}). The card must be a gnucap card (the
+ * gnucap dialect); its {@code .model} statement is written from the card's parsed name and numbers only
+ * ({@link CardUnderTest#modelStatement}; no card text reaches gnucap).
  *
  * <p>The netlist is ours: one diode fed by a current source (forced current) and a second fed by a voltage
  * source (forced voltage), each bias set by {@code .modify} and solved by its own {@code .op T}, because gnucap
@@ -78,7 +79,7 @@ public final class GnucapEngine implements SimulationEngine {
         sb.append(d.currentDiode).append(" a 0 ").append(card.name()).append('\n');
         sb.append(d.voltageSource).append(" b 0 dc 0\n");
         sb.append(d.voltageDiode).append(" b 0 ").append(card.name()).append('\n');
-        sb.append(card.text().endsWith("\n") ? card.text() : card.text() + "\n");
+        sb.append(card.modelStatement());
         sb.append(OPTIONS).append('\n');
         sb.append(".print op v(a) v(b) i(").append(d.voltageDiode).append(")\n");
         for (Bias b : biases) {
@@ -93,7 +94,7 @@ public final class GnucapEngine implements SimulationEngine {
     }
 
     private static String num(double v) {
-        return String.format(Locale.ROOT, "%.17g", v);
+        return DeckNumbers.format(v);
     }
 
     @Override
@@ -101,7 +102,7 @@ public final class GnucapEngine implements SimulationEngine {
         if (biases.isEmpty()) {
             return List.of();
         }
-        SimulatorProcess.Run run = process.runClean(netlist(card, biases), workRoot);
+        SimulatorProcess.Run run = process.runClean(netlist(card, biases), workRoot, biases.size());
         SimulatorProcess.Result result = run.result();
         Path dir = run.folder();
         List<double[]> rows = rows(result.stdout(), TITLE_PREFIX + card.name(), dir);
@@ -148,7 +149,7 @@ public final class GnucapEngine implements SimulationEngine {
             double[] row = expectRow && f.length == 4 ? numbers(f) : null;
             if (row == null) {
                 // "did not converge", or any other message gnucap prints between the results
-                throw new SimulationException("gnucap: " + line + " (at operating point " + (rows.size() + 1)
+                throw new SimulationException("gnucap: " + ResultTable.excerpt(line) + " (at operating point " + (rows.size() + 1)
                         + "; netlist kept in " + dir + ")");
             }
             rows.add(row);
@@ -185,7 +186,11 @@ public final class GnucapEngine implements SimulationEngine {
         if (!mantissa.matches("[-+]?(\\d+\\.?\\d*|\\.\\d+)([eE][-+]?\\d+)?")) {
             throw new NumberFormatException("not a gnucap number: '" + text + "'");
         }
-        return Double.parseDouble(mantissa) * scale(suffix, text);
+        double value = Double.parseDouble(mantissa) * scale(suffix, text);
+        if (!Double.isFinite(value)) {
+            throw new NumberFormatException("not a finite gnucap number: '" + text + "'");
+        }
+        return value;
     }
 
     private static double scale(String suffix, String text) {

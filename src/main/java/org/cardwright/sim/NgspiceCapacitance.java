@@ -1,18 +1,15 @@
 package org.cardwright.sim;
 
-import java.io.IOException;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
-import java.util.Locale;
 import org.cardwright.model.Ngspice39;
 import org.cardwright.sim.process.SimulationException;
 import org.cardwright.sim.process.SimulatorProcess;
 
 /**
- * Small-signal capacitance by ngspice AC analysis (batch mode). The netlist is ours: the card text included
- * verbatim, one diode driven by a voltage source {@code V1 a 0 DC v AC 1}, and per bias an {@code alter} of
+ * Small-signal capacitance by ngspice AC analysis (batch mode). The netlist is ours, written from the card's parsed
+ * name and numbers only ({@link CardUnderTest#modelStatement}; no card text): one diode driven by a voltage source {@code V1 a 0 DC v AC 1}, and per bias an {@code alter} of
  * the DC value followed by a one-frequency {@code ac} run. The anode current is -Y for a unit AC source, so
  * the parallel capacitance is C = -Im(I(V1))/(2 pi f), written with 16 digits. Convergence options are tight
  * (RELTOL 1e-7, VNTOL 1e-10 V, ABSTOL 1e-16 A) so that the operating point under RS is solved far below any
@@ -54,7 +51,7 @@ public final class NgspiceCapacitance implements CapacitanceEngine {
         sb.append("* cardwright small-signal capacitance of model ").append(card.name()).append('\n');
         sb.append("V1 a 0 DC 0 AC 1\n");
         sb.append("D1 a 0 ").append(card.name()).append('\n');
-        sb.append(card.text().endsWith("\n") ? card.text() : card.text() + "\n");
+        sb.append(card.modelStatement());
         sb.append(".options reltol=1e-7 vntol=1e-10 abstol=1e-16\n");
         sb.append(".control\n");
         sb.append("set wr_singlescale\n");
@@ -71,13 +68,14 @@ public final class NgspiceCapacitance implements CapacitanceEngine {
             sb.append("ac lin 1 ").append(f).append(' ').append(f).append('\n');
             sb.append("let cpar = -imag(i(v1)) / (2 * pi * real(frequency))\n");
             sb.append("wrdata ").append(OUTPUT).append(" cpar\n");
+            sb.append("destroy all\n");
         }
         sb.append("quit\n.endc\n.end\n");
         return sb.toString();
     }
 
     private static String num(double v) {
-        return String.format(Locale.ROOT, "%.17g", v);
+        return DeckNumbers.format(v);
     }
 
     @Override
@@ -87,35 +85,14 @@ public final class NgspiceCapacitance implements CapacitanceEngine {
         if (voltageBiases.isEmpty()) {
             return List.of();
         }
-        SimulatorProcess.Run run = process.runClean(netlist, workRoot);
+        SimulatorProcess.Run run = process.runClean(netlist, workRoot, voltageBiases.size());
         Path dir = run.folder();
-        List<String> lines;
-        try {
-            lines = Files.readAllLines(dir.resolve(OUTPUT));
-        } catch (IOException e) {
-            throw new SimulationException("ngspice wrote no results (netlist kept in " + dir + "): " + e.getMessage(), e);
-        }
+        String kept = " (netlist kept in " + dir + ")";
+        List<String> lines = ResultTable.lines(dir.resolve(OUTPUT), voltageBiases.size(), "ngspice", kept);
+        // two columns: the frequency, the capacitance
         List<Double> out = new ArrayList<>(voltageBiases.size());
-        for (String line : lines) {
-            String t = line.trim();
-            if (t.isEmpty()) {
-                continue;
-            }
-            String[] fields = t.split("\\s+");
-            if (fields.length != 2) {
-                throw new SimulationException("ngspice output line has " + fields.length
-                        + " columns, expected 2 (frequency, capacitance): " + t + " (netlist kept in " + dir + ")");
-            }
-            try {
-                out.add(Double.parseDouble(fields[1]));
-            } catch (NumberFormatException e) {
-                throw new SimulationException("ngspice output is not a number: '" + fields[1] + "' (netlist kept in "
-                        + dir + ")", e);
-            }
-        }
-        if (out.size() != voltageBiases.size()) {
-            throw new SimulationException("ngspice returned " + out.size() + " of " + voltageBiases.size()
-                    + " capacitances (netlist kept in " + dir + ")");
+        for (double[] row : ResultTable.read(lines, 2, voltageBiases.size(), "ngspice", kept)) {
+            out.add(row[1]);
         }
         SimulatorProcess.discard(dir);
         return out;

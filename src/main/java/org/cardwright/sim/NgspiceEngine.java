@@ -1,20 +1,19 @@
 package org.cardwright.sim;
 
-import java.io.IOException;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
-import java.util.Locale;
 import org.cardwright.model.Ngspice39;
 import org.cardwright.sim.process.SimulationException;
 import org.cardwright.sim.process.SimulatorProcess;
 
 /**
- * Re-simulates a card in ngspice (batch mode). The netlist is ours: the card text included verbatim, one
- * diode driven by a current or voltage source, one {@code op} per bias with the source value changed by
- * {@code alter}, and the terminal voltage (forced current) or the device current (forced voltage) written
- * with 16 digits. Convergence
+ * Re-simulates a card in ngspice (batch mode). The netlist is ours, written from the card's parsed name and numbers
+ * only ({@link CardUnderTest#modelStatement}; no card text): one diode driven by a current or voltage source, one
+ * {@code op} per bias with the source value changed by {@code alter}, and the terminal voltage (forced current) or
+ * the device current (forced voltage) written with 16 digits. After each point's row is written, {@code destroy all}
+ * frees the analysis's vectors, so that the run time stays linear in the number of points (without it, every
+ * {@code op} adds a plot that later commands walk). The rows are read strictly ({@link ResultTable}). Convergence
  * options are tight (RELTOL 1e-7, VNTOL 1e-10 V, ABSTOL 1e-20 A) so that the simulator's tolerance stays far
  * below any residual worth reporting; GMIN stays at its default because it is part of the model.
  */
@@ -59,7 +58,7 @@ public final class NgspiceEngine implements SimulationEngine {
         boolean thermal = card.parameters().isGiven(org.cardwright.model.Param.RTH0);
         sb.append("D1 a 0 ").append(thermal ? "t1 " : "").append(card.name()).append(thermal ? " thermal" : "").append('\n');
         sb.append("D2 b 0 ").append(thermal ? "t2 " : "").append(card.name()).append(thermal ? " thermal" : "").append('\n');
-        sb.append(card.text().endsWith("\n") ? card.text() : card.text() + "\n");
+        sb.append(card.modelStatement());
         sb.append(".options reltol=").append(num(CONVERGENCE.reltol())).append(" vntol=1e-10 abstol=1e-20\n");
         sb.append(".control\n");
         sb.append("set wr_singlescale\n");
@@ -81,13 +80,14 @@ public final class NgspiceEngine implements SimulationEngine {
             }
             sb.append("op\n");
             sb.append("wrdata points.dat v(a) @d1[id] @d2[id]\n");
+            sb.append("destroy all\n");
         }
         sb.append("quit\n.endc\n.end\n");
         return sb.toString();
     }
 
     private static String num(double v) {
-        return String.format(Locale.ROOT, "%.17g", v);
+        return DeckNumbers.format(v);
     }
 
     @Override
@@ -95,39 +95,22 @@ public final class NgspiceEngine implements SimulationEngine {
         if (biases.isEmpty()) {
             return List.of();
         }
-        SimulatorProcess.Run run = process.runClean(netlist(card, biases), workRoot);
+        SimulatorProcess.Run run = process.runClean(netlist(card, biases), workRoot, biases.size());
         Path dir = run.folder();
-        List<String> lines;
-        try {
-            lines = Files.readAllLines(dir.resolve("points.dat"));
-        } catch (IOException e) {
-            throw new SimulationException("ngspice wrote no results (netlist kept in " + dir + "): " + e.getMessage(), e);
-        }
-        List<OperatingPoint> out = new ArrayList<>();
-        for (String line : lines) {
-            String t = line.trim();
-            if (t.isEmpty()) {
-                continue;
-            }
-            String[] f = t.split("\\s+");
-            if (f.length < 4) {
-                throw new SimulationException("ngspice output line has " + f.length + " columns, expected 4: " + t);
-            }
-            Bias b = biases.get(out.size());
+        String kept = " (netlist kept in " + dir + ")";
+        List<String> lines = ResultTable.lines(dir.resolve("points.dat"), biases.size(), "ngspice", kept);
+        List<double[]> rows = ResultTable.read(lines, 4, biases.size(), "ngspice", kept);
+        List<OperatingPoint> out = new ArrayList<>(biases.size());
+        for (int k = 0; k < biases.size(); k++) {
+            Bias b = biases.get(k);
+            double[] f = rows.get(k);
             if (b.forcing() == Bias.Forcing.CURRENT) {
-                out.add(new OperatingPoint(Double.parseDouble(f[1]), Double.parseDouble(f[2])));
+                out.add(new OperatingPoint(f[1], f[2]));
             } else {
                 // the device current (equal to the terminal current at DC), evaluated by ngspice at the converged
                 // junction voltage; i(v1) would carry the cancellation in (v(b) - v(internal))/RS
-                out.add(new OperatingPoint(b.value(), Double.parseDouble(f[3])));
+                out.add(new OperatingPoint(b.value(), f[3]));
             }
-            if (out.size() > biases.size()) {
-                break;
-            }
-        }
-        if (out.size() != biases.size()) {
-            throw new SimulationException("ngspice returned " + out.size() + " of " + biases.size()
-                    + " operating points (netlist kept in " + dir + ")");
         }
         SimulatorProcess.discard(dir);
         return out;

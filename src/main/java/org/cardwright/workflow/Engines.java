@@ -1,5 +1,6 @@
 package org.cardwright.workflow;
 
+import java.nio.file.Files;
 import java.nio.file.Path;
 import java.time.Duration;
 import java.util.Locale;
@@ -13,20 +14,76 @@ import org.cardwright.sim.process.SimulatorProcess;
 public final class Engines {
     /** Names accepted by {@link #byName}. */
     public static final String NAMES = "builtin, ngspice, gnucap";
-    /** Longest an external simulator may run for one verification [s]. */
-    private static final Duration TIMEOUT = Duration.ofSeconds(120);
+    /**
+     * Fixed part of the time limit of one external simulator run [s]: start-up and loading take well under a second
+     * (ngspice 39 and gnucap here), so this leaves a wide margin on a busy machine.
+     */
+    public static final Duration BASE_TIMEOUT = Duration.ofSeconds(30);
+    /**
+     * Part of the time limit per operating point [s]: ngspice 39 solves a point in about 0.2 ms here
+     * (verify/bench/ngspice-points), so this is 100 times that.
+     */
+    public static final Duration TIMEOUT_PER_POINT = Duration.ofMillis(20);
+
+    /** A time limit for every run, set by the command line's --sim-timeout; null for the scaled default. */
+    private static volatile Duration fixedTimeout;
+    private static Path workRoot;
 
     private Engines() {
     }
 
     /**
-     * A folder for simulator netlists, removed when the JVM exits (each run also deletes its own files on
-     * success; a failed run leaves its netlist for the user and says where).
+     * Sets the time limit of every external simulator run from now on (the command line's {@code --sim-timeout}),
+     * or, with an empty value, goes back to the default: {@link #BASE_TIMEOUT} plus {@link #TIMEOUT_PER_POINT} per
+     * operating point.
+     *
+     * @throws IllegalArgumentException when the limit is not positive
      */
-    static Path workFolder() {
-        Path work = Path.of(System.getProperty("java.io.tmpdir"), "cardwright-" + ProcessHandle.current().pid());
-        work.toFile().deleteOnExit();
-        return work;
+    public static void setTimeLimit(java.util.Optional<Duration> limit) {
+        if (limit.isPresent() && (limit.get().isZero() || limit.get().isNegative())) {
+            throw new IllegalArgumentException("--sim-timeout must be positive, got " + limit.get().toMillis() / 1e3 + " s");
+        }
+        fixedTimeout = limit.orElse(null);
+    }
+
+    private static SimulatorProcess process(SimulatorProcess.Kind kind, Path exe) {
+        Duration fixed = fixedTimeout;
+        return fixed != null ? new SimulatorProcess(kind, exe, fixed)
+                : new SimulatorProcess(kind, exe, BASE_TIMEOUT, TIMEOUT_PER_POINT);
+    }
+
+    /**
+     * The folder for simulator netlists: made once per JVM by {@link Files#createTempDirectory} with owner-only
+     * permissions (never a predictable name), removed when the JVM exits. Each run makes its own private folder in
+     * it and deletes it on success; a failed run leaves its netlist for the user and says where.
+     */
+    static synchronized Path workFolder() throws SimulationException {
+        if (workRoot == null || !Files.isDirectory(workRoot)) {
+            try {
+                workRoot = SimulatorProcess.privateFolder(null, "cardwright-");
+            } catch (java.io.IOException e) {
+                throw new SimulationException("cannot create a private work folder for the simulator: " + e.getMessage(), e);
+            }
+            workRoot.toFile().deleteOnExit();
+        }
+        return workRoot;
+    }
+
+    private static Path locate(SimulatorProcess.Kind kind) throws SimulationException {
+        return SimulatorProcess.locate(kind).orElseThrow(() -> new SimulationException(
+                SimulatorProcess.notFoundMessage(kind)));
+    }
+
+    /**
+     * The card as the engines take it: its parsed name and parameters, and the values it states in its own dialect
+     * (what an external simulator's deck is written from; no card text travels).
+     */
+    public static org.cardwright.sim.CardUnderTest underTest(org.cardwright.card.ParsedCard card,
+            org.cardwright.card.Dialect dialect) {
+        java.util.List<org.cardwright.sim.CardUnderTest.Setting> settings = new java.util.ArrayList<>();
+        dialect.statedValues(card.parameters())
+                .forEach((k, v) -> settings.add(new org.cardwright.sim.CardUnderTest.Setting(k, v)));
+        return new org.cardwright.sim.CardUnderTest(card.name(), card.parameters(), settings);
     }
 
     /** The engine called {@code name}; ngspice is looked up on the PATH or in CARDWRIGHT_NGSPICE. */
@@ -43,17 +100,12 @@ public final class Engines {
             case "builtin":
                 return new BuiltinEngine(flavour.options());
             case "gnucap": {
-                Path exe = SimulatorProcess.locate(SimulatorProcess.Kind.GNUCAP).orElseThrow(() -> new SimulationException(
-                        "gnucap not found on the PATH: install it (Debian/Ubuntu: apt-get install gnucap) or set "
-                                + SimulatorProcess.GNUCAP_VARIABLE + " to its path"));
-                return new org.cardwright.sim.GnucapEngine(new SimulatorProcess(SimulatorProcess.Kind.GNUCAP, exe, TIMEOUT),
-                        workFolder());
+                Path exe = locate(SimulatorProcess.Kind.GNUCAP);
+                return new org.cardwright.sim.GnucapEngine(process(SimulatorProcess.Kind.GNUCAP, exe), workFolder());
             }
             case "ngspice": {
-                Path exe = SimulatorProcess.locate(SimulatorProcess.Kind.NGSPICE).orElseThrow(() -> new SimulationException(
-                        "ngspice not found on the PATH: install it (Debian/Ubuntu: apt-get install ngspice) or set "
-                                + SimulatorProcess.NGSPICE_VARIABLE + " to its path"));
-                return new NgspiceEngine(new SimulatorProcess(SimulatorProcess.Kind.NGSPICE, exe, TIMEOUT), workFolder());
+                Path exe = locate(SimulatorProcess.Kind.NGSPICE);
+                return new NgspiceEngine(process(SimulatorProcess.Kind.NGSPICE, exe), workFolder());
             }
             default:
                 throw new IllegalArgumentException("unknown engine '" + name + "'; choose one of " + NAMES);
@@ -73,11 +125,8 @@ public final class Engines {
             case "gnucap":
                 return new org.cardwright.sim.BuiltinCapacitance(flavour.options());
             case "ngspice": {
-                Path exe = SimulatorProcess.locate(SimulatorProcess.Kind.NGSPICE).orElseThrow(() -> new SimulationException(
-                        "ngspice not found on the PATH: install it (Debian/Ubuntu: apt-get install ngspice) or set "
-                                + SimulatorProcess.NGSPICE_VARIABLE + " to its path"));
-                return new org.cardwright.sim.NgspiceCapacitance(new SimulatorProcess(SimulatorProcess.Kind.NGSPICE, exe, TIMEOUT),
-                        workFolder());
+                Path exe = locate(SimulatorProcess.Kind.NGSPICE);
+                return new org.cardwright.sim.NgspiceCapacitance(process(SimulatorProcess.Kind.NGSPICE, exe), workFolder());
             }
             default:
                 throw new IllegalArgumentException("unknown engine '" + name + "'; choose one of " + NAMES);

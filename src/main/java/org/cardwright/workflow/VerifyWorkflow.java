@@ -62,14 +62,8 @@ public final class VerifyWorkflow {
         if (request.json().isPresent()) {
             OutputFiles.checkWritable(List.of(request.json().get()), request.force());
         }
-        String text;
-        try {
-            text = Files.readString(request.card(), StandardCharsets.UTF_8);
-        } catch (IOException e) {
-            throw new IOException(request.card() + ": cannot read the card (" + e.getMessage() + ")", e);
-        }
-        ParsedCard parsed = new CardReader().parse(text, Inputs.displayName(request.card()), request.dialect(),
-                request.model());
+        ParsedCard parsed = new CardReader().read(request.card(), Inputs.displayName(request.card()),
+                request.dialect(), request.model());
         ReadOptions options = request.readOptions();
         Inputs inputs = Inputs.read(request.data(), options);
         ExtractionData data = FitWorkflow.extractionData(inputs);
@@ -78,7 +72,7 @@ public final class VerifyWorkflow {
         if (data.forward().isEmpty() && data.reverse().isEmpty() && data.capacitance().isEmpty() && data.recovery().isEmpty()) {
             throw new DataFileException(request.data().get(0), 0, "no I-V or C-V points to verify against", null);
         }
-        CardUnderTest card = new CardUnderTest(parsed.name(), parsed.parameters(), text);
+        CardUnderTest card = Engines.underTest(parsed, request.dialect());
         SimulationEngine engine = Engines.byName(request.engine(), request.dialect().flavour());
 
         Optional<Verification> forward = Optional.empty();

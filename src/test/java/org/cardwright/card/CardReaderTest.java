@@ -52,8 +52,6 @@ class CardReaderTest {
                 Arguments.of("aliases.mod", Dialect.NGSPICE, "dalias", values(
                         Param.IS, 1.5e-14, Param.N, 1.03, Param.CJO, 3e-12, Param.VJ, 0.71, Param.M, 0.29,
                         Param.IKF, 0.2, Param.BV, 6.2, Param.IBV, 5e-3, Param.TRS1, 2.5e-3, Param.TNOM, 298.15), 0),
-                Arguments.of("netlist-fragment.cir", Dialect.NGSPICE, "dfrag", values(
-                        Param.IS, 8e-9, Param.N, 1.65, Param.RS, 0.12, Param.XTI, 3.0, Param.EG, 1.11), 0),
                 Arguments.of("unknown-parameter.mod", Dialect.NGSPICE, "dextra", values(
                         Param.IS, 1e-13, Param.N, 1.1, Param.RS, 2.0), 3),
                 Arguments.of("exponent-forms.mod", Dialect.NGSPICE, "dexp", values(
@@ -134,30 +132,26 @@ class CardReaderTest {
     }
 
     @Test
-    void severalCardsNeedANameToPickOne() throws Exception {
+    void aSecondCardIsRefusedAndAGivenNameMustMatch() throws Exception {
         Path file = Fixtures.card("two-models.lib");
-        List<ParsedCard> all = reader.readAll(file, Dialect.NGSPICE);
-        assertEquals(List.of("dpair1", "dpair2"), all.stream().map(ParsedCard::name).toList());
-        assertEquals(List.of(HEADER, "Style: a library of two cards.", "first card: a small-signal junction"),
-                all.get(0).comments());
-        assertEquals(List.of("second card: a larger junction"), all.get(1).comments());
-
         CardFormatException many = assertThrows(CardFormatException.class, () -> reader.read(file, Dialect.NGSPICE));
-        assertTrue(many.getMessage().startsWith(file + ": 2 .model cards (dpair1, dpair2)"), many.getMessage());
+        assertTrue(many.getMessage().startsWith(file + ":6: refused a second .model statement after the .model"),
+                many.getMessage());
+        assertThrows(CardFormatException.class, () -> reader.read(file, Dialect.NGSPICE, Optional.of("DPAIR2")));
 
-        ParsedCard second = reader.read(file, Dialect.NGSPICE, Optional.of("DPAIR2"));
-        assertEquals(10e-9, second.parameters().get(Param.IS), 10e-9 * READ_TOLERANCE);
-        assertEquals(0.2, second.parameters().get(Param.RS), 0.2 * READ_TOLERANCE);
-
-        CardFormatException none = assertThrows(CardFormatException.class,
-                () -> reader.read(file, Dialect.NGSPICE, Optional.of("dpair3")));
-        assertTrue(none.getMessage().contains("no .model named dpair3 (found: dpair1, dpair2)"), none.getMessage());
+        Path one = Fixtures.card("one-line.mod");
+        assertEquals("DSIG1", reader.read(one, Dialect.NGSPICE, Optional.of("dsig1")).name());
+        CardFormatException other = assertThrows(CardFormatException.class,
+                () -> reader.read(one, Dialect.NGSPICE, Optional.of("dsig2")));
+        assertTrue(other.getMessage().contains("no .model named dsig2; the card holds 'DSIG1'"), other.getMessage());
     }
 
     @ParameterizedTest(name = "{0}")
     @CsvSource(delimiter = '|', value = {
         "bad-number.mod          | 4 | 'N=1..8'",
-        "bad-no-model.mod        | 0 | no .model line",
+        "bad-no-model.mod        | 3 | 'D1 a 0 dmissing'",
+        "netlist-fragment.cir    | 3 | 'V1 a 0 DC 0.65'",
+        "two-models.lib          | 6 | '.model dpair2 D(IS=10n N=1.7 RS=0.2)'",
         "bad-type.mod            | 3 | 'NPN'",
         "bad-duplicate-alias.mod | 6 | 'CJ0=3p'",
         "bad-continuation.mod    | 3 | '+ IS=1n N=2'",
@@ -224,5 +218,17 @@ class CardReaderTest {
                 () -> reader.parse("* x\n.model dq D(IS=1n RS=-1)\n", "typed card", Dialect.NGSPICE));
         assertTrue(e.getMessage().startsWith("typed card:2: "), e.getMessage());
         assertTrue(e.getMessage().contains("'RS=-1'"), e.getMessage());
+    }
+
+    @Test
+    void aRefusedLineIsQuotedShortAndEscaped() {
+        String hostile = ".model desc D(IS=1n)\n.control \u001b[2J\u0000" + "x".repeat(200) + "\n";
+        CardFormatException e = assertThrows(CardFormatException.class,
+                () -> reader.parse(hostile, "esc.lib", Dialect.NGSPICE));
+        assertTrue(e.getMessage().startsWith("esc.lib:2: refused a simulator control block (.control) after the"),
+                e.getMessage());
+        assertTrue(e.getMessage().contains("'.control \\u001b[2J\\u0000xxx"), e.getMessage());
+        assertTrue(e.getMessage().endsWith("...'"), e.getMessage());
+        assertTrue(e.getMessage().chars().allMatch(c -> c >= 0x20 && c < 0x7f), "printable ASCII only");
     }
 }

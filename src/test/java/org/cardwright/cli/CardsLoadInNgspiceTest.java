@@ -140,12 +140,12 @@ class CardsLoadInNgspiceTest {
 
     // ---------------------------------------------------------------------------------------------------
 
-    /** Runs the card file verbatim in ngspice and in the built-in engine at every measured condition. */
+    /** Runs the card file's stated values in ngspice and in the built-in engine at every measured condition. */
     private static ParsedCard loadsAndMatches(Path file, Dialect dialect) throws Exception {
         String text = Files.readString(file, StandardCharsets.UTF_8);
         ParsedCard card = new CardReader().parse(text, file.toString(), dialect);
         assertEquals(List.of(), card.notices(), "every keyword on the card is one " + dialect.shortName() + " takes");
-        CardUnderTest underTest = new CardUnderTest(card.name(), card.parameters(), text);
+        CardUnderTest underTest = org.cardwright.workflow.Engines.underTest(card, dialect);
 
         SimulatorProcess ngspice = new SimulatorProcess(SimulatorProcess.Kind.NGSPICE, Simulators.requireNgspice(),
                 NGSPICE_TIMEOUT);

@@ -62,13 +62,13 @@ final class ForwardData {
         SimulatorProcess ngspice = new SimulatorProcess(SimulatorProcess.Kind.NGSPICE, Simulators.requireNgspice(),
                 NGSPICE_TIMEOUT);
         return new NgspiceEngine(ngspice, Simulators.tempDir(workName))
-                .dc(new CardUnderTest("truth", truth, card("truth", truth)), biases);
+                .dc(CardUnderTest.ngspice("truth", truth), biases);
     }
 
     /** Terminal voltages at {@code biases} from the built-in ngspice 39 equations. */
     static List<OperatingPoint> simulateBuiltin(DiodeParameters truth, List<Bias> biases) {
         return new BuiltinEngine(SimulatorOptions.NGSPICE_DEFAULTS)
-                .dc(new CardUnderTest("truth", truth, card("truth", truth)), biases);
+                .dc(CardUnderTest.ngspice("truth", truth), biases);
     }
 
     /**

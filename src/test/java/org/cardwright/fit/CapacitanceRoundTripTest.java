@@ -61,7 +61,7 @@ class CapacitanceRoundTripTest {
     private static List<Double> ngspice(DiodeParameters p, List<Bias> biases, String folder) throws Exception {
         SimulatorProcess process = new SimulatorProcess(SimulatorProcess.Kind.NGSPICE, Simulators.requireNgspice(),
                 Duration.ofSeconds(120));
-        CardUnderTest card = new CardUnderTest("truth", p, card("truth", p));
+        CardUnderTest card = CardUnderTest.ngspice("truth", p);
         return new NgspiceCapacitance(process, Simulators.tempDir(folder)).capacitance(card, biases, FREQUENCY);
     }
 
@@ -93,7 +93,7 @@ class CapacitanceRoundTripTest {
     /** Worst |C_fit - C_true|/C_true over the biases, in %, per temperature; fails above the limit. */
     private static double worstPercent(DiodeParameters fitted, List<Bias> biases, List<Double> truth, double limit,
                                        String label) {
-        CardUnderTest card = new CardUnderTest("fit", fitted, card("fit", fitted));
+        CardUnderTest card = CardUnderTest.ngspice("fit", fitted);
         List<Double> c = new BuiltinCapacitance(OPTIONS).capacitance(card, biases, FREQUENCY);
         double worst = 0;
         for (int i = 0; i < biases.size(); i++) {

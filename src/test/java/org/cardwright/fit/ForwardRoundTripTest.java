@@ -46,7 +46,7 @@ class ForwardRoundTripTest {
                 biases.add(Bias.current(1e-9 * Math.pow(10, k / 8.0), c + 273.15));
             }
         }
-        CardUnderTest card = new CardUnderTest("truth", truth, card("truth", truth));
+        CardUnderTest card = CardUnderTest.ngspice("truth", truth);
         List<OperatingPoint> ops = new NgspiceEngine(ngspice, Simulators.tempDir("roundtrip")).dc(card, biases);
         Random rnd = new Random(seed);
         List<FitPoint> pts = new ArrayList<>();

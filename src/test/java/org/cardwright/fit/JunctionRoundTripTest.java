@@ -42,7 +42,7 @@ class JunctionRoundTripTest {
     private static List<OperatingPoint> ngspice(List<Bias> biases) throws Exception {
         SimulatorProcess ngspice = new SimulatorProcess(SimulatorProcess.Kind.NGSPICE, Simulators.requireNgspice(),
                 Duration.ofSeconds(60));
-        CardUnderTest card = new CardUnderTest("truth", TRUTH, ForwardRoundTripTest.card("truth", TRUTH));
+        CardUnderTest card = CardUnderTest.ngspice("truth", TRUTH);
         return new NgspiceEngine(ngspice, Simulators.tempDir("junction-roundtrip")).dc(card, biases);
     }
 
@@ -133,7 +133,7 @@ class JunctionRoundTripTest {
         List<FitPoint> forward = ForwardRoundTripTest.simulate(truth, CELSIUS, 21, true);
         SimulatorProcess ngspice = new SimulatorProcess(SimulatorProcess.Kind.NGSPICE, Simulators.requireNgspice(),
                 Duration.ofSeconds(60));
-        CardUnderTest card = new CardUnderTest("truth", truth, ForwardRoundTripTest.card("truth", truth));
+        CardUnderTest card = CardUnderTest.ngspice("truth", truth);
         List<Bias> cvBias = new ArrayList<>();
         for (double c : CELSIUS) {
             for (double v : new double[] {0, -0.5, -1, -2, -3, -5, -7.5, -10, -15, -20}) {
@@ -237,7 +237,7 @@ class JunctionRoundTripTest {
                 biases.add(Bias.current(1e-9 * Math.pow(10, k / 8.0), c + 273.15));
             }
         }
-        CardUnderTest card = new CardUnderTest("truth", truth, ForwardRoundTripTest.card("truth", truth));
+        CardUnderTest card = CardUnderTest.ngspice("truth", truth);
         List<OperatingPoint> ops = new NgspiceEngine(ngspice, Simulators.tempDir("self-heating")).dc(card, biases);
         Random rnd = new Random(4242);
         List<FitPoint> pts = new ArrayList<>();

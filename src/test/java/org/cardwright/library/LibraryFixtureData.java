@@ -115,7 +115,7 @@ public final class LibraryFixtureData {
         for (int k = 0; k <= decades * perDecade; k++) {
             biases.add(Bias.current(from * Math.pow(10, (double) k / perDecade), celsius + Ngspice39.CELSIUS_TO_KELVIN));
         }
-        List<OperatingPoint> ops = new BuiltinEngine(SimulatorOptions.NGSPICE_DEFAULTS).dc(new CardUnderTest(model, p, "*"), biases);
+        List<OperatingPoint> ops = new BuiltinEngine(SimulatorOptions.NGSPICE_DEFAULTS).dc(CardUnderTest.ngspice(model, p), biases);
         StringBuilder sb = new StringBuilder(String.format(Locale.ROOT, HEADER, model, what, ".model " + model + " D(" + card + ")",
                 "Gaussian on the voltage, 0.1 mV", seed));
         sb.append("# Forward I-V at ").append(fmt(celsius)).append(" degC, current forced, ").append(perDecade)
@@ -134,7 +134,7 @@ public final class LibraryFixtureData {
                                 List<Double> volts, long seed) throws IOException {
         Random random = new Random(seed);
         List<Bias> biases = volts.stream().map(v -> Bias.voltage(-v, celsius + Ngspice39.CELSIUS_TO_KELVIN)).toList();
-        List<OperatingPoint> ops = new BuiltinEngine(SimulatorOptions.NGSPICE_DEFAULTS).dc(new CardUnderTest(model, p, "*"), biases);
+        List<OperatingPoint> ops = new BuiltinEngine(SimulatorOptions.NGSPICE_DEFAULTS).dc(CardUnderTest.ngspice(model, p), biases);
         StringBuilder sb = new StringBuilder(String.format(Locale.ROOT, HEADER, model, what, ".model " + model + " D(" + card + ")",
                 "Gaussian on the current, 1 % of reading", seed));
         sb.append("# Reverse leakage at ").append(fmt(celsius)).append(" degC, voltage forced.\n");
@@ -153,7 +153,7 @@ public final class LibraryFixtureData {
         for (double v : List.of(0.0, -0.5, -1.0, -2.0, -5.0, -10.0, -20.0)) {
             biases.add(Bias.voltage(v, 25 + Ngspice39.CELSIUS_TO_KELVIN));
         }
-        List<Double> c = new BuiltinCapacitance(SimulatorOptions.NGSPICE_DEFAULTS).capacitance(new CardUnderTest("SK2", p, "*"), biases, 1e6);
+        List<Double> c = new BuiltinCapacitance(SimulatorOptions.NGSPICE_DEFAULTS).capacitance(CardUnderTest.ngspice("SK2", p), biases, 1e6);
         StringBuilder sb = new StringBuilder(String.format(Locale.ROOT, HEADER, "SK2", "Schottky barrier rectifier",
                 ".model SK2 D(" + card + ")", "Gaussian on the capacitance, 1 % of reading", seed));
         sb.append("# C-V at 25 degC, 1 MHz, parallel capacitance.\n");

@@ -84,7 +84,7 @@ final class SyntheticParts {
             biases.add(Bias.current(Math.pow(10, -9 + k / 5.0), celsius + Ngspice39.CELSIUS_TO_KELVIN));
         }
         List<OperatingPoint> ops = new BuiltinEngine(SimulatorOptions.NGSPICE_DEFAULTS)
-                .dc(new CardUnderTest(model, truth, ".model " + model + " D()"), biases);
+                .dc(CardUnderTest.ngspice(model, truth), biases);
         StringBuilder sb = new StringBuilder();
         sb.append("# Invented test data, not a measurement: forward I-V of the invented part ").append(model)
                 .append(" at ").append(fmt(celsius)).append(" degC.\n");

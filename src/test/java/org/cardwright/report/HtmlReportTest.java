@@ -159,9 +159,9 @@ class HtmlReportTest {
     @Test
     void cardValuesFarOffTheScaleAreLeftOutAndCounted() throws Exception {
         // a card without BV cannot carry breakdown currents: its voltage there is absurd (or not finite)
-        CardUnderTest noBreakdown = new CardUnderTest(NAME, CARD.without(Param.BV), "*");
+        CardUnderTest noBreakdown = CardUnderTest.ngspice(NAME, CARD.without(Param.BV));
         BuiltinEngine engine = new BuiltinEngine(OPTIONS);
-        List<MeasuredPoint> reverse = shifted(engine, new CardUnderTest(NAME, CARD, "*"), BREAKDOWN_25,
+        List<MeasuredPoint> reverse = shifted(engine, CardUnderTest.ngspice(NAME, CARD), BREAKDOWN_25,
                 new double[] {0, 0, 0}, T25, "rev-25.csv");
         Verification bd = new Verifier(engine, new Tolerance(0.03, 0.06)).verify(noBreakdown, reverse, List.of());
         assertFalse(bd.pass(), "precondition: the card without BV fails");
@@ -271,7 +271,7 @@ class HtmlReportTest {
         for (double i : FORWARD_25) {
             biases.add(Bias.current(i, T25));
         }
-        var ops = new BuiltinEngine(OPTIONS).dc(new CardUnderTest(NAME, CARD, "*"), biases);
+        var ops = new BuiltinEngine(OPTIONS).dc(CardUnderTest.ngspice(NAME, CARD), biases);
         for (int k = 0; k < ops.size(); k++) {
             csv.append(String.format(Locale.ROOT, "%.7f,%.6e,25.0%n", ops.get(k).voltage(), FORWARD_25[k]));
         }
@@ -304,7 +304,7 @@ class HtmlReportTest {
 
     /** A verification of every kind, built from the built-in engine; 85 degC forward fails on purpose. */
     private static JunctionVerification verification() throws Exception {
-        CardUnderTest card = new CardUnderTest(NAME, CARD, "* invented card");
+        CardUnderTest card = CardUnderTest.ngspice(NAME, CARD);
         BuiltinEngine engine = new BuiltinEngine(OPTIONS);
         List<MeasuredPoint> forward = new ArrayList<>();
         forward.addAll(shifted(engine, card, FORWARD_25, OFFSET_25, T25, "fwd-25.csv"));

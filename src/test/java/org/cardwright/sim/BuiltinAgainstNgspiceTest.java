@@ -52,7 +52,7 @@ class BuiltinAgainstNgspiceTest {
         SimulatorProcess ngspice = new SimulatorProcess(SimulatorProcess.Kind.NGSPICE, Simulators.requireNgspice(),
                 Duration.ofSeconds(60));
         DiodeParameters p = DiodeParameters.of(values);
-        CardUnderTest card = new CardUnderTest("dut", p, ngspiceCard("dut", p));
+        CardUnderTest card = CardUnderTest.ngspice("dut", p);
         List<Bias> biases = new ArrayList<>();
         for (double celsius : new double[] {-55, 27, 85, 150}) {
             for (int k = 0; k <= 18; k++) {

@@ -63,7 +63,7 @@ class CapacitanceAgainstNgspiceTest {
     @MethodSource("parameterSets")
     void builtinMatchesNgspiceAcAnalysis(String label, Map<Param, Double> values, double topVoltage) throws Exception {
         DiodeParameters p = DiodeParameters.of(values);
-        CardUnderTest card = new CardUnderTest("dut", p, ngspiceCard("dut", p));
+        CardUnderTest card = CardUnderTest.ngspice("dut", p);
         List<Bias> biases = biases(topVoltage);
         List<Double> reference = ngspice("cap-vs-ngspice").capacitance(card, biases, FREQUENCY);
         double worst = compare(label, card, biases, reference);
@@ -89,7 +89,7 @@ class CapacitanceAgainstNgspiceTest {
     @MethodSource("clampedSets")
     void clampsAgreeWithNgspice(String label, Map<Param, Double> values, String warning, double top) throws Exception {
         DiodeParameters p = DiodeParameters.of(values);
-        CardUnderTest card = new CardUnderTest("dut", p, ngspiceCard("dut", p));
+        CardUnderTest card = CardUnderTest.ngspice("dut", p);
         List<Bias> biases = biases(top);
         int clamped = 0;
         for (double c : CELSIUS) {
@@ -116,7 +116,7 @@ class CapacitanceAgainstNgspiceTest {
     @Test
     void warningAboutTheCardFailsTheRun() throws Exception {
         DiodeParameters p = DiodeParameters.of(Map.of(Param.CJO, 1e-12, Param.M, 0.95));
-        CardUnderTest card = new CardUnderTest("dut", p, ".model dut D(CJO=1p M=0.95)\n");
+        CardUnderTest card = CardUnderTest.ngspice("dut", p);
         SimulationException e = assertThrows(SimulationException.class,
                 () -> ngspice("cap-warning").capacitance(card, List.of(Bias.voltage(-1, 300.15)), FREQUENCY));
         assertTrue(e.getMessage().startsWith("ngspice warned about the card"), e.getMessage());
@@ -125,7 +125,7 @@ class CapacitanceAgainstNgspiceTest {
     @Test
     void currentForcedBiasIsRefused() {
         DiodeParameters p = DiodeParameters.of(Map.of(Param.CJO, 1e-12));
-        CardUnderTest card = new CardUnderTest("dut", p, ".model dut D(CJO=1p)\n");
+        CardUnderTest card = CardUnderTest.ngspice("dut", p);
         IllegalArgumentException e = assertThrows(IllegalArgumentException.class,
                 () -> new BuiltinCapacitance(OPTIONS).capacitance(card, List.of(Bias.current(1e-3, 300)), FREQUENCY));
         assertTrue(e.getMessage().contains("forced voltages"), e.getMessage());

@@ -9,8 +9,6 @@ import java.time.Duration;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
-import java.util.Optional;
-import org.cardwright.card.CardWriter;
 import org.cardwright.card.Dialect;
 import org.cardwright.card.ModelCard;
 import org.cardwright.model.DiodeParameters;
@@ -56,8 +54,6 @@ class GnucapEngineTest {
     private static final double FORCED_VOLTAGE_TOLERANCE = 1e-8;
     /** "Far larger": the disagreement without the XTI conversion must exceed the bound by this factor [1]. */
     private static final double FAR_LARGER = 10;
-    /** Digits on the test cards: the most the writer gives, so that rounding stays below 1e-14 relative. */
-    private static final int DIGITS = 15;
 
     private static final double[] TEMPERATURES_C = {-40, 27, 85, 125};
 
@@ -109,20 +105,18 @@ class GnucapEngineTest {
     void theGnucapCardAgreesWithTheNgspiceEquationsToWhatTheConstantsExplain() throws Exception {
         GnucapEngine gnucap = engine("gnucap-engine-forward");
         BuiltinEngine builtin = new BuiltinEngine(SimulatorOptions.NGSPICE_DEFAULTS);
-        CardWriter writer = new CardWriter(Optional.empty());
         List<Bias> biases = forwardSweep();
         System.out.println("gnucap card against the ngspice 39 equations, forced current 1 nA..100 mA");
         System.out.println("card  T[degC]  max|dV| converted [V]  bound there [V]  max|dV| without conversion [V]");
         for (ModelCard card : inventedCards()) {
             DiodeParameters p = card.parameters();
-            String converted = writer.render(card, Dialect.GNUCAP, DIGITS).text();
+            CardUnderTest converted = gnucapCard(card.name(), p, p);
             // the card as it was written before the conversion: XTI stated unchanged (fromCard multiplies by N,
-            // the writer divides again)
-            String unconverted = writer.render(new ModelCard(card.name(), Dialect.GNUCAP.fromCard(p),
-                    card.provenance()), Dialect.GNUCAP, DIGITS).text();
-            List<OperatingPoint> withConversion = gnucap.dc(new CardUnderTest(card.name(), p, converted), biases);
-            List<OperatingPoint> without = gnucap.dc(new CardUnderTest(card.name(), p, unconverted), biases);
-            List<OperatingPoint> reference = builtin.dc(new CardUnderTest(card.name(), p, converted), biases);
+            // the conversion divides again)
+            CardUnderTest unconverted = gnucapCard(card.name(), p, Dialect.GNUCAP.fromCard(p));
+            List<OperatingPoint> withConversion = gnucap.dc(converted, biases);
+            List<OperatingPoint> without = gnucap.dc(unconverted, biases);
+            List<OperatingPoint> reference = builtin.dc(converted, biases);
 
             for (double c : TEMPERATURES_C) {
                 double worst = 0;
@@ -171,13 +165,11 @@ class GnucapEngineTest {
         // GMIN in the device, GMIN from every node to ground (found by running: 1 nA into 1 Tohm gives 500 V).
         // Solving these by bisection must give what gnucap prints; this is what the bound above rests on.
         GnucapEngine gnucap = engine("gnucap-engine-own");
-        CardWriter writer = new CardWriter(Optional.empty());
         List<Bias> biases = forwardSweep();
         double worst = 0;
         for (ModelCard card : inventedCards()) {
             DiodeParameters onCard = Dialect.GNUCAP.toCard(card.parameters());
-            String text = writer.render(card, Dialect.GNUCAP, DIGITS).text();
-            List<OperatingPoint> got = gnucap.dc(new CardUnderTest(card.name(), card.parameters(), text), biases);
+            List<OperatingPoint> got = gnucap.dc(gnucapCard(card.name(), card.parameters(), card.parameters()), biases);
             for (int k = 0; k < biases.size(); k++) {
                 double expected = gnucapTerminalVoltage(onCard, biases.get(k));
                 double v = got.get(k).voltage();
@@ -186,6 +178,13 @@ class GnucapEngineTest {
             }
         }
         System.out.println("gnucap against its own equations: worst |dV| = " + worst + " V");
+    }
+
+    /** A card with {@code parameters}, stating {@code stated} as a gnucap card states them (XTI as XTI/N). */
+    private static CardUnderTest gnucapCard(String name, DiodeParameters parameters, DiodeParameters stated) {
+        List<CardUnderTest.Setting> settings = new ArrayList<>();
+        Dialect.GNUCAP.statedValues(stated).forEach((k, v) -> settings.add(new CardUnderTest.Setting(k, v)));
+        return new CardUnderTest(name, parameters, settings);
     }
 
     /** Terminal voltage of gnucap's diode with GMIN at both nodes, solved by bisection on the junction voltage. */
@@ -218,14 +217,13 @@ class GnucapEngineTest {
         GnucapEngine gnucap = engine("gnucap-engine-voltage");
         BuiltinEngine builtin = new BuiltinEngine(SimulatorOptions.NGSPICE_DEFAULTS);
         ModelCard card = inventedCards().get(0);
-        String text = new CardWriter(Optional.empty()).render(card, Dialect.GNUCAP, DIGITS).text();
         List<Bias> biases = new ArrayList<>();
         for (double c : TEMPERATURES_C) {
             for (double v : new double[] {0.35, 0.5, 0.65, 0.8}) {
                 biases.add(Bias.voltage(v, c + Ngspice39.CELSIUS_TO_KELVIN));
             }
         }
-        CardUnderTest cut = new CardUnderTest(card.name(), card.parameters(), text);
+        CardUnderTest cut = gnucapCard(card.name(), card.parameters(), card.parameters());
         List<OperatingPoint> got = gnucap.dc(cut, biases);
         List<Bias> atGnucapCurrent = new ArrayList<>();
         for (int k = 0; k < biases.size(); k++) {
@@ -244,8 +242,9 @@ class GnucapEngineTest {
     void aWarningFromGnucapFailsTheRun() {
         GnucapEngine gnucap = engine("gnucap-engine-warning");
         // IKF is not a gnucap 2017 parameter: gnucap prints "bad parameter ikf ignored" and runs on
-        String text = "* invented\n.model dbad d (is=1n n=1.5 ikf=10m)\n";
-        CardUnderTest card = new CardUnderTest("dbad", DiodeParameters.defaults(), text);
+        CardUnderTest card = new CardUnderTest("dbad", DiodeParameters.defaults(), List.of(
+                new CardUnderTest.Setting("is", 1e-9), new CardUnderTest.Setting("n", 1.5),
+                new CardUnderTest.Setting("ikf", 10e-3)));
         SimulationException e = assertThrows(SimulationException.class,
                 () -> gnucap.dc(card, List.of(Bias.current(1e-3, 300.15))));
         assertTrue(e.getMessage().startsWith("gnucap warned about the card: dbad: bad parameter ikf"),
@@ -256,8 +255,8 @@ class GnucapEngineTest {
     void aModelNamedLikeTheEnginesDiodeStillLoads() throws Exception {
         // gnucap names are case-blind and a diode named like its model makes gnucap refuse the model
         GnucapEngine gnucap = engine("gnucap-engine-names");
-        String text = ".model DCWF d (is=1e-14 n=1)\n";
-        CardUnderTest card = new CardUnderTest("DCWF", DiodeParameters.defaults(), text);
+        CardUnderTest card = new CardUnderTest("DCWF", DiodeParameters.defaults(), List.of(
+                new CardUnderTest.Setting("is", 1e-14), new CardUnderTest.Setting("n", 1)));
         List<OperatingPoint> got = gnucap.dc(card, List.of(Bias.current(1e-3, 300.15)));
         // Shockley equation with gnucap's k/q at 27 degC; GMIN moves 1 mA by under 1e-12 A
         double expected = GNUCAP_K_OVER_Q * 300.15 * Math.log(1e-3 / 1e-14 + 1);

@@ -47,7 +47,7 @@ class ReverseAgainstNgspiceTest {
         SimulatorProcess ngspice = new SimulatorProcess(SimulatorProcess.Kind.NGSPICE, Simulators.requireNgspice(),
                 Duration.ofSeconds(60));
         DiodeParameters p = DiodeParameters.of(values);
-        CardUnderTest card = new CardUnderTest("dut", p, BuiltinAgainstNgspiceTest.ngspiceCard("dut", p));
+        CardUnderTest card = CardUnderTest.ngspice("dut", p);
         List<Bias> biases = new ArrayList<>();
         double bv = p.get(Param.BV);
         for (double celsius : new double[] {-55, 27, 85, 150}) {

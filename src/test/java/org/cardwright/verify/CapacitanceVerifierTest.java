@@ -64,12 +64,7 @@ class CapacitanceVerifierTest {
     }
 
     private static CardUnderTest card(DiodeParameters p) {
-        StringBuilder sb = new StringBuilder(".model dut D(");
-        for (Map.Entry<Param, Double> e : p.givenValues().entrySet()) {
-            sb.append(' ').append(e.getKey().keyword()).append('=')
-                    .append(String.format(Locale.ROOT, "%.17g", e.getKey().toCardValue(e.getValue())));
-        }
-        return new CardUnderTest("dut", p, sb.append(")\n").toString());
+        return CardUnderTest.ngspice("dut", p);
     }
 
     private static CapacitanceVerification verify(CapacitanceEngine engine, DiodeParameters p) throws Exception {

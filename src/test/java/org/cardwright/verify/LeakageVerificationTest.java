@@ -33,7 +33,7 @@ class LeakageVerificationTest {
     @Test
     void theCardsOwnLeakagePassesAndAHundredfoldExcessFails() throws Exception {
         BuiltinEngine engine = new BuiltinEngine(SimulatorOptions.NGSPICE_DEFAULTS);
-        CardUnderTest card = new CardUnderTest("x", CARD, ".model x D(IS=1p RS=1)");
+        CardUnderTest card = CardUnderTest.ngspice("x", CARD);
         LeakageVerification same = LeakageVerification.of(engine, card, points(1.0));
         assertTrue(same.pass());
         assertEquals(0.0, same.perTemperature().get(0).maxDecades(), 1e-9);

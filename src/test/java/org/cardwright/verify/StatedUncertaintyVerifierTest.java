@@ -31,7 +31,7 @@ class StatedUncertaintyVerifierTest {
         }
         pts.add(new MeasuredPoint(0.7, 1e-3, 300.15, "plain.csv", 2)); // no stated uncertainty: not counted
         Verification v = new Verifier(new BuiltinEngine(SimulatorOptions.NGSPICE_DEFAULTS), Tolerance.DEFAULT)
-                .verify(new CardUnderTest("x", p, ".model x D(IS=1e-14 RS=0.5)"), pts, List.of());
+                .verify(CardUnderTest.ngspice("x", p), pts, List.of());
         TemperatureVerdict t = v.perTemperature().get(0);
         assertEquals(10, t.stated());
         assertEquals(2, t.beyondThree());

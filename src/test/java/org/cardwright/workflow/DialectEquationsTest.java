@@ -51,10 +51,8 @@ class DialectEquationsTest {
                 biases.add(Bias.current(1e-8 * Math.pow(10, k / 8.0), c + 273.15));
             }
         }
-        StringBuilder card = new StringBuilder(".model truth D(");
-        TRUTH.givenValues().forEach((k, v) -> card.append(' ').append(k.keyword()).append('=').append(v));
         List<OperatingPoint> ops = new NgspiceEngine(ngspice, dir.resolve("work"))
-                .dc(new CardUnderTest("truth", TRUTH, card.append(")\n").toString()), biases);
+                .dc(CardUnderTest.ngspice("truth", TRUTH), biases);
         StringBuilder csv = new StringBuilder("# invented test data: simulated in ngspice from an invented card\nV,I,T [K]\n");
         for (int i = 0; i < ops.size(); i++) {
             csv.append(String.format(Locale.ROOT, "%.9f,%.9e,%.2f%n", ops.get(i).voltage(), biases.get(i).value(), biases.get(i).temperature()));
@@ -80,7 +78,7 @@ class DialectEquationsTest {
         Path f = dir.resolve("out/DQ1." + d.shortName() + ".lib");
         String text = Files.readString(f, StandardCharsets.UTF_8);
         ParsedCard p = new CardReader().parse(text, f.toString(), d);
-        return new CardUnderTest(p.name(), p.parameters(), text);
+        return Engines.underTest(p, d);
     }
 
     private static double worst(CardUnderTest card, org.cardwright.sim.SimulationEngine engine, List<Bias> biases,

@@ -58,7 +58,7 @@ class WholeJunctionCardTest {
         SimulatorProcess ngspice = new SimulatorProcess(SimulatorProcess.Kind.NGSPICE, Simulators.requireNgspice(),
                 Duration.ofSeconds(60));
         Path dir = Simulators.tempDir("whole-junction-card");
-        CardUnderTest truth = new CardUnderTest("truth", TRUTH, card(TRUTH));
+        CardUnderTest truth = CardUnderTest.ngspice("truth", TRUTH);
         NgspiceEngine dc = new NgspiceEngine(ngspice, dir.resolve("work"));
         List<Bias> iv = new ArrayList<>();
         for (double c : new double[] {0, 27, 85}) {
@@ -97,7 +97,7 @@ class WholeJunctionCardTest {
         for (Param p : List.of(Param.BV, Param.NBV, Param.CJO, Param.VJ, Param.M)) {
             assertTrue(parsed.parameters().isGiven(p), p + " on the card:\n" + text);
         }
-        CardUnderTest fitted = new CardUnderTest(parsed.name(), parsed.parameters(), text);
+        CardUnderTest fitted = CardUnderTest.ngspice(parsed.name(), parsed.parameters());
 
         // DC: ngspice (fails on any warning) against the built-in engine at the same RELTOL
         List<OperatingPoint> ng = dc.dc(fitted, iv);

@@ -22,6 +22,16 @@ final class OutputScan {
     /** ngspice: "Warning: ...", "unrecognized parameter (tbv1) - ignored", "Warning: can't parse 'a': ignored". */
     private static final Pattern NGSPICE_WARNING = Pattern.compile(
             "warning|Warning|unrecognized parameter|ignored");
+    /**
+     * ngspice's reports on its own way to an operating point, not on the card: "Warning: Further gmin increment",
+     * "Warning: Dynamic gmin stepping failed", "Supplies reduced to 100.0000% Warning: source stepping failed",
+     * "Note: Transient op started". Seen with ngspice 39 on a 1 kV card at its breakdown knee, where the direct
+     * Newton iteration and gmin stepping give up and source stepping or the transient op then finds the point. When
+     * every aid fails, ngspice reports an error ("simulation(s) aborted") and writes no row, and the run fails on
+     * that; these lines alone are not a fault of the card.
+     */
+    private static final Pattern NGSPICE_CONVERGENCE_AID = Pattern.compile(
+            "gmin stepping|gmin step failed|gmin increment|source stepping|Supplies reduced|Trying gmin|Transient op");
     /** gnucap exits with 0 even on these: "D1: can't find: nomodel", "x.ckt:No such file or directory",
      *  "tried everything, still doesn't work, giving up". */
     private static final Pattern GNUCAP_ERROR = Pattern.compile(
@@ -41,7 +51,8 @@ final class OutputScan {
         Set<String> found = new LinkedHashSet<>();
         for (String text : List.of(stdout, stderr)) {
             for (String line : text.split("\\R")) {
-                if (pattern.matcher(line).find()) {
+                if (pattern.matcher(line).find()
+                        && !(kind == SimulatorProcess.Kind.NGSPICE && NGSPICE_CONVERGENCE_AID.matcher(line).find())) {
                     found.add(clean(kind, line));
                 }
             }

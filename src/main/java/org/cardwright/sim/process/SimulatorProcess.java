@@ -13,9 +13,14 @@ import java.util.Optional;
 import java.util.concurrent.TimeUnit;
 
 /**
- * Runs an external batch circuit simulator (ngspice or gnucap) on one netlist: writes the netlist into a work
- * folder, starts the simulator there with standard input closed, drains standard output and standard error
- * concurrently, and kills the whole process tree when the time limit passes.
+ * Runs an external batch circuit simulator (ngspice or gnucap) on one netlist: writes the netlist into a fresh
+ * private work folder ({@link Files#createTempDirectory}, owner-only), starts the simulator there with standard
+ * input closed, drains standard output and standard error concurrently, and kills the whole process tree when the
+ * time limit passes. The tree is tracked while the simulator runs (its descendants are sampled every
+ * {@link #TREE_SAMPLE} and remembered), so that a grandchild that left the process group with {@code setsid}, or
+ * whose parent already exited, is killed too; after every run, finished or not, nothing it started is left
+ * running. The time limit of a run is a fixed part plus a part per operating point ({@link #runClean(String, Path,
+ * int)}).
  *
  * <p>A run fails with a {@link SimulationException} when the executable is missing, the time limit passes, the
  * process exits with a non-zero code, or the simulator prints an error line (gnucap exits with 0 even after
@@ -33,6 +38,11 @@ public final class SimulatorProcess {
 
     /** How long to wait for the output readers after the process has ended or was killed. */
     private static final Duration DRAIN_GRACE = Duration.ofSeconds(5);
+    /** How often the process tree is sampled while the simulator runs. */
+    static final Duration TREE_SAMPLE = Duration.ofMillis(50);
+    /** Versions already asked for, by executable: {@code ngspice -v} runs once per executable and JVM. */
+    private static final java.util.concurrent.ConcurrentMap<String, String> VERSIONS =
+            new java.util.concurrent.ConcurrentHashMap<>();
 
     /** The simulators this class knows how to start. */
     public enum Kind {
@@ -86,6 +96,7 @@ public final class SimulatorProcess {
     private final Kind kind;
     private final Path executable;
     private final Duration timeout;
+    private final Duration perPoint;
 
     /**
      * @param kind       which simulator the executable is
@@ -93,12 +104,43 @@ public final class SimulatorProcess {
      * @param timeout    time limit for one run, positive [s]
      */
     public SimulatorProcess(Kind kind, Path executable, Duration timeout) {
+        this(kind, executable, timeout, Duration.ZERO);
+    }
+
+    /**
+     * @param kind       which simulator the executable is
+     * @param executable path of the simulator executable
+     * @param timeout    fixed part of the time limit of one run, positive [s]
+     * @param perPoint   added to the time limit for each operating point of the run, not negative [s]
+     */
+    public SimulatorProcess(Kind kind, Path executable, Duration timeout, Duration perPoint) {
         this.kind = Objects.requireNonNull(kind, "kind");
         this.executable = Objects.requireNonNull(executable, "executable");
         this.timeout = Objects.requireNonNull(timeout, "timeout");
+        this.perPoint = Objects.requireNonNull(perPoint, "perPoint");
         if (timeout.isNegative() || timeout.isZero()) {
             throw new IllegalArgumentException(kind.command() + " timeout must be positive, got " + timeout);
         }
+        if (perPoint.isNegative()) {
+            throw new IllegalArgumentException(kind.command() + " time per point must not be negative, got " + perPoint);
+        }
+    }
+
+    /**
+     * Why {@link #locate} found nothing, in one line: the variable's value when it is set ("CARDWRIGHT_NGSPICE is
+     * set to '/opt/x/ngspice', which is not an executable file"), otherwise that the command is not on the PATH.
+     */
+    public static String notFoundMessage(Kind kind) {
+        String override = System.getenv(kind.environmentVariable());
+        if (override != null && !override.isBlank()) {
+            String value = override.trim();
+            String shown = "'" + value.replaceAll("\\p{Cntrl}", "?") + "'";
+            return value.contains("/") || value.contains(File.separator)
+                    ? kind.environmentVariable() + " is set to " + shown + ", which is not an executable file"
+                    : kind.environmentVariable() + " is set to " + shown + ", which is not an executable on the PATH";
+        }
+        return kind.command() + " not found on the PATH: install it (Debian/Ubuntu: apt-get install " + kind.command()
+                + ") or set " + kind.environmentVariable() + " to its path";
     }
 
     /**
@@ -153,9 +195,14 @@ public final class SimulatorProcess {
         return executable;
     }
 
-    /** Time limit for one run [s]. */
+    /** Time limit for one run, the fixed part [s]. */
     public Duration timeout() {
         return timeout;
+    }
+
+    /** Time limit of a run of {@code points} operating points: the fixed part plus the part per point [s]. */
+    public Duration timeout(int points) {
+        return timeout.plus(perPoint.multipliedBy(Math.max(0, points)));
     }
 
     /**
@@ -163,6 +210,10 @@ public final class SimulatorProcess {
      * if needed, and runs the simulator in batch mode there.
      */
     public Result run(String netlist, Path workDir) throws SimulationException {
+        return run(netlist, workDir, timeout);
+    }
+
+    private Result run(String netlist, Path workDir, Duration limit) throws SimulationException {
         Objects.requireNonNull(netlist, "netlist");
         Objects.requireNonNull(workDir, "workDir");
         Path netlistPath = workDir.resolve(kind.netlistFile());
@@ -172,7 +223,7 @@ public final class SimulatorProcess {
         } catch (IOException e) {
             throw new SimulationException(kind.command() + ": cannot write netlist " + netlistPath + ": " + e, e);
         }
-        Result result = execute(List.of(executable.toString(), "-b", kind.netlistFile()), workDir);
+        Result result = execute(List.of(executable.toString(), "-b", kind.netlistFile()), workDir, limit);
         if (result.exitCode() != 0) {
             String detail = OutputScan.firstError(kind, result.stdout(), result.stderr())
                     .orElseGet(() -> OutputScan.lastLine(result.stderr()));
@@ -194,11 +245,28 @@ public final class SimulatorProcess {
      * by the "main version" of the banner for gnucap (e.g. {@code gnucap master 2017.10.03}).
      */
     public String version() throws SimulationException {
-        Path cwd = Path.of(System.getProperty("java.io.tmpdir"));
+        String key = kind + " " + executable.toAbsolutePath();
+        String known = VERSIONS.get(key);
+        if (known != null) {
+            return known;
+        }
+        String found = askVersion();
+        VERSIONS.put(key, found);
+        return found;
+    }
+
+    private String askVersion() throws SimulationException {
+        Path cwd;
+        try {
+            cwd = privateFolder(null, kind.command() + "-version-");
+        } catch (IOException e) {
+            throw new SimulationException(kind.command() + ": cannot create a work folder: " + e.getMessage(), e);
+        }
         List<String> command = kind == Kind.NGSPICE
                 ? List.of(executable.toString(), "-v")
                 : List.of(executable.toString(), "--version");
-        Result result = execute(command, cwd);
+        Result result = execute(command, cwd, timeout);
+        discard(cwd);
         String text = result.stdout() + "\n" + result.stderr();
         for (String line : text.split("\\R")) {
             String stripped = line.replaceAll("^[\\s*]+|[\\s*]+$", "");
@@ -225,7 +293,7 @@ public final class SimulatorProcess {
         return block.lines().map(String::trim).noneMatch(l -> l.equals("quit") || l.startsWith("quit "));
     }
 
-    private Result execute(List<String> command, Path cwd) throws SimulationException {
+    private Result execute(List<String> command, Path cwd, Duration limit) throws SimulationException {
         if (!isExecutableFile(executable)) {
             throw new SimulationException(kind.command() + " executable not found or not executable: "
                     + executable);
@@ -239,6 +307,7 @@ public final class SimulatorProcess {
             throw new SimulationException(kind.command() + " could not be started (" + executable + "): "
                     + e.getMessage(), e);
         }
+        ProcessTree tree = new ProcessTree(process.toHandle());
         StreamDrain out = new StreamDrain(process.getInputStream());
         StreamDrain err = new StreamDrain(process.getErrorStream());
         Thread outThread = startDaemon(out, kind.command() + "-stdout");
@@ -249,18 +318,29 @@ public final class SimulatorProcess {
             // closing stdin of a child that already exited can fail; nothing to do
         }
         try {
-            boolean finished = process.waitFor(timeout.toNanos(), TimeUnit.NANOSECONDS);
+            long deadline = start + limit.toNanos();
+            boolean finished = false;
+            while (!finished) {
+                tree.sample();
+                long left = deadline - System.nanoTime();
+                if (left <= 0) {
+                    break;
+                }
+                finished = process.waitFor(Math.min(left, TREE_SAMPLE.toNanos()), TimeUnit.NANOSECONDS);
+            }
             if (!finished) {
-                killTree(process.toHandle());
+                tree.killAll(DRAIN_GRACE);
                 joinQuietly(outThread);
                 joinQuietly(errThread);
-                throw new SimulationException(kind.command() + " did not finish within " + seconds(timeout)
-                        + " and was killed [" + cwd.resolve(kind.netlistFile()) + "]");
+                throw new SimulationException(kind.command() + " did not finish within " + seconds(limit)
+                        + " and was killed with everything it started [" + cwd.resolve(kind.netlistFile()) + "]");
             }
+            // whatever the simulator left running in the background is ours to stop
+            tree.killAll(DRAIN_GRACE);
             outThread.join(DRAIN_GRACE.toMillis());
             errThread.join(DRAIN_GRACE.toMillis());
         } catch (InterruptedException e) {
-            killTree(process.toHandle());
+            tree.killAll(Duration.ZERO);
             Thread.currentThread().interrupt();
             throw new SimulationException(kind.command() + " run was interrupted and the process killed", e);
         }
@@ -281,18 +361,6 @@ public final class SimulatorProcess {
         thread.setDaemon(true);
         thread.start();
         return thread;
-    }
-
-    /** Takes a snapshot of all descendants while the parent still lives, then kills the parent and each of them. */
-    private static void killTree(ProcessHandle root) {
-        List<ProcessHandle> descendants = root.descendants().toList();
-        root.destroyForcibly();
-        descendants.forEach(ProcessHandle::destroyForcibly);
-        try {
-            root.onExit().get(DRAIN_GRACE.toMillis(), TimeUnit.MILLISECONDS);
-        } catch (Exception stillDying) {
-            // the operating system will reap it; the run has failed either way
-        }
     }
 
     private static void joinQuietly(Thread thread) throws InterruptedException {
@@ -320,23 +388,52 @@ public final class SimulatorProcess {
 
     /**
      * Runs {@code netlist} in a fresh folder under {@code workRoot} and insists on a clean run: any warning the
-     * simulator prints about the card is a failure, since a card must load without one.
+     * simulator prints about the card is a failure, since a card must load without one. The time limit is the fixed
+     * part alone; prefer {@link #runClean(String, Path, int)}.
      */
     public Run runClean(String netlist, Path workRoot) throws SimulationException {
+        return runClean(netlist, workRoot, 0);
+    }
+
+    /**
+     * Runs {@code netlist}, which solves {@code points} operating points, in a fresh private folder (owner-only)
+     * under {@code workRoot} (or under the system's temporary folder when {@code workRoot} is null), within
+     * {@link #timeout(int)}, and insists on a clean run: any warning the simulator prints about the card is a
+     * failure, since a card must load without one.
+     */
+    public Run runClean(String netlist, Path workRoot, int points) throws SimulationException {
         Path dir;
         try {
-            java.nio.file.Files.createDirectories(workRoot);
-            dir = java.nio.file.Files.createTempDirectory(workRoot, kind.command() + "-");
-        } catch (java.io.IOException e) {
-            throw new SimulationException(kind.command() + ": cannot create a work folder under " + workRoot + ": "
-                    + e.getMessage(), e);
+            dir = privateFolder(workRoot, kind.command() + "-");
+        } catch (IOException e) {
+            throw new SimulationException(kind.command() + ": cannot create a work folder under "
+                    + (workRoot == null ? "the temporary folder" : workRoot) + ": " + e.getMessage(), e);
         }
-        Result result = run(netlist, dir);
+        Result result = run(netlist, dir, timeout(points));
         if (!result.warnings().isEmpty()) {
             throw new SimulationException(kind.command() + " warned about the card: " + result.warnings().get(0)
                     + " (netlist kept in " + dir + ")");
         }
         return new Run(result, dir);
+    }
+
+    /**
+     * A fresh folder that only this user can enter ({@code rwx------} where the file system has POSIX permissions),
+     * made by {@link Files#createTempDirectory} so its name cannot be guessed or taken over beforehand.
+     *
+     * @param parent the folder to make it in (created if missing), or null for the system's temporary folder
+     */
+    public static Path privateFolder(Path parent, String prefix) throws IOException {
+        boolean posix = java.nio.file.FileSystems.getDefault().supportedFileAttributeViews().contains("posix");
+        java.nio.file.attribute.FileAttribute<?>[] attributes = posix
+                ? new java.nio.file.attribute.FileAttribute<?>[] {java.nio.file.attribute.PosixFilePermissions
+                        .asFileAttribute(java.nio.file.attribute.PosixFilePermissions.fromString("rwx------"))}
+                : new java.nio.file.attribute.FileAttribute<?>[0];
+        if (parent == null) {
+            return Files.createTempDirectory(prefix, attributes);
+        }
+        Files.createDirectories(parent);
+        return Files.createTempDirectory(parent, prefix, attributes);
     }
 
     /** Deletes a run's folder; a leftover temporary folder is harmless, so failures are ignored. */
