@@ -264,8 +264,9 @@ public final class FitWorkflow {
             lines.add(d.shortName() + " cannot carry " + leftOut.stream().map(Param::keyword).collect(Collectors.joining(" "))
                     + ": refitted without; worst RMS residual " + forCard.costAgainst(full));
         }
-        lines.add("verify, from this card's folder: cardwright verify " + request.cardPath(d).getFileName() + " "
-                + request.data().stream().map(p -> relative(home, p)).collect(Collectors.joining(" "))
+        // every file name shell-quoted: a data file called "x;rm -rf ~" or "$(...)" runs nothing when pasted
+        lines.add("verify, from this card's folder: cardwright verify " + ShellWords.quote(request.cardPath(d).getFileName().toString()) + " "
+                + request.data().stream().map(p -> ShellWords.quote(relative(home, p))).collect(Collectors.joining(" "))
                 + verifyOptions(request, d));
         return lines;
     }
