@@ -62,6 +62,13 @@ public final class FitWorkflow {
         List<Path> targets = new ArrayList<>();
         request.dialects().forEach(d -> targets.add(request.cardPath(d)));
         request.json().ifPresent(targets::add);
+        OutputPlan plan = new OutputPlan().inputs("data file", request.data());
+        for (Dialect d : request.dialects()) {
+            request.templates().ifPresent(t -> plan.input("template", t.resolve(d.templateFileName())));
+            plan.output("the " + d.shortName() + " card", request.cardPath(d));
+        }
+        request.json().ifPresent(j -> plan.output("--json", j));
+        plan.check();
         OutputFiles.checkWritable(targets, request.force());
 
         ReadOptions options = request.readOptions();
