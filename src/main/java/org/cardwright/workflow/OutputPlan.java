@@ -50,8 +50,9 @@ public final class OutputPlan {
     }
 
     /**
-     * Fails, naming both files and their roles, when an output leads to an input, to a protected file, to another
-     * output, or to a folder.
+     * Fails, naming both files and their roles, when an output leads to an input, to a protected file or to a folder
+     * ({@link OutputException}), or to another output of the same command (IllegalArgumentException: the command
+     * line names one file for two things, a usage error).
      */
     public void check() throws OutputException {
         for (int i = 0; i < writes.size(); i++) {
@@ -69,7 +70,7 @@ public final class OutputPlan {
             for (int j = 0; j < i; j++) {
                 Entry o = writes.get(j);
                 if (same(w, o)) {
-                    throw new OutputException(shown(w.path()) + ": " + o.role() + " and " + w.role() + " name the same file"
+                    throw new IllegalArgumentException(shown(w.path()) + ": " + o.role() + " and " + w.role() + " name the same file"
                             + via(w, o) + "; give them different names");
                 }
             }

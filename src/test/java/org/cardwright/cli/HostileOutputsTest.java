@@ -15,9 +15,10 @@ import org.cardwright.testsupport.Simulators;
 import org.junit.jupiter.api.Test;
 
 /**
- * Issue 10, lost outputs: an output path that leads (after symbolic links) to an input of the same command, to a
- * library's own card, or to another output of the same command is refused before anything is written, with exit 6
- * and one line naming both, whether or not {@code --force} is given; the inputs keep their bytes.
+ * Issue 10, lost outputs: an output path that leads (after symbolic links) to an input of the same command or to a
+ * library's own card is refused before anything is written, with exit 6, and one that leads to another output of the
+ * same command with exit 2 (one file named twice); one line naming both, whether or not {@code --force} is given;
+ * the inputs keep their bytes.
  */
 class HostileOutputsTest {
 
@@ -29,7 +30,12 @@ class HostileOutputsTest {
 
     /** Exit 6, one line holding {@code fragment}, no stack trace; every file under {@code dir} as it was. */
     private static void refused(CliRun run, String fragment, Path dir, Map<String, byte[]> before) throws IOException {
-        assertEquals(ExitCodes.OUTPUT_REFUSED, run.exitCode(), run.describe());
+        refused(run, ExitCodes.OUTPUT_REFUSED, fragment, dir, before);
+    }
+
+    /** Exit {@code code} (6 for an input, 2 for one file named twice), as {@link #refused(CliRun, String, Path, Map)}. */
+    private static void refused(CliRun run, int code, String fragment, Path dir, Map<String, byte[]> before) throws IOException {
+        assertEquals(code, run.exitCode(), run.describe());
         assertEquals(1, run.errLines().size(), run.describe());
         assertTrue(run.errLines().get(0).startsWith("cardwright: ") && run.err().contains(fragment),
                 "says '" + fragment + "': " + run.describe());
@@ -46,7 +52,7 @@ class HostileOutputsTest {
         Map<String, byte[]> before = snapshot(dir);
         CliRun run = CliRun.of("fit", data.toString(), "--name", "A", "--dialect", "ngspice", "--out", dir.resolve("o2").toString(),
                 "--json", dir.resolve("o2/A.ngspice.lib").toString());
-        refused(run, "the ngspice card and --json name the same file", dir, before);
+        refused(run, ExitCodes.USAGE, "the ngspice card and --json name the same file", dir, before);
     }
 
     @Test
@@ -85,7 +91,7 @@ class HostileOutputsTest {
                 "--html would overwrite data file", dir, before);
         Path report = dir.resolve("report.out");
         refused(CliRun.of("verify", card.toString(), data.toString(), "--json", report.toString(), "--html", report.toString()),
-                "--json and --html name the same file", dir, before);
+                ExitCodes.USAGE, "--json and --html name the same file", dir, before);
     }
 
     @Test
