@@ -41,6 +41,13 @@ import org.cardwright.model.Param;
  *
  * <p>Templates are looked up in the user's template folder first (when given), then among the templates bundled
  * in the jar, so a user can edit a copy of one without rebuilding.
+ *
+ * <p>A template is data from someone else, never code. It reaches no Java class ({@code ?new} refused for every
+ * class, {@code ?api} off, a wrapper that knows only text, lists and maps), includes nothing from outside its
+ * folder (no backing out, no links that lead out, no special or oversized files), may write at most
+ * {@link #MAX_RENDERED_CHARS} characters and run at most {@link #RENDER_TIME_LIMIT_MILLIS} ms, and the card it
+ * writes must read back as exactly the fitted card, or it is refused with a {@link CardTemplateException} naming the
+ * template file (docs/security.md).
  */
 public final class CardWriter {
     /** Classpath folder of the bundled templates (the project's top-level templates/ folder). */
@@ -176,19 +183,24 @@ public final class CardWriter {
         ParsedCard expected = reader.parse(canonical.toString(), "(expected card)", dialect);
         String refused = template + ": the card it wrote is refused: ";
         CardText.Layout layout;
-        List<ParsedCard> cards;
         try {
             layout = CardText.split(text, "card");
-            cards = reader.parseAll(text, "card", dialect);
         } catch (CardFormatException e) {
-            throw new CardTemplateException(refused + "it does not read back as a card (" + Excerpts.of(e.getMessage()) + ")", e);
+            throw new CardTemplateException(refused + "it does not read back as a card (" + Excerpts.of(e.getMessage(), MESSAGE_CHARS) + ")", e);
         }
+        // what is not the .model statement is named first, whatever the reader would say about it
         for (CardText.Statement st : layout.statements()) {
             String keyword = st.tokens().get(0).text();
             if (!keyword.equalsIgnoreCase(".model")) {
                 throw new CardTemplateException(refused + "line " + st.firstLine() + " is not part of the .model statement: "
                         + Excerpts.quoted(keyword) + "; a card holds one .model statement and comments only", null);
             }
+        }
+        List<ParsedCard> cards;
+        try {
+            cards = reader.parseAll(text, "card", dialect);
+        } catch (CardFormatException e) {
+            throw new CardTemplateException(refused + "it does not read back as a card (" + Excerpts.of(e.getMessage(), MESSAGE_CHARS) + ")", e);
         }
         if (cards.size() != 1) {
             throw new CardTemplateException(refused + "it holds " + cards.size() + " .model statements; a card holds one", null);
