@@ -29,8 +29,12 @@ public record Recipe(String text, String sha256) {
         sb.append(part.canonicalSettings());
         for (DataSource s : part.data()) {
             Path p = s.resolve(part.folder());
+            if (Files.exists(p) && !Files.isRegularFile(p)) {
+                throw new DeviceFileException(part.path(), s.line(), "data file " + org.cardwright.card.Excerpts.quoted(s.file())
+                        + " is not a regular file (a folder, FIFO or device); refused");
+            }
             if (!Files.isRegularFile(p)) {
-                throw new DeviceFileException(part.path(), s.line(), "data file not found: '" + s.file() + "'");
+                throw new DeviceFileException(part.path(), s.line(), "data file not found: " + org.cardwright.card.Excerpts.quoted(s.file()));
             }
             sb.append("data-sha256 ").append(s.file()).append(' ').append(Hashes.sha256(p)).append('\n');
         }

@@ -28,8 +28,8 @@ import org.junit.jupiter.api.TestFactory;
 class HostileLibraryTest {
     /** Kept in a file outside every library root; no output may show it. */
     private static final String SECRET = "SECRET-91d4-not-for-messages";
-    /** The corpus had 18 cases when this test was written; fewer means some went missing. */
-    private static final int MIN_CASES = 18;
+    /** The corpus had 20 cases when this test was written; fewer means some went missing. */
+    private static final int MIN_CASES = 20;
 
     @TestFactory
     Stream<DynamicTest> everyHostileLibraryIsRefusedWithItsOwnMessage() throws IOException {
@@ -105,8 +105,14 @@ class HostileLibraryTest {
         assertTrue(run.out().contains(fragment) || run.err().contains(fragment), "says '" + fragment + "': " + run.describe());
         assertFalse(run.err().contains("\tat ") || run.out().contains("\tat "), "no stack trace: " + run.describe());
         assertFalse(run.err().contains(SECRET) || run.out().contains(SECRET), "secret shown: " + run.describe());
+        // the environment as /proc/self/environ would show it
+        String path = System.getenv("PATH");
+        String environ = "PATH=" + (path == null ? "" : path);
+        assertFalse(path != null && (run.out().contains(environ) || run.err().contains(environ)), "environment shown");
         if (Files.exists(junit)) {
-            assertFalse(Files.readString(junit, StandardCharsets.UTF_8).contains(SECRET), "secret in the JUnit report");
+            String xml = Files.readString(junit, StandardCharsets.UTF_8);
+            assertFalse(xml.contains(SECRET), "secret in the JUnit report");
+            assertFalse(path != null && xml.contains(environ), "environment in the JUnit report");
         }
         Map<String, byte[]> outsideAfter = snapshot(outside);
         assertEquals(outsideBefore.keySet(), outsideAfter.keySet(), "nothing written outside the root");
