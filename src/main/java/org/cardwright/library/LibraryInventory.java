@@ -24,6 +24,8 @@ public final class LibraryInventory {
     private final Path root;
     private final Map<Path, DeviceFile> parts = new LinkedHashMap<>();
     private final Map<String, List<Path>> byModel = new LinkedHashMap<>();
+    /** Every part's inputs, located once and shared by every part's plan. */
+    private OutputPlan inputsPlan;
 
     private LibraryInventory(Path root) {
         this.root = root;
@@ -109,17 +111,7 @@ public final class LibraryInventory {
      * reads.
      */
     OutputPlan plan(DeviceFile part) {
-        OutputPlan plan = new OutputPlan();
-        for (Map.Entry<Path, DeviceFile> e : parts.entrySet()) {
-            String of = LibraryPaths.display(root, e.getKey());
-            plan.input("device file", e.getKey());
-            for (DataSource s : e.getValue().data()) {
-                plan.input("a data file of " + of, s.resolve(e.getValue().folder()));
-            }
-            for (Path t : templates(e.getValue())) {
-                plan.input("a template of " + of, t);
-            }
-        }
+        OutputPlan plan = allInputs().copy();
         plan.input("device file", part.path());
         for (DataSource s : part.data()) {
             plan.input("a data file of this part", s.resolve(part.folder()));
@@ -132,6 +124,24 @@ public final class LibraryInventory {
         }
         plan.output("the build record", part.statePath());
         return plan;
+    }
+
+    private synchronized OutputPlan allInputs() {
+        if (inputsPlan == null) {
+            OutputPlan all = new OutputPlan();
+            for (Map.Entry<Path, DeviceFile> e : parts.entrySet()) {
+                String of = LibraryPaths.display(root, e.getKey());
+                all.input("device file", e.getKey());
+                for (DataSource s : e.getValue().data()) {
+                    all.input("a data file of " + of, s.resolve(e.getValue().folder()));
+                }
+                for (Path t : templates(e.getValue())) {
+                    all.input("a template of " + of, t);
+                }
+            }
+            inputsPlan = all;
+        }
+        return inputsPlan;
     }
 
     /** The cards and the build record of {@code part}. */

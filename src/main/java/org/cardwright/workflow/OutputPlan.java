@@ -19,12 +19,26 @@ import java.util.Objects;
  * {@code --force} allows replacing an old output; it never allows any of this.
  */
 public final class OutputPlan {
-    /** A file and what it is to the command, e.g. "data file" or "--json". */
-    private record Entry(String role, Path path, Path real) {
+    /**
+     * A file and what it is to the command, e.g. "data file" or "--json".
+     *
+     * @param real    where it leads ({@link #located})
+     * @param fileKey the file system's identity of the file (device and inode on POSIX systems) when it exists and
+     *                the system has one; null otherwise
+     */
+    private record Entry(String role, Path path, Path real, Object fileKey) {
     }
 
     private final List<Entry> reads = new ArrayList<>();
     private final List<Entry> writes = new ArrayList<>();
+
+    /** A new plan with this one's inputs and outputs (each located once), to add more to. */
+    public OutputPlan copy() {
+        OutputPlan c = new OutputPlan();
+        c.reads.addAll(reads);
+        c.writes.addAll(writes);
+        return c;
+    }
 
     /** A file the command reads; no output may lead to it. */
     public OutputPlan input(String role, Path path) {
@@ -55,17 +69,27 @@ public final class OutputPlan {
      * line names one file for two things, a usage error).
      */
     public void check() throws OutputException {
+        // indexed by where each input leads and by its file key: a library's plan holds thousands of inputs
+        java.util.Map<Object, Entry> byPlace = new java.util.HashMap<>();
+        for (Entry r : reads) {
+            byPlace.putIfAbsent(r.real(), r);
+            if (r.fileKey() != null) {
+                byPlace.putIfAbsent(r.fileKey(), r);
+            }
+        }
         for (int i = 0; i < writes.size(); i++) {
             Entry w = writes.get(i);
             if (Files.isDirectory(w.real())) {
                 throw new OutputException(shown(w.path()) + ": " + w.role() + " names a folder, not a file; write it somewhere else");
             }
-            for (Entry r : reads) {
-                if (same(w, r)) {
-                    throw new OutputException(shown(w.path()) + ": " + w.role() + " would overwrite " + r.role() + " "
-                            + shown(r.path()) + via(w, r) + "; an output may never replace an input of the same command, "
-                            + "even with --force; write it somewhere else");
-                }
+            Entry hit = byPlace.get(w.real());
+            if (hit == null && w.fileKey() != null) {
+                hit = byPlace.get(w.fileKey());
+            }
+            if (hit != null) {
+                throw new OutputException(shown(w.path()) + ": " + w.role() + " would overwrite " + hit.role() + " "
+                        + shown(hit.path()) + via(w, hit) + "; an output may never replace an input of the same command, "
+                        + "even with --force; write it somewhere else");
             }
             for (int j = 0; j < i; j++) {
                 Entry o = writes.get(j);
@@ -83,23 +107,21 @@ public final class OutputPlan {
     }
 
     private static boolean same(Entry a, Entry b) {
-        if (a.real().equals(b.real())) {
-            return true;
-        }
-        if (Files.exists(a.real()) && Files.exists(b.real())) {
-            try {
-                return Files.isSameFile(a.real(), b.real());
-            } catch (IOException e) {
-                return false;
-            }
-        }
-        return false;
+        return a.real().equals(b.real()) || (a.fileKey() != null && a.fileKey().equals(b.fileKey()));
     }
 
     private static Entry entry(String role, Path path) {
         Objects.requireNonNull(role, "role");
         Objects.requireNonNull(path, "path");
-        return new Entry(role, path, located(path));
+        Path real = located(path);
+        Object key = null;
+        try {
+            // hard links: two names of one file share the key
+            key = Files.readAttributes(real, java.nio.file.attribute.BasicFileAttributes.class).fileKey();
+        } catch (IOException e) {
+            // does not exist (yet): only its located path can match
+        }
+        return new Entry(role, path, real, key);
     }
 
     /**
