@@ -89,6 +89,11 @@ class HostileOutputsTest {
                 "--json would overwrite the card", dir, before);
         refused(CliRun.of("verify", card.toString(), data.toString(), "--html", dir.resolve("./data.csv").toString(), "--force"),
                 "--html would overwrite data file", dir, before);
+        Path hardLink = Files.createLink(dir.resolve("result.json"), data);
+        Map<String, byte[]> withLink = snapshot(dir);
+        refused(CliRun.of("verify", card.toString(), data.toString(), "--json", hardLink.toString(), "--force"),
+                "--json would overwrite data file", dir, withLink);
+        Files.delete(hardLink);
         Path report = dir.resolve("report.out");
         refused(CliRun.of("verify", card.toString(), data.toString(), "--json", report.toString(), "--html", report.toString()),
                 ExitCodes.USAGE, "--json and --html name the same file", dir, before);
