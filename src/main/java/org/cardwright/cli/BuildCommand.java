@@ -31,6 +31,11 @@ final class BuildCommand implements Callable<Integer> {
     @Option(names = "--replace-edited", description = "Overwrite cards that were changed by hand since they were built.")
     boolean replaceEdited;
 
+    @Option(names = "--allow-outside-root",
+            description = "Let device files name data files, card folders and template folders outside the library root "
+                    + "(after symbolic links are resolved). Without it such paths are refused; see docs/security.md.")
+    boolean allowOutsideRoot;
+
     @Option(names = "--notes", description = "Also print what each fit set aside or changed in the data.")
     boolean notes;
 
@@ -41,7 +46,7 @@ final class BuildCommand implements Callable<Integer> {
     public Integer call() throws Exception {
         PrintWriter out = spec.commandLine().getOut();
         PrintWriter err = spec.commandLine().getErr();
-        List<PartOutcome> parts = new LibraryBuilder(replaceEdited).build(root, line -> {
+        List<PartOutcome> parts = new LibraryBuilder(replaceEdited, allowOutsideRoot).build(root, line -> {
             out.println(line);
             out.flush();
         });

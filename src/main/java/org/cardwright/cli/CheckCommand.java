@@ -7,8 +7,10 @@ import java.util.concurrent.Callable;
 import org.cardwright.library.CardCheck;
 import org.cardwright.library.CheckReport;
 import org.cardwright.library.LibraryCheck;
+import org.cardwright.library.LibraryInventory;
 import org.cardwright.workflow.Engines;
 import org.cardwright.workflow.OutputFiles;
+import org.cardwright.workflow.OutputPlan;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
@@ -39,6 +41,11 @@ final class CheckCommand implements Callable<Integer> {
     @Option(names = "--junit", paramLabel = "FILE", description = "Also write a JUnit XML report (replaced if it exists).")
     Path junit;
 
+    @Option(names = "--allow-outside-root",
+            description = "Let device files name data files, card folders and template folders outside the library root "
+                    + "(after symbolic links are resolved). Without it such paths are refused; see docs/security.md.")
+    boolean allowOutsideRoot;
+
     @Option(names = "--allow-stale", description = "Let cards built from older inputs pass when they reproduce the data.")
     boolean allowStale;
 
@@ -49,8 +56,15 @@ final class CheckCommand implements Callable<Integer> {
     public Integer call() throws Exception {
         simulatorTimeLimit.apply();
         Engines.byName(engine);
+        if (junit != null) {
+            // the report may replace an old report, never a file of the library
+            LibraryInventory inventory = LibraryInventory.of(root, allowOutsideRoot);
+            new OutputPlan().inputs("a file of the library", inventory.inputs())
+                    .inputs("a card or build record of the library", inventory.outputs())
+                    .output("--junit", junit).check();
+        }
         PrintWriter out = spec.commandLine().getOut();
-        List<CardCheck> checks = new LibraryCheck(engine, allowStale).check(root, line -> {
+        List<CardCheck> checks = new LibraryCheck(engine, allowStale, allowOutsideRoot).check(root, line -> {
             out.println(line);
             out.flush();
         });

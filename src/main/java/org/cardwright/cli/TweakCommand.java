@@ -37,6 +37,15 @@ final class TweakCommand implements Callable<Integer> {
     @Option(names = "--out", paramLabel = "DIR", description = "Write the tweaked cards to this folder.")
     Path out;
 
+    @Option(names = "--root", paramLabel = "DIR",
+            description = "The library root the device file's paths must stay inside (default: the device file's folder).")
+    Path root;
+
+    @Option(names = "--allow-outside-root",
+            description = "Let device files name data files, card folders and template folders outside the library root "
+                    + "(after symbolic links are resolved). Without it such paths are refused; see docs/security.md.")
+    boolean allowOutsideRoot;
+
     @Option(names = "--force", description = "Replace existing cards in the --out folder.")
     boolean force;
 
@@ -45,7 +54,8 @@ final class TweakCommand implements Callable<Integer> {
 
     @Override
     public Integer call() throws Exception {
-        TweakReport r = TweakReport.run(device, Tweak.parse(tweak, !renderOnly), Optional.ofNullable(out), force);
+        TweakReport r = TweakReport.run(device, Tweak.parse(tweak, !renderOnly), Optional.ofNullable(out), force,
+                Optional.ofNullable(root), allowOutsideRoot);
         spec.commandLine().getOut().print(r.text());
         spec.commandLine().getOut().flush();
         return ExitCodes.OK;

@@ -13,6 +13,7 @@ import org.cardwright.verify.JunctionVerification;
 import org.cardwright.workflow.Engines;
 import org.cardwright.workflow.Inputs;
 import org.cardwright.workflow.OutputFiles;
+import org.cardwright.workflow.OutputPlan;
 import org.cardwright.workflow.VerifyRequest;
 import org.cardwright.workflow.VerifyWorkflow;
 import picocli.CommandLine.Command;
@@ -94,10 +95,15 @@ final class VerifyCommand implements Callable<Integer> {
     @Override
     public Integer call() throws Exception {
         simulatorTimeLimit.apply();
+        OutputPlan plan = new OutputPlan().input("the card", card).inputs("data file", data);
+        if (json != null) {
+            plan.output("--json", json);
+        }
         if (html != null) {
-            if (json != null && json.toAbsolutePath().normalize().equals(html.toAbsolutePath().normalize())) {
-                throw new IllegalArgumentException("--json and --html both name " + html + "; give them different files");
-            }
+            plan.output("--html", html);
+        }
+        plan.check();
+        if (html != null) {
             OutputFiles.checkWritable(List.of(html), force);
         }
         VerifyRequest request = new VerifyRequest(card, data, engine, Optional.ofNullable(model), dialectOf(card, dialect),

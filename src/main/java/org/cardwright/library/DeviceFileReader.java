@@ -27,6 +27,7 @@ import java.util.OptionalDouble;
 import java.util.Set;
 import java.util.stream.Collectors;
 import org.cardwright.card.Dialect;
+import org.cardwright.card.Excerpts;
 import org.cardwright.card.SpiceNumbers;
 import org.cardwright.fit.DeviceKind;
 import org.cardwright.fit.ParameterRule;
@@ -60,7 +61,7 @@ public final class DeviceFileReader {
         final String known;
 
         UnknownKey(JsonParser p, String key, int line, String under, String known) {
-            super(p, "unknown key '" + key + "'");
+            super(p, "unknown key " + Excerpts.quoted(key));
             this.key = key;
             this.line = line;
             this.under = under;
@@ -181,13 +182,77 @@ public final class DeviceFileReader {
                     @JsonProperty("tweak") TweakEntry tweak) {
     }
 
-    /** Reads and checks one device file. */
+    /**
+     * Largest device file read [bytes]: 64 KiB. A device file is a few hundred bytes; a larger one is refused before
+     * parsing, so that a file padded with a huge comment cannot hold a build up (the YAML parser takes about 2 s
+     * per MiB of a one-line comment: measured 1.4 to 5.5 s for 1 MiB on a loaded 2-core machine).
+     */
+    public static final int MAX_DEVICE_FILE_BYTES = 64 * 1024;
+
+    private final java.util.Optional<Path> root;
+    private final boolean allowOutsideRoot;
+
+    /** A reader that confines nothing: paths in the device file are taken as written (compare --device, tests). */
+    public DeviceFileReader() {
+        this(java.util.Optional.empty(), true);
+    }
+
+    /**
+     * A reader for the library under {@code root}: the device file, its data files, its card folder and its template
+     * folder must stay inside the root after symbolic links are resolved, unless {@code allowOutsideRoot}.
+     */
+    public DeviceFileReader(Path root, boolean allowOutsideRoot) {
+        this(java.util.Optional.of(root), allowOutsideRoot);
+    }
+
+    private DeviceFileReader(java.util.Optional<Path> root, boolean allowOutsideRoot) {
+        this.root = root;
+        this.allowOutsideRoot = allowOutsideRoot;
+    }
+
+    /**
+     * Reads and checks one device file. A device file that is a folder, a link to nothing, a FIFO or device, larger
+     * than {@link #MAX_DEVICE_FILE_BYTES} or not UTF-8 text is refused before it is parsed.
+     */
     public DeviceFile read(Path path) throws DeviceFileException {
+        if (!Files.exists(path, java.nio.file.LinkOption.NOFOLLOW_LINKS)) {
+            throw new DeviceFileException(path, 0, "no such device file");
+        }
+        if (!Files.exists(path)) {
+            throw new DeviceFileException(path, 0, "a symbolic link to nothing (dangling), not a device file");
+        }
+        if (root.isPresent() && !allowOutsideRoot) {
+            Path real = org.cardwright.workflow.OutputPlan.located(path);
+            if (!real.startsWith(org.cardwright.workflow.OutputPlan.located(root.get()))) {
+                throw new DeviceFileException(path, 0, "the device file leads outside the library root "
+                        + root.get().toString().replace('\\', '/') + " (to " + Excerpts.of(real.toString(), 120)
+                        + "); refused (pass --allow-outside-root to allow it)");
+            }
+        }
+        if (Files.isDirectory(path)) {
+            throw new DeviceFileException(path, 0, "a folder, not a device file");
+        }
+        if (!Files.isRegularFile(path)) {
+            throw new DeviceFileException(path, 0, "not a regular file (a FIFO, device or socket); refused");
+        }
+        byte[] bytes;
+        try (java.io.InputStream in = Files.newInputStream(path)) {
+            bytes = in.readNBytes(MAX_DEVICE_FILE_BYTES + 1);
+        } catch (IOException e) {
+            throw new DeviceFileException(path, 0, "cannot read the device file (" + Excerpts.of(e.getMessage(), 120) + ")", e);
+        }
+        if (bytes.length > MAX_DEVICE_FILE_BYTES) {
+            throw new DeviceFileException(path, 0, "larger than " + MAX_DEVICE_FILE_BYTES
+                    + " bytes, the limit for a device file (one is a few hundred bytes); refused before parsing");
+        }
         String text;
         try {
-            text = Files.readString(path, StandardCharsets.UTF_8);
-        } catch (IOException e) {
-            throw new DeviceFileException(path, 0, "cannot read the device file (" + e.getMessage() + ")", e);
+            text = StandardCharsets.UTF_8.newDecoder()
+                    .onMalformedInput(java.nio.charset.CodingErrorAction.REPORT)
+                    .onUnmappableCharacter(java.nio.charset.CodingErrorAction.REPORT)
+                    .decode(java.nio.ByteBuffer.wrap(bytes)).toString();
+        } catch (java.nio.charset.CharacterCodingException e) {
+            throw new DeviceFileException(path, 0, "not UTF-8 text; a device file is YAML in UTF-8", e);
         }
         return parse(text, path);
     }
@@ -201,7 +266,7 @@ public final class DeviceFileReader {
             String known = e.getKnownPropertyIds() == null ? "" : e.getKnownPropertyIds().stream()
                     .map(Object::toString).sorted().collect(Collectors.joining(", "));
             int at = e.getProcessor() instanceof JsonParser p ? line(p.currentTokenLocation()) : line(e.getLocation());
-            throw new DeviceFileException(path, at, "unknown key '" + e.getPropertyName() + "'"
+            throw new DeviceFileException(path, at, "unknown key " + Excerpts.quoted(e.getPropertyName())
                     + where(e) + (known.isEmpty() ? "" : "; known keys here: " + known), e);
         } catch (MismatchedInputException e) {
             throw new DeviceFileException(path, line(e.getLocation()), "wrong form for "
@@ -209,7 +274,7 @@ public final class DeviceFileReader {
                     + expected(e.getTargetType()), e);
         } catch (UnknownKey e) {
             int at = e.line > 0 ? e.line : keyLine(text, e.key);
-            throw new DeviceFileException(path, at, "unknown key '" + e.key + "'" + e.under
+            throw new DeviceFileException(path, at, "unknown key " + Excerpts.quoted(e.key) + e.under
                     + (e.known.isEmpty() ? "" : "; known keys here: " + e.known), e);
         } catch (JsonProcessingException e) {
             if (e.getCause() != null && e.getCause().getClass().getSimpleName().equals("MarkedYAMLException")) {
@@ -220,7 +285,45 @@ public final class DeviceFileReader {
         if (doc == null) {
             throw new DeviceFileException(path, 0, "empty device file: it needs at least the keys model and data");
         }
-        return check(doc, path);
+        if (doc.dialects() != null && doc.dialects().isEmpty()) {
+            throw new DeviceFileException(path, keyLine(text, "dialects"),
+                    "dialects is an empty list; name at least one (ngspice, spice3, gnucap, xyce), or leave the key out for ngspice and spice3");
+        }
+        DeviceFile part = check(doc, path);
+        if (root.isPresent() && !allowOutsideRoot) {
+            confine(part, root.get(), doc, text);
+        }
+        return part;
+    }
+
+    /**
+     * Every path the part names (data files, card folder, template folder) must stay inside the library root once
+     * symbolic links are resolved: {@code ../../etc/passwd}, {@code /proc/self/environ} and links that lead out are
+     * refused, naming the device file, the line and the entry (escaped, shortened).
+     */
+    private static void confine(DeviceFile part, Path root, Document doc, String text) throws DeviceFileException {
+        Path inside = org.cardwright.workflow.OutputPlan.located(root);
+        for (DataSource s : part.data()) {
+            refuseOutside(part, inside, root, s.resolve(part.folder()), s.line(), "data file", s.file());
+        }
+        if (doc.cards() != null) {
+            refuseOutside(part, inside, root, part.cardFolder(), doc.cards().line(), "cards folder", part.cards());
+        }
+        if (part.templates().isPresent()) {
+            int line = doc.templates() == null ? keyLine(text, "templates") : doc.templates().line();
+            refuseOutside(part, inside, root, part.folder().resolve(part.templates().get()), line, "templates folder",
+                    part.templates().get());
+        }
+    }
+
+    private static void refuseOutside(DeviceFile part, Path inside, Path root, Path target, int line, String what,
+                                      String entry) throws DeviceFileException {
+        Path real = org.cardwright.workflow.OutputPlan.located(target);
+        if (!real.startsWith(inside)) {
+            throw new DeviceFileException(part.path(), line, what + " " + Excerpts.quoted(entry)
+                    + " leads outside the library root " + root.toString().replace('\\', '/')
+                    + "; refused (pass --allow-outside-root to allow paths outside the root)");
+        }
     }
 
     private static DeviceFile check(Document doc, Path path) throws DeviceFileException {
@@ -230,7 +333,7 @@ public final class DeviceFileReader {
         String model = doc.model().text().trim();
         if (!org.cardwright.card.ModelCard.isSpiceIdentifier(model)) {
             throw new DeviceFileException(path, doc.model().line(),
-                    "model name is not a SPICE identifier (a letter, then letters, digits, _ . - +): '" + model + "'");
+                    "model name is not a SPICE identifier (a letter, then letters, digits, _ . - +): " + Excerpts.quoted(model));
         }
         DeviceKind kind = DeviceKind.SILICON_PN;
         if (doc.kind() != null) {
@@ -252,12 +355,12 @@ public final class DeviceFileReader {
             }
             String file = e.file().text().trim().replace('\\', '/');
             if (!seen.add(file)) {
-                throw new DeviceFileException(path, e.file().line(), "data file listed twice: '" + file + "'");
+                throw new DeviceFileException(path, e.file().line(), "data file listed twice: " + Excerpts.quoted(file));
             }
             DataKindName dk = DataKindName.FORWARD;
             if (e.kind() != null) {
                 dk = DataKindName.bySpelling(e.kind().text()).orElseThrow(() -> new DeviceFileException(path,
-                        e.kind().line(), "unknown data kind '" + e.kind().text() + "'; choose one of "
+                        e.kind().line(), "unknown data kind " + Excerpts.quoted(e.kind().text()) + "; choose one of "
                                 + DataKindName.spellings()));
             }
             OptionalDouble temperature = OptionalDouble.empty();
@@ -266,7 +369,7 @@ public final class DeviceFileReader {
                 double k = c + Ngspice39.CELSIUS_TO_KELVIN;
                 if (!(k > 0)) {
                     throw new DeviceFileException(path, e.temperature().line(),
-                            "temperature is below absolute zero: '" + e.temperature().text() + "' degC");
+                            "temperature is below absolute zero: " + Excerpts.quoted(e.temperature().text()) + " degC");
                 }
                 temperature = OptionalDouble.of(k);
             }
@@ -275,7 +378,7 @@ public final class DeviceFileReader {
                 for (Map.Entry<String, Located> o : e.options().entrySet()) {
                     if (dk.readable()) {
                         int at = o.getValue() == null ? e.file().line() : o.getValue().line();
-                        throw new DeviceFileException(path, at, "unknown option '" + o.getKey() + "' for "
+                        throw new DeviceFileException(path, at, "unknown option " + Excerpts.quoted(o.getKey()) + " for "
                                 + dk.spelling() + " data: this kind takes no options");
                     }
                     options.put(o.getKey(), o.getValue() == null ? "" : o.getValue().text());
@@ -293,7 +396,7 @@ public final class DeviceFileReader {
                 throw new DeviceFileException(path, r.line(), ex.getMessage());
             }
             if (!ruled.add(rule.param())) {
-                throw new DeviceFileException(path, r.line(), "a second rule for " + rule.param() + ": '" + r.text() + "'");
+                throw new DeviceFileException(path, r.line(), "a second rule for " + rule.param() + ": " + Excerpts.quoted(r.text()));
             }
             rules.add(rule);
         }
@@ -310,7 +413,7 @@ public final class DeviceFileReader {
                     throw new DeviceFileException(path, d.line(), ex.getMessage());
                 }
                 if (dialects.contains(dialect)) {
-                    throw new DeviceFileException(path, d.line(), "dialect listed twice: '" + d.text() + "'");
+                    throw new DeviceFileException(path, d.line(), "dialect listed twice: " + Excerpts.quoted(d.text()));
                 }
                 dialects.add(dialect);
             }
@@ -320,7 +423,7 @@ public final class DeviceFileReader {
             try {
                 digits = Integer.parseInt(doc.digits().text().trim());
             } catch (NumberFormatException ex) {
-                throw new DeviceFileException(path, doc.digits().line(), "digits is not a whole number: '" + doc.digits().text() + "'");
+                throw new DeviceFileException(path, doc.digits().line(), "digits is not a whole number: " + Excerpts.quoted(doc.digits().text()));
             }
             if (digits < 4 || digits > 15) {
                 throw new DeviceFileException(path, doc.digits().line(), "digits must lie in 4..15, got " + digits);
@@ -374,7 +477,7 @@ public final class DeviceFileReader {
             leak = number(path, t.leakageFactor(), "leakage-factor");
             if (!(leak > 1)) {
                 throw new DeviceFileException(path, t.leakageFactor().line(),
-                        "leakage-factor must be above 1 (a ratio), got '" + t.leakageFactor().text() + "'");
+                        "leakage-factor must be above 1 (a ratio), got " + Excerpts.quoted(t.leakageFactor().text()));
             }
         }
         double cap = t.capacitance() == null ? d.capacitanceRelative() : positive(path, t.capacitance(), "capacitance-percent") / 100;
@@ -385,7 +488,7 @@ public final class DeviceFileReader {
     private static double positive(Path path, Located v, String key) throws DeviceFileException {
         double x = number(path, v, key);
         if (!(x > 0)) {
-            throw new DeviceFileException(path, v.line(), key + " must be positive, got '" + v.text() + "'");
+            throw new DeviceFileException(path, v.line(), key + " must be positive, got " + Excerpts.quoted(v.text()));
         }
         return x;
     }
@@ -398,14 +501,14 @@ public final class DeviceFileReader {
             }
             return x;
         } catch (NumberFormatException e) {
-            throw new DeviceFileException(path, v.line(), key + " is not a number: '" + v.text() + "'");
+            throw new DeviceFileException(path, v.line(), key + " is not a number: " + Excerpts.quoted(v.text()));
         }
     }
 
     private static String relative(Path path, Located v, String key) throws DeviceFileException {
         String s = v.text().trim().replace('\\', '/');
         if (s.isEmpty() || s.startsWith("/") || s.matches("^[A-Za-z]:.*")) {
-            throw new DeviceFileException(path, v.line(), key + " must be a folder relative to the device file, got '" + v.text() + "'");
+            throw new DeviceFileException(path, v.line(), key + " must be a folder relative to the device file, got " + Excerpts.quoted(v.text()));
         }
         return s;
     }

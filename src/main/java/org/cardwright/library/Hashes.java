@@ -25,7 +25,20 @@ final class Hashes {
         return sha256(text.getBytes(StandardCharsets.UTF_8));
     }
 
+    /** The digest of a file, read in blocks: memory stays small whatever the file's size. */
     static String sha256(Path file) throws IOException {
-        return sha256(Files.readAllBytes(file));
+        MessageDigest digest;
+        try {
+            digest = MessageDigest.getInstance("SHA-256");
+        } catch (NoSuchAlgorithmException e) {
+            throw new IllegalStateException("this Java runtime has no SHA-256", e);
+        }
+        byte[] block = new byte[1 << 16];
+        try (java.io.InputStream in = Files.newInputStream(file)) {
+            for (int n = in.read(block); n >= 0; n = in.read(block)) {
+                digest.update(block, 0, n);
+            }
+        }
+        return HexFormat.of().formatHex(digest.digest());
     }
 }

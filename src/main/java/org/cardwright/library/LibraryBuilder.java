@@ -38,10 +38,22 @@ public final class LibraryBuilder {
 
     private final boolean replaceEdited;
     private final FileWriting files;
+    private boolean allowOutsideRoot;
+    /** The whole library, read before the first part is built: model names and inputs across parts. */
+    private LibraryInventory inventory;
 
     /** @param replaceEdited replace cards edited by hand (the build refuses them otherwise) */
     public LibraryBuilder(boolean replaceEdited) {
         this(replaceEdited, OutputFiles::writeAtomically);
+    }
+
+    /**
+     * @param replaceEdited    replace cards edited by hand (the build refuses them otherwise)
+     * @param allowOutsideRoot let device files name data, card and template folders outside the library root
+     */
+    public LibraryBuilder(boolean replaceEdited, boolean allowOutsideRoot) {
+        this(replaceEdited, OutputFiles::writeAtomically);
+        this.allowOutsideRoot = allowOutsideRoot;
     }
 
     LibraryBuilder(boolean replaceEdited, FileWriting files) {
@@ -56,6 +68,7 @@ public final class LibraryBuilder {
      */
     public List<PartOutcome> build(Path root, Consumer<String> progress) throws IOException {
         List<Path> devices = LibraryPaths.deviceFiles(root);
+        inventory = LibraryInventory.of(root, devices, allowOutsideRoot);
         List<PartOutcome> out = new ArrayList<>();
         int width = Integer.toString(devices.size()).length();
         for (int i = 0; i < devices.size(); i++) {
@@ -85,11 +98,18 @@ public final class LibraryBuilder {
         String name = LibraryPaths.display(root, device);
         DeviceFile part;
         try {
-            part = new DeviceFileReader().read(device);
+            part = new DeviceFileReader(root, allowOutsideRoot).read(device);
         } catch (DeviceFileException e) {
             return failed(name, device.getFileName().toString(), PartOutcome.Status.BAD_INPUT, e.getMessage(), start);
         }
         try {
+            if (inventory != null) {
+                Optional<DeviceFileException> clash = inventory.clash(device);
+                if (clash.isPresent()) {
+                    return failed(name, part.model(), PartOutcome.Status.BAD_INPUT, clash.get().getMessage(), start);
+                }
+                inventory.plan(part).check();
+            }
             Recipe recipe = Recipe.of(part);
             Optional<BuildState> state;
             try {

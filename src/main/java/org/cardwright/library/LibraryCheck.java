@@ -26,6 +26,7 @@ import org.cardwright.workflow.VerifyWorkflow;
 public final class LibraryCheck {
     private final String engine;
     private final boolean allowStale;
+    private boolean allowOutsideRoot;
 
     /**
      * @param engine     engine name for the re-simulation (builtin, ngspice)
@@ -36,11 +37,23 @@ public final class LibraryCheck {
         this.allowStale = allowStale;
     }
 
+    /**
+     * @param engine           engine name for the re-simulation (builtin, ngspice)
+     * @param allowStale       let stale cards pass when they reproduce the data
+     * @param allowOutsideRoot let device files name data and card folders outside the library root
+     */
+    public LibraryCheck(String engine, boolean allowStale, boolean allowOutsideRoot) {
+        this(engine, allowStale);
+        this.allowOutsideRoot = allowOutsideRoot;
+    }
+
     /** Checks every card under {@code root}; {@code progress} receives one line per card. */
     public List<CardCheck> check(Path root, Consumer<String> progress) throws IOException {
         List<CardCheck> out = new ArrayList<>();
-        for (Path device : LibraryPaths.deviceFiles(root)) {
-            for (CardCheck c : checkPart(root, device)) {
+        List<Path> devices = LibraryPaths.deviceFiles(root);
+        LibraryInventory inventory = LibraryInventory.of(root, devices, allowOutsideRoot);
+        for (Path device : devices) {
+            for (CardCheck c : checkPart(root, device, inventory)) {
                 out.add(c);
                 progress.accept(line(c));
             }
@@ -54,14 +67,18 @@ public final class LibraryCheck {
                 + (c.message().isEmpty() ? "" : ": " + c.message());
     }
 
-    private List<CardCheck> checkPart(Path root, Path device) {
+    private List<CardCheck> checkPart(Path root, Path device, LibraryInventory inventory) {
         String name = LibraryPaths.display(root, device);
         long start = System.nanoTime();
         DeviceFile part;
         Recipe recipe;
         Optional<BuildState> state;
         try {
-            part = new DeviceFileReader().read(device);
+            part = new DeviceFileReader(root, allowOutsideRoot).read(device);
+            Optional<DeviceFileException> clash = inventory.clash(device);
+            if (clash.isPresent()) {
+                throw clash.get();
+            }
             recipe = Recipe.of(part);
             state = BuildState.read(part.statePath());
         } catch (IOException e) {

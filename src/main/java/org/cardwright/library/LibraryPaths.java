@@ -11,7 +11,11 @@ public final class LibraryPaths {
     private LibraryPaths() {
     }
 
-    /** Every device file under {@code root}, sorted by their root-relative names; hidden folders are skipped. */
+    /**
+     * Every device file under {@code root}, sorted by their root-relative names; hidden folders are skipped. Every
+     * entry whose name ends with {@link DeviceFileReader#SUFFIX} is listed, whatever it is (a folder, a link to
+     * nothing, a FIFO), so that reading it reports it rather than passing over it.
+     */
     public static List<Path> deviceFiles(Path root) throws IOException {
         if (!Files.isDirectory(root)) {
             throw new IOException(root + ": not a folder");
@@ -19,7 +23,7 @@ public final class LibraryPaths {
         Path r = root.toAbsolutePath().normalize();
         try (Stream<Path> walk = Files.walk(r)) {
             return walk.filter(p -> p.getFileName().toString().endsWith(DeviceFileReader.SUFFIX))
-                    .filter(Files::isRegularFile)
+                    .filter(p -> !p.equals(r))
                     .filter(p -> !hidden(r, p))
                     .sorted((a, b) -> display(r, a).compareTo(display(r, b)))
                     .toList();

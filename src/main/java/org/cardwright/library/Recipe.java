@@ -29,8 +29,12 @@ public record Recipe(String text, String sha256) {
         sb.append(part.canonicalSettings());
         for (DataSource s : part.data()) {
             Path p = s.resolve(part.folder());
+            if (Files.exists(p) && !Files.isRegularFile(p)) {
+                throw new DeviceFileException(part.path(), s.line(), "data file " + org.cardwright.card.Excerpts.quoted(s.file())
+                        + " is not a regular file (a folder, FIFO or device); refused");
+            }
             if (!Files.isRegularFile(p)) {
-                throw new DeviceFileException(part.path(), s.line(), "data file not found: '" + s.file() + "'");
+                throw new DeviceFileException(part.path(), s.line(), "data file not found: " + org.cardwright.card.Excerpts.quoted(s.file()));
             }
             sb.append("data-sha256 ").append(s.file()).append(' ').append(Hashes.sha256(p)).append('\n');
         }
@@ -44,8 +48,21 @@ public record Recipe(String text, String sha256) {
     /** The template the card writer will use for {@code d}: the part's template folder first, then the bundled one. */
     private static byte[] templateBytes(DeviceFile part, Dialect d) throws IOException {
         if (part.templates().isPresent()) {
-            Path own = part.folder().resolve(part.templates().get()).resolve(d.templateFileName());
-            if (Files.isRegularFile(own)) {
+            Path folder = part.folder().resolve(part.templates().get());
+            Path own = folder.resolve(d.templateFileName());
+            if (Files.exists(own, java.nio.file.LinkOption.NOFOLLOW_LINKS)) {
+                // the same rules as the card writer's: a regular file of bounded size, inside its folder
+                String shown = own.toString().replace('\\', '/');
+                if (!Files.exists(own) || !own.toRealPath().startsWith(folder.toRealPath())) {
+                    throw new IOException(shown + ": leads outside the template folder, or nowhere; refused");
+                }
+                if (!Files.isRegularFile(own)) {
+                    throw new IOException(shown + ": not a regular file; refused");
+                }
+                if (Files.size(own) > org.cardwright.card.CardWriter.MAX_TEMPLATE_BYTES) {
+                    throw new IOException(shown + ": more than " + org.cardwright.card.CardWriter.MAX_TEMPLATE_BYTES
+                            + " bytes, the limit for a template; refused");
+                }
                 return Files.readAllBytes(own);
             }
         }

@@ -47,12 +47,38 @@ public record TweakReport(String model, String tweak, String parameter, String f
      * there (never into the library's own card folder: the library's cards are made by build).
      */
     public static TweakReport run(Path deviceFile, Tweak tweak, Optional<Path> out, boolean force) throws Exception {
-        DeviceFile part = new DeviceFileReader().read(deviceFile).withTweak(Optional.of(tweak));
+        return run(deviceFile, tweak, out, force, Optional.empty(), false);
+    }
+
+    /**
+     * As {@link #run(Path, Tweak, Optional, boolean)}, with the paths of the device file confined to {@code root}
+     * (default: the device file's folder; {@code libraryRootOption}) unless {@code allowOutsideRoot}. The tweaked cards are checked, after
+     * symbolic links are resolved, against every file the tweak reads and against the library's own cards and
+     * build record, which no {@code --out} folder and no {@code --force} may replace.
+     */
+    public static TweakReport run(Path deviceFile, Tweak tweak, Optional<Path> out, boolean force, Optional<Path> libraryRootOption,
+                                  boolean allowOutsideRoot) throws Exception {
+        Path libraryRoot = libraryRootOption.orElseGet(() -> {
+            Path parent = deviceFile.toAbsolutePath().normalize().getParent();
+            return parent == null ? Path.of("/") : parent;
+        });
+        DeviceFile part = new DeviceFileReader(libraryRoot, allowOutsideRoot).read(deviceFile).withTweak(Optional.of(tweak));
         Path root = part.folder();
-        if (out.isPresent() && out.get().toAbsolutePath().normalize().equals(part.cardFolder())) {
+        if (out.isPresent() && org.cardwright.workflow.OutputPlan.located(out.get())
+                .equals(org.cardwright.workflow.OutputPlan.located(part.cardFolder()))) {
             throw new OutputException(out.get() + " is the library's card folder, whose cards build makes; to keep the tweak, "
                     + "add it to " + deviceFile.getFileName() + " (tweak: set: " + tweak.text().replaceAll(" \\(.*", "")
                     + ") and run cardwright build, or choose another --out folder");
+        }
+        if (out.isPresent()) {
+            org.cardwright.workflow.OutputPlan plan = new org.cardwright.workflow.OutputPlan().input("the device file", deviceFile);
+            part.data().forEach(s -> plan.input("data file", s.resolve(part.folder())));
+            LibraryInventory.templates(part).forEach(t -> plan.input("template", t));
+            LibraryInventory.outputs(part).forEach(p -> plan.protect("the library's own " + p.getFileName(), p));
+            for (org.cardwright.card.Dialect d : part.dialects()) {
+                plan.output("the tweaked " + d.shortName() + " card", out.get().resolve(part.cardPath(d).getFileName()));
+            }
+            plan.check();
         }
         Tweaker.Result r = new Tweaker().apply(part, root, Recipe.of(part), tweak);
         List<CardCost> costs = new ArrayList<>();

@@ -62,6 +62,13 @@ public final class FitWorkflow {
         List<Path> targets = new ArrayList<>();
         request.dialects().forEach(d -> targets.add(request.cardPath(d)));
         request.json().ifPresent(targets::add);
+        OutputPlan plan = new OutputPlan().inputs("data file", request.data());
+        for (Dialect d : request.dialects()) {
+            request.templates().ifPresent(t -> plan.input("template", t.resolve(d.templateFileName())));
+            plan.output("the " + d.shortName() + " card", request.cardPath(d));
+        }
+        request.json().ifPresent(j -> plan.output("--json", j));
+        plan.check();
         OutputFiles.checkWritable(targets, request.force());
 
         ReadOptions options = request.readOptions();
@@ -264,8 +271,9 @@ public final class FitWorkflow {
             lines.add(d.shortName() + " cannot carry " + leftOut.stream().map(Param::keyword).collect(Collectors.joining(" "))
                     + ": refitted without; worst RMS residual " + forCard.costAgainst(full));
         }
-        lines.add("verify, from this card's folder: cardwright verify " + request.cardPath(d).getFileName() + " "
-                + request.data().stream().map(p -> relative(home, p)).collect(Collectors.joining(" "))
+        // every file name shell-quoted: a data file called "x;rm -rf ~" or "$(...)" runs nothing when pasted
+        lines.add("verify, from this card's folder: cardwright verify " + ShellWords.quote(request.cardPath(d).getFileName().toString()) + " "
+                + request.data().stream().map(p -> ShellWords.quote(relative(home, p))).collect(Collectors.joining(" "))
                 + verifyOptions(request, d));
         return lines;
     }

@@ -60,6 +60,8 @@ public final class VerifyWorkflow {
     public JunctionVerification runAll(VerifyRequest request, Function<JunctionVerification, String> jsonRenderer)
             throws DataFileException, SimulationException, OutputException, IOException {
         if (request.json().isPresent()) {
+            new OutputPlan().input("the card", request.card()).inputs("data file", request.data())
+                    .output("--json", request.json().get()).check();
             OutputFiles.checkWritable(List.of(request.json().get()), request.force());
         }
         ParsedCard parsed = new CardReader().read(request.card(), Inputs.displayName(request.card()),

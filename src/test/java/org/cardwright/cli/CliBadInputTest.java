@@ -161,7 +161,7 @@ class CliBadInputTest {
         CliRun run = CliRun.of("fit", csv.get(0).toString(), csv.get(1).toString(), "--name", "TP",
                 "--out", out.toString(), "--templates", templates.toString());
         assertEquals(ExitCodes.BAD_INPUT, run.exitCode(), run.describe());
-        assertTrue(oneErrorLine(run).startsWith("cardwright: spice3.ftl:"), run.err());
+        assertTrue(oneErrorLine(run).startsWith("cardwright: " + templates.resolve("spice3.ftl") + ":"), run.err());
         assertNothingWritten(out); // the ngspice card rendered first, but nothing is written unless all succeed
     }
 
