@@ -196,16 +196,12 @@ public final class CardWriter {
                         + Excerpts.quoted(keyword) + "; a card holds one .model statement and comments only", null);
             }
         }
-        List<ParsedCard> cards;
+        ParsedCard got;
         try {
-            cards = reader.parseAll(text, "card", dialect);
+            got = reader.parse(text, "card", dialect);
         } catch (CardFormatException e) {
             throw new CardTemplateException(refused + "it does not read back as a card (" + Excerpts.of(e.getMessage(), MESSAGE_CHARS) + ")", e);
         }
-        if (cards.size() != 1) {
-            throw new CardTemplateException(refused + "it holds " + cards.size() + " .model statements; a card holds one", null);
-        }
-        ParsedCard got = cards.get(0);
         if (!got.name().equals(name)) {
             throw new CardTemplateException(refused + "its model name is " + Excerpts.quoted(got.name()) + ", not "
                     + Excerpts.quoted(name), null);
