@@ -89,7 +89,7 @@ public final class JunctionExtraction {
                 all.addAll(r.warnings());
                 return new FitResult(r.parameters(), r.fitted(), r.correlations(), r.chiSquare(), r.reducedChiSquare(),
                         r.points(), r.degreesOfFreedom(), r.evaluations(), r.iterations(), r.stopReason(), r.residuals(),
-                        r.otherResiduals(), r.terms(), all);
+                        r.otherResiduals(), r.terms(), all, r.shunt());
             }
             // a resistor between the terminals (surface leakage, a cell's shunt) is decided like the optional terms
             shunt = ShuntTerm.consider(settings, forward, st, data.forward(), ReverseAnalysis.split(data.reverse()).leakage());

@@ -30,16 +30,13 @@ import org.cardwright.model.TemperatureLaws;
  * section 2.5):
  *
  * <ol>
- *   <li>A score (Lagrange-multiplier) test at G = 0 on the forward stage's residuals (Rao, "Large sample tests
- *       of statistical hypotheses concerning several parameters with applications to problems of estimation",
- *       Proc. Cambridge Philos. Soc. 44 (1948) 50-57; citation recalled): the column h = dV/dG, which is
- *       −V·(1 + RS·g)/g at each point, made orthogonal to the fitted parameters' columns, bounds how much of
- *       the residual sum a shunt could remove. If even that cannot lower the Bayesian information criterion by
- *       more than {@link ForwardExtraction#BIC_THRESHOLD}, the shunt is not tried.</li>
- *   <li>Otherwise the forward stage runs again, term selection included, on the junction's share of each
+ *   <li>It is tried unless the plain forward stage already fits to the residual floor (then nothing can lower
+ *       the criterion). The start is the slope of the reverse leakage the junction does not explain, else half of
+ *       the smallest forward point's I/V.</li>
+ *   <li>The forward stage runs again, term selection included, on the junction's share of each
  *       point's current (I − G·V, kept where the junction carries at least {@value #JUNCTION_SHARE} of it), and
  *       a joint Levenberg-Marquardt fit then moves the junction's free parameters and ln R together against
- *       the forward points and the reverse leakage below breakdown (both see the resistor). Two such rounds at
+ *       the forward points and the reverse leakage below breakdown (both see the resistor). Three such rounds at
  *       most, until G settles.</li>
  *   <li>The shunt goes in when the BIC on the forward points (the same form and floor as the other terms,
  *       with one parameter more) falls by more than the threshold against the plain forward stage, and the
@@ -97,13 +94,17 @@ final class ShuntTerm {
     static ShuntTerm consider(FitSettings settings, ForwardExtraction forward, ForwardExtraction.Stage plain,
                               List<FitPoint> points, List<ReversePoint> leakage) {
         DiodeParameters p0 = plain.run().parameters();
+        boolean forced = settings.shunt() == FitSettings.ShuntChoice.ON;
+        if (settings.shunt() == FitSettings.ShuntChoice.OFF) {
+            return no(plain, Double.NaN, "not tried: the full fit found none (this is a dialect refit)");
+        }
         if (p0.isGiven(Param.RTH0)) {
             return no(plain, Double.NaN, "not tried beside self-heating (RTH0): the resistor is evaluated isothermally");
         }
         int n = points.size();
         int k0 = plain.run().layout().size();
         double bic0 = bic(plain.run().rss(), n, k0);
-        if (plain.run().rss() / n <= RESIDUAL_FLOOR_SQUARED) {
+        if (!forced && plain.run().rss() / n <= RESIDUAL_FLOOR_SQUARED) {
             return no(plain, Double.NaN, "the forward data are fitted to the residual floor without it");
         }
         // start: the slope of the leakage the junction does not explain, else half the smallest forward point's I/V
@@ -149,12 +150,12 @@ final class ShuntTerm {
         FitPoint low = points.stream().min(Comparator.comparingDouble(FitPoint::current)).orElseThrow();
         double share = g * low.voltage() / low.current();
         double resistance = 1 / g;
-        if (share < CURRENT_SHARE) {
+        if (!forced && share < CURRENT_SHARE) {
             return no(plain, delta, String.format(Locale.ROOT,
                     "the fitted resistor (%s ohm) would carry only %.1f %% of the smallest measured current (%s A): too little to determine it",
                     num(resistance), 100 * share, num(low.current())));
         }
-        if (!(delta < -ForwardExtraction.BIC_THRESHOLD)) {
+        if (!forced && !(delta < -ForwardExtraction.BIC_THRESHOLD)) {
             return no(plain, delta, String.format(Locale.ROOT,
                     "not warranted: BIC changed by %+.1f (needs below -%.0f)", delta, ForwardExtraction.BIC_THRESHOLD));
         }
@@ -166,8 +167,10 @@ final class ShuntTerm {
         ForwardExtraction.Stage shunted = new ForwardExtraction.Stage(joint.run(), blocks, corrected.decisions(),
                 corrected.warnings(), corrected.start());
         TermDecision d = new TermDecision(TERM, List.of(), true, delta, String.format(Locale.ROOT,
-                "BIC fell by %.1f (threshold %.0f); %s ohm between the terminals, fitted with %d forward and %d leakage points",
-                -delta, ForwardExtraction.BIC_THRESHOLD, num(resistance), n, leakage.size()));
+                "%s; %s ohm between the terminals, fitted with %d forward and %d leakage points",
+                forced ? "carried because the full fit found it (this is a dialect refit)"
+                        : String.format(Locale.ROOT, "BIC fell by %.1f (threshold %.0f)", -delta, ForwardExtraction.BIC_THRESHOLD),
+                num(resistance), n, leakage.size()));
         return new ShuntTerm(true, shunted, d, g);
     }
 

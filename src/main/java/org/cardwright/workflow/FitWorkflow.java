@@ -104,7 +104,9 @@ public final class FitWorkflow {
                 }
                 // the card is fitted with the equations of the simulator that will read it
                 FitSettings target = settings.withRules(rules).withOptions(
-                        new org.cardwright.model.SimulatorOptions(settings.options().gmin(), settings.options().reltol(), d.flavour()));
+                        new org.cardwright.model.SimulatorOptions(settings.options().gmin(), settings.options().reltol(), d.flavour()))
+                        // the full fit decided the resistor between the terminals; a refit carries it or not alike
+                        .withShunt(full.shunt().isPresent() ? FitSettings.ShuntChoice.ON : FitSettings.ShuntChoice.OFF);
                 forCard = extract(target, request, data);
                 refit = Optional.of(forCard);
             }

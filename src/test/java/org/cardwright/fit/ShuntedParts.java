@@ -17,14 +17,21 @@ import org.cardwright.model.TemperatureLaws;
  * ({@link ShuntedJunction}), optionally with seeded Gaussian noise.
  *
  * <p>The resistors span 10 kOhm to 10 MOhm; each part's forward sweep starts where its resistor carries most
- * of the current (the shunt is visible), and runs to a current where the series resistance shows, 8 points a
+ * of the current (the shunt is visible), and runs to a current where the series resistance shows, 12 points a
  * decade. Reverse leakage is taken at forced voltages from -0.5 V to -10 V.
  */
 final class ShuntedParts {
-    /** Forward voltage noise: 0.15 mV + 0.02 % of reading (the instrument noise of issue 2) [V]. */
-    static final double FORWARD_NOISE = 0.15e-3;
+    /**
+     * Forward voltage noise, 1 sigma: one count of a 4.5-digit meter on its 2 V range, the meter issue 9 names for
+     * its corpus (common practice, no source; conservative against the 0.029 mV of half-count quantization) [V].
+     */
+    static final double FORWARD_NOISE = 0.1e-3;
+    /** Reverse voltage noise, 1 sigma: one count of the same meter on its 20 V range [V]. */
+    static final double REVERSE_NOISE = 1e-3;
     /** Relative current noise, 0.1 % (issue 2) [1]. */
     static final double CURRENT_NOISE = 1e-3;
+    /** Forward points per decade of current, a source-measure unit's log sweep. */
+    static final int PER_DECADE = 12;
 
     /** One invented part. */
     record Part(String name, DiodeParameters junction, double shunt, double[] celsius, double lowCurrent,
@@ -85,7 +92,7 @@ final class ShuntedParts {
         return new Part(name, junction, shunt, celsius, low, 0.1);
     }
 
-    /** Forward points of {@code part}, 8 a decade, at each temperature. */
+    /** Forward points of {@code part}, {@value #PER_DECADE} a decade, at each temperature. */
     static List<FitPoint> forward(Part part, long seed, boolean noisy) {
         Random rnd = new Random(seed);
         List<FitPoint> out = new ArrayList<>();
@@ -93,12 +100,12 @@ final class ShuntedParts {
         for (double c : part.celsius()) {
             double t = c + 273.15;
             DiodeAtTemperature d = TemperatureLaws.at(part.junction(), t, SimulatorOptions.NGSPICE_DEFAULTS);
-            int steps = (int) Math.round(8 * Math.log10(part.highCurrent() / part.lowCurrent()));
+            int steps = (int) Math.round(PER_DECADE * Math.log10(part.highCurrent() / part.lowCurrent()));
             for (int k = 0; k <= steps; k++) {
                 double i = part.lowCurrent() * Math.pow(part.highCurrent() / part.lowCurrent(), k / (double) steps);
                 double v = ShuntedJunction.voltageAtCurrent(d, i, part.shunted() ? 1 / part.shunt() : 0);
                 if (noisy) {
-                    v += rnd.nextGaussian() * (FORWARD_NOISE + 2e-4 * Math.abs(v));
+                    v += rnd.nextGaussian() * FORWARD_NOISE;
                     i *= 1 + CURRENT_NOISE * rnd.nextGaussian();
                 }
                 out.add(new FitPoint(i, v, t, 1e-3, part.name() + ".csv", line++));
@@ -119,7 +126,7 @@ final class ShuntedParts {
                 double i = ShuntedJunction.currentAtVoltage(d, v, part.shunted() ? 1 / part.shunt() : 0);
                 double vm = v;
                 if (noisy) {
-                    vm += rnd.nextGaussian() * (1e-3 + 2e-4 * Math.abs(v));
+                    vm += rnd.nextGaussian() * REVERSE_NOISE;
                     i *= 1 + CURRENT_NOISE * rnd.nextGaussian();
                 }
                 out.add(new ReversePoint(vm, i, t, 1e-3 + 2e-4 * Math.abs(vm), part.name() + ".csv", line++));
