@@ -137,6 +137,39 @@ class ShuntedCardWorkflowTest {
     }
 
     @Test
+    void theGnucapSubcircuitLoadsInGnucapWithoutWarningAndReproducesTheData() throws Exception {
+        SimulatorProcess gnucap = new SimulatorProcess(SimulatorProcess.Kind.GNUCAP, Simulators.requireGnucap(), TIMEOUT);
+        String file = Files.readString(out.resolve("SHX.shunted.gnucap.lib"));
+        String title = "the written gnucap subcircuit, verbatim";
+        StringBuilder sb = new StringBuilder(title).append("\nI1 0 a dc 0\nX1 a 0 ")
+                .append(ShuntedCard.subcircuitName("SHX")).append('\n').append(file);
+        sb.append(".options numdgt=15 reltol=1e-6 vntol=1e-9 abstol=1e-16 floor=1e-99 vfloor=1e-99\n.print op v(a)\n");
+        for (double i : forwardCurrents) {
+            sb.append(String.format(Locale.ROOT, ".modify I1=%.17g%n.op 27%n", i));
+        }
+        sb.append(".end\n");
+        // runClean fails on any warning gnucap prints; every line after the title is a header or a result row
+        SimulatorProcess.Run run = gnucap.runClean(sb.toString(), Simulators.tempDir("shunted-gnucap"));
+        List<String> lines = run.result().stdout().lines().map(String::strip).toList();
+        List<Double> v = new ArrayList<>();
+        for (String line : lines.subList(lines.indexOf(title) + 1, lines.size())) {
+            if (line.isEmpty() || line.startsWith("#")) {
+                continue;
+            }
+            String[] f = line.split("\\s+");
+            assertEquals(2, f.length, "a result row, not a message: " + line);
+            v.add(Double.parseDouble(f[1]));
+        }
+        assertEquals(forwardCurrents.length, v.size(), "one row per operating point");
+        double worst = 0;
+        for (int k = 0; k < v.size(); k++) {
+            worst = Math.max(worst, Math.abs(v.get(k) - forwardVolts[k]));
+        }
+        System.out.printf(Locale.ROOT, "gnucap subcircuit vs ngspice data: worst %.3g V over %d points%n", worst, v.size());
+        assertTrue(worst < NOISE_FREE_MAX_RESIDUAL, "worst " + worst + " V");
+    }
+
+    @Test
     void verifyPassesTheSubcircuitWithEveryEngineAndFailsTheJunctionAlone() throws Exception {
         Simulators.requireGnucap();
         String fwd = dir.resolve("shx-forward.csv").toString();
