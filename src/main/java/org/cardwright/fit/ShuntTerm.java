@@ -53,7 +53,9 @@ final class ShuntTerm {
     static final double CURRENT_SHARE = ForwardExtraction.RECOMBINATION_SHARE;
     /** Physical limits of the resistance [ohm]: a milliohm (a short) to a petaohm (an insulator). */
     static final double[] BOUNDS = {1e-3, 1e15};
-    /** Joint rounds at most; the second starts from the first's G. */
+    /** Starts for G as fractions of the smallest forward point's I/V (an upper bound of G) [1]. */
+    private static final double[] START_FRACTIONS = {0.9, 0.5, 0.2};
+    /** Joint rounds at most; each after the first starts from the previous one's G. */
     private static final int ROUNDS = 3;
     /** G has settled when a round moves it by less than this, relative [1]. */
     private static final double SETTLED = 1e-3;
@@ -107,35 +109,62 @@ final class ShuntTerm {
         if (!forced && plain.run().rss() / n <= RESIDUAL_FLOOR_SQUARED) {
             return no(plain, Double.NaN, "the forward data are fitted to the residual floor without it");
         }
-        // start: the slope of the leakage the junction does not explain, else half the smallest forward point's I/V
+        // G is at most the smallest forward point's I/V: the junction carries the rest of that current
         double ceiling = Double.POSITIVE_INFINITY;
         for (FitPoint pt : points) {
             if (pt.voltage() > 0) {
                 ceiling = Math.min(ceiling, pt.current() / pt.voltage());
             }
         }
-        double fromLeakage = leakageSlope(leakage, p0, settings);
-        double g = Double.isFinite(fromLeakage) && fromLeakage > 0 ? Math.min(fromLeakage, 0.9 * ceiling) : 0.5 * ceiling;
-        if (!(g > 0) || !Double.isFinite(g)) {
+        if (!(ceiling > 0) || !Double.isFinite(ceiling)) {
             return no(plain, Double.NaN, "no forward point at a positive voltage to start from");
         }
-
-        ForwardExtraction.Stage corrected = plain;
+        // several principled starts, each taken one round, the best by the fit's own cost then refined: the
+        // leakage's slope; the smallest forward point's I/V (an upper bound of G, met where the resistor carries
+        // nearly all of that current), and fractions of it for a resistor the junction shares that point with
+        List<Double> starts = new ArrayList<>();
+        double fromLeakage = leakageSlope(leakage, p0, settings);
+        if (Double.isFinite(fromLeakage) && fromLeakage > 0) {
+            starts.add(Math.min(fromLeakage, START_FRACTIONS[0] * ceiling));
+        }
+        for (double f : START_FRACTIONS) {
+            starts.add(f * ceiling);
+        }
         Joint joint = null;
-        for (int round = 0; round < ROUNDS; round++) {
-            corrected = correctedStage(forward, points, g, plain);
-            List<ResidualBlock> blocks = new ArrayList<>();
-            blocks.add(new ForwardBlock(points, settings.options(), g));
-            if (!leakage.isEmpty()) {
-                blocks.add(new ShuntLeakageBlock(leakage, settings.options(), g));
-            }
+        ForwardExtraction.Stage corrected = plain;
+        for (double start : starts) {
+            ForwardExtraction.Stage c = correctedStage(forward, points, start, plain);
             try {
-                joint = fit(blocks, corrected.run().parameters(), corrected.run().layout().free(), forward::bounds, g);
+                Joint j = fit(shuntBlocks(points, leakage, settings, start), c.run().parameters(), c.run().layout().free(),
+                        forward::bounds, start);
+                if (joint == null || j.run().rss() < joint.run().rss()) {
+                    joint = j;
+                    corrected = c;
+                }
             } catch (RuntimeException e) {
-                return no(plain, Double.NaN, "could not be fitted to this data");
+                // this start does not converge; the others may
             }
-            boolean settled = Math.abs(Math.log(joint.conductance() / g)) < SETTLED;
-            g = joint.conductance();
+        }
+        if (joint == null) {
+            return no(plain, Double.NaN, "could not be fitted to this data");
+        }
+        double g = joint.conductance();
+        for (int round = 1; round < ROUNDS; round++) {
+            ForwardExtraction.Stage c = correctedStage(forward, points, g, plain);
+            Joint j;
+            try {
+                j = fit(shuntBlocks(points, leakage, settings, g), c.run().parameters(), c.run().layout().free(),
+                        forward::bounds, g);
+            } catch (RuntimeException e) {
+                break;
+            }
+            if (j.run().rss() > joint.run().rss()) {
+                break;
+            }
+            boolean settled = Math.abs(Math.log(j.conductance() / g)) < SETTLED;
+            joint = j;
+            corrected = c;
+            g = j.conductance();
             if (settled) {
                 break;
             }
@@ -172,6 +201,16 @@ final class ShuntTerm {
                         : String.format(Locale.ROOT, "BIC fell by %.1f (threshold %.0f)", -delta, ForwardExtraction.BIC_THRESHOLD),
                 num(resistance), n, leakage.size()));
         return new ShuntTerm(true, shunted, d, g);
+    }
+
+    private static List<ResidualBlock> shuntBlocks(List<FitPoint> points, List<ReversePoint> leakage, FitSettings settings,
+                                                   double g) {
+        List<ResidualBlock> blocks = new ArrayList<>();
+        blocks.add(new ForwardBlock(points, settings.options(), g));
+        if (!leakage.isEmpty()) {
+            blocks.add(new ShuntLeakageBlock(leakage, settings.options(), g));
+        }
+        return blocks;
     }
 
     private static ShuntTerm no(ForwardExtraction.Stage plain, double delta, String reason) {
