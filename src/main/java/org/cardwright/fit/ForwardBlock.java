@@ -193,6 +193,26 @@ final class ForwardBlock implements ResidualBlock {
         return jac;
     }
 
+    /**
+     * d(weighted residual)/d(ln R) of every point, R = 1/G the resistor between the terminals: at fixed current,
+     * dvd/dG = -V/(g·(1 + G·RS) + G) and dV/dG = dvd/dG·(1 + RS·g); d/d(ln R) = -G·d/dG.
+     */
+    double[] shuntColumn(DiodeParameters p) {
+        DiodeAtTemperature[] at = scaled(p);
+        double[] vds = junctionVoltages(p, at);
+        double[] out = new double[points.length];
+        for (int i = 0; i < out.length; i++) {
+            DiodeAtTemperature d = at[group[i]];
+            double vd = vds[i];
+            double g = JunctionCurrent.conductance(d, vd);
+            double rs = d.seriesResistance();
+            double v = vd + rs * JunctionCurrent.current(d, vd);
+            double dvdG = -v / (g * (1 + shunt * rs) + shunt) * (1 + rs * g);
+            out[i] = -shunt * dvdG / points[i].sigma();
+        }
+        return out;
+    }
+
     /** The conductance between the terminals, 0 for none [S]. */
     double shunt() {
         return shunt;

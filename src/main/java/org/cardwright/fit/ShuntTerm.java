@@ -53,6 +53,16 @@ final class ShuntTerm {
     static final double CURRENT_SHARE = ForwardExtraction.RECOMBINATION_SHARE;
     /** Physical limits of the resistance [ohm]: a milliohm (a short) to a petaohm (an insulator). */
     static final double[] BOUNDS = {1e-3, 1e15};
+    /**
+     * The screening fit keeps R below this many times 1/(the smallest forward I/V): there the resistor carries
+     * about 1 % of that current, a tenth of what {@link #CURRENT_SHARE} asks, so a fit that runs to this bound has
+     * found no resistor in the data, and stops there instead of creeping towards an insulator [1].
+     */
+    private static final double SCREEN_REACH = 100;
+    /** Relative tolerances of the screening fits: they decide and start, the final fits refine [1]. */
+    private static final double SCREEN_TOLERANCE = 1e-8;
+    /** Relative tolerances of the final fits, as the optimiser's (docs/fitting.md, section 2.2) [1]. */
+    private static final double FINAL_TOLERANCE = 1e-13;
     /** Starts for G as fractions of the smallest forward point's I/V (an upper bound of G) [1]. */
     private static final double[] START_FRACTIONS = {0.9, 0.5, 0.2};
     /** Joint rounds at most; each after the first starts from the previous one's G. */
@@ -130,26 +140,41 @@ final class ShuntTerm {
         for (double f : START_FRACTIONS) {
             starts.add(f * ceiling);
         }
-        Joint joint = null;
-        ForwardExtraction.Stage corrected = plain;
+        // screening: the plain stage's terms with the resistor added, from every start (no new term selection, so
+        // it is cheap). That model holds the refined one below (same or more terms), so if even it cannot lower the
+        // criterion, or its resistor does not act inside the data, the resistor stays out
+        Joint screen = null;
         for (double start : starts) {
-            ForwardExtraction.Stage c = correctedStage(forward, points, start, plain);
             try {
-                Joint j = fit(shuntBlocks(points, leakage, settings, start), c.run().parameters(), c.run().layout().free(),
-                        forward::bounds, start);
-                if (joint == null || j.run().rss() < joint.run().rss()) {
-                    joint = j;
-                    corrected = c;
+                Joint j = fit(shuntBlocks(points, leakage, settings, start), p0, plain.run().layout().free(),
+                        forward::bounds, start, forced ? BOUNDS[1] : SCREEN_REACH / ceiling, SCREEN_TOLERANCE);
+                if (screen == null || j.run().rss() < screen.run().rss()) {
+                    screen = j;
                 }
             } catch (RuntimeException e) {
                 // this start does not converge; the others may
             }
         }
-        if (joint == null) {
+        if (screen == null) {
             return no(plain, Double.NaN, "could not be fitted to this data");
         }
-        double g = joint.conductance();
-        for (int round = 1; round < ROUNDS; round++) {
+        if (!forced) {
+            double delta = forwardBic(screen, points, settings) - bic0;
+            String outside = outside(screen.conductance(), points);
+            if (outside != null) {
+                return no(plain, delta, outside);
+            }
+            if (!(delta < -ForwardExtraction.BIC_THRESHOLD)) {
+                return no(plain, delta, String.format(Locale.ROOT,
+                        "not warranted: BIC changed by %+.1f (needs below -%.0f)", delta, ForwardExtraction.BIC_THRESHOLD));
+            }
+        }
+        // refinement: the terms chosen again on the junction's share of the current, then the joint fit, while the
+        // criterion falls
+        Joint joint = screen;
+        ForwardExtraction.Stage corrected = plain;
+        double g = screen.conductance();
+        for (int round = 0; round < ROUNDS; round++) {
             ForwardExtraction.Stage c = correctedStage(forward, points, g, plain);
             Joint j;
             try {
@@ -158,7 +183,7 @@ final class ShuntTerm {
             } catch (RuntimeException e) {
                 break;
             }
-            if (j.run().rss() > joint.run().rss()) {
+            if (!(forwardBic(j, points, settings) < forwardBic(joint, points, settings))) {
                 break;
             }
             boolean settled = Math.abs(Math.log(j.conductance() / g)) < SETTLED;
@@ -176,13 +201,10 @@ final class ShuntTerm {
             rssForward += x * x;
         }
         double delta = bic(rssForward, n, joint.run().layout().size() + 1) - bic0;
-        FitPoint low = points.stream().min(Comparator.comparingDouble(FitPoint::current)).orElseThrow();
-        double share = g * low.voltage() / low.current();
         double resistance = 1 / g;
-        if (!forced && share < CURRENT_SHARE) {
-            return no(plain, delta, String.format(Locale.ROOT,
-                    "the fitted resistor (%s ohm) would carry only %.1f %% of the smallest measured current (%s A): too little to determine it",
-                    num(resistance), 100 * share, num(low.current())));
+        String outside = outside(g, points);
+        if (!forced && outside != null) {
+            return no(plain, delta, outside);
         }
         if (!forced && !(delta < -ForwardExtraction.BIC_THRESHOLD)) {
             return no(plain, delta, String.format(Locale.ROOT,
@@ -201,6 +223,28 @@ final class ShuntTerm {
                         : String.format(Locale.ROOT, "BIC fell by %.1f (threshold %.0f)", -delta, ForwardExtraction.BIC_THRESHOLD),
                 num(resistance), n, leakage.size()));
         return new ShuntTerm(true, shunted, d, g);
+    }
+
+    /** BIC of a joint fit on the forward points alone, with the resistor counted as a parameter. */
+    private static double forwardBic(Joint j, List<FitPoint> points, FitSettings settings) {
+        double[] rf = new ForwardBlock(points, settings.options(), j.conductance()).residuals(j.run().parameters());
+        double rss = 0;
+        for (double x : rf) {
+            rss += x * x;
+        }
+        return bic(rss, points.size(), j.run().layout().size() + 1);
+    }
+
+    /** Why a resistor of conductance {@code g} does not act inside the data, or null when it does. */
+    private static String outside(double g, List<FitPoint> points) {
+        FitPoint low = points.stream().min(Comparator.comparingDouble(FitPoint::current)).orElseThrow();
+        double share = g * low.voltage() / low.current();
+        if (share >= CURRENT_SHARE) {
+            return null;
+        }
+        return String.format(Locale.ROOT,
+                "the fitted resistor (%s ohm) would carry only %.1f %% of the smallest measured current (%s A): too little to determine it",
+                num(1 / g), 100 * share, num(low.current()));
     }
 
     private static List<ResidualBlock> shuntBlocks(List<FitPoint> points, List<ReversePoint> leakage, FitSettings settings,
@@ -270,6 +314,15 @@ final class ShuntTerm {
      */
     static Joint fit(List<ResidualBlock> blocks, DiodeParameters start, List<Param> free,
                      Function<Param, double[]> bounds, double g0) {
+        return fit(blocks, start, free, bounds, g0, BOUNDS[1], FINAL_TOLERANCE);
+    }
+
+    /**
+     * As {@link #fit(List, DiodeParameters, List, Function, double)}, with R at most {@code maxResistance} [ohm] and
+     * the optimiser's relative tolerances at {@code tolerance}.
+     */
+    static Joint fit(List<ResidualBlock> blocks, DiodeParameters start, List<Param> free,
+                     Function<Param, double[]> bounds, double g0, double maxResistance, double tolerance) {
         DiodeParameters clamped = start;
         for (Param q : free) {
             double[] b = bounds.apply(q);
@@ -285,14 +338,15 @@ final class ShuntTerm {
         FreeParameters layout = new FreeParameters(clamped, free, FreeParameters.boundsOf(free, bounds));
         int k = layout.size();
         double lo = Math.log(BOUNDS[0]);
-        double hi = Math.log(BOUNDS[1]);
+        double hi = Math.log(Math.min(BOUNDS[1], maxResistance));
         double[] x0 = java.util.Arrays.copyOf(layout.toInternal(clamped), k + 1);
         x0[k] = Math.min(hi, Math.max(lo, -Math.log(g0)));
         int rows = blocks.stream().mapToInt(ResidualBlock::size).sum();
+        BlockCache cache = new BlockCache(blocks);
         MultivariateJacobianFunction model = point -> {
             double[] x = point.toArray();
-            return new Pair<>(new ArrayRealVector(residuals(blocks, layout, x, k), false),
-                    new Array2DRowRealMatrix(jacobian(blocks, layout, x, k, rows), false));
+            return new Pair<>(new ArrayRealVector(residuals(cache, layout, x, k), false),
+                    new Array2DRowRealMatrix(jacobian(cache, layout, x, k, rows, lo, hi), false));
         };
         LeastSquaresProblem problem = new LeastSquaresBuilder()
                 .model(model)
@@ -310,9 +364,9 @@ final class ShuntTerm {
                 .lazyEvaluation(false)
                 .build();
         LevenbergMarquardtOptimizer lm = new LevenbergMarquardtOptimizer()
-                .withCostRelativeTolerance(1e-13)
-                .withParameterRelativeTolerance(1e-13)
-                .withOrthoTolerance(1e-13);
+                .withCostRelativeTolerance(tolerance)
+                .withParameterRelativeTolerance(tolerance)
+                .withOrthoTolerance(tolerance);
         LeastSquaresOptimizer.Optimum opt;
         try {
             opt = lm.optimize(problem);
@@ -325,7 +379,7 @@ final class ShuntTerm {
         double[] head = layout.clamp(java.util.Arrays.copyOf(x, k));
         x[k] = Math.min(hi, Math.max(lo, x[k]));
         DiodeParameters p = layout.toParameters(head);
-        double[] res = residuals(blocks, layout, x, k);
+        double[] res = residuals(cache, layout, x, k);
         double rss = 0;
         for (double v : res) {
             rss += v * v;
@@ -334,17 +388,37 @@ final class ShuntTerm {
         double se = Double.NaN;
         int dof = rows - (k + 1);
         if (dof > 0) {
-            RealMatrix j = new Array2DRowRealMatrix(jacobian(blocks, layout, x, k, rows), false);
+            RealMatrix j = new Array2DRowRealMatrix(jacobian(cache, layout, x, k, rows, lo, hi), false);
             SingularValueDecomposition svd = new SingularValueDecomposition(j.transpose().multiply(j));
             if (svd.getConditionNumber() <= 1e15) {
                 double var = svd.getSolver().getInverse().getEntry(k, k) * rss / dof;
                 se = resistance * Math.sqrt(Math.max(var, 0));
             }
         }
-        String stop = "converged: relative change of cost and parameters below 1e-13 after " + opt.getIterations()
+        String stop = "converged: relative change of cost and parameters below " + String.format(Locale.ROOT, "%.0e", tolerance)
+                + " after " + opt.getIterations()
                 + " iterations";
         Optimiser.Run run = new Optimiser.Run(p, layout, head, rss, opt.getEvaluations(), opt.getIterations(), stop);
         return new Joint(run, 1 / resistance, se);
+    }
+
+    /** The blocks at the last conductance asked for, so that residuals and Jacobian share their caches. */
+    private static final class BlockCache {
+        private final List<ResidualBlock> blocks;
+        private double g = Double.NaN;
+        private List<ResidualBlock> at;
+
+        BlockCache(List<ResidualBlock> blocks) {
+            this.blocks = blocks;
+        }
+
+        List<ResidualBlock> at(double conductance) {
+            if (at == null || conductance != g) {
+                at = atShunt(blocks, conductance);
+                g = conductance;
+            }
+            return at;
+        }
     }
 
     /** The blocks with the shunt set to {@code g} where they carry one. */
@@ -366,9 +440,9 @@ final class ShuntTerm {
         return (b instanceof ForwardBlock f && f.shunt() > 0) || b instanceof ShuntLeakageBlock;
     }
 
-    private static double[] residuals(List<ResidualBlock> blocks, FreeParameters layout, double[] x, int k) {
+    private static double[] residuals(BlockCache blocks, FreeParameters layout, double[] x, int k) {
         DiodeParameters p = layout.toParameters(java.util.Arrays.copyOf(x, k));
-        List<ResidualBlock> at = atShunt(blocks, Math.exp(-x[k]));
+        List<ResidualBlock> at = blocks.at(Math.exp(-x[k]));
         int rows = at.stream().mapToInt(ResidualBlock::size).sum();
         double[] out = new double[rows];
         int row = 0;
@@ -380,23 +454,27 @@ final class ShuntTerm {
         return out;
     }
 
-    private static double[][] jacobian(List<ResidualBlock> blocks, FreeParameters layout, double[] x, int k, int rows) {
+    private static double[][] jacobian(BlockCache blocks, FreeParameters layout, double[] x, int k, int rows,
+                                       double lo, double hi) {
         double[] head = java.util.Arrays.copyOf(x, k);
         DiodeParameters p = layout.toParameters(head);
         double g = Math.exp(-x[k]);
         double step = 1e-6;
-        double lo = Math.log(BOUNDS[0]);
-        double hi = Math.log(BOUNDS[1]);
         double up = Math.min(hi, x[k] + step);
         double down = Math.max(lo, x[k] - step);
         double[][] jac = new double[rows][k + 1];
         int row = 0;
-        for (ResidualBlock b : atShunt(blocks, g)) {
+        for (ResidualBlock b : blocks.at(g)) {
             double[][] part = b.jacobian(layout, head);
             for (int i = 0; i < part.length; i++) {
                 System.arraycopy(part[i], 0, jac[row + i], 0, k);
             }
-            if (carriesShunt(b) && up > down) {
+            if (b instanceof ForwardBlock f && f.shunt() > 0 && x[k] > lo && x[k] < hi) {
+                double[] col = f.shuntColumn(p);
+                for (int i = 0; i < col.length; i++) {
+                    jac[row + i][k] = col[i];
+                }
+            } else if (carriesShunt(b) && up > down) {
                 double[] rp = atShunt(List.of(b), Math.exp(-up)).get(0).residuals(p);
                 double[] rm = atShunt(List.of(b), Math.exp(-down)).get(0).residuals(p);
                 for (int i = 0; i < rp.length; i++) {

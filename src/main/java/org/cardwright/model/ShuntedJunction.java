@@ -41,16 +41,25 @@ public final class ShuntedJunction {
         double a = 1 + shunt * rs;
         double lo;
         double hi;
+        double[] ig = new double[2];
         if (current > 0) {
-            // the junction carries less than I/(1 + G·RS), so its voltage lies below the one that carries that
+            // the junction carries less than I/(1 + G·RS); the Shockley term alone carrying that sets a first upper
+            // point, raised until F is positive there (high injection can need more voltage)
             lo = 0;
-            hi = DiodeSolver.junctionVoltageAtCurrent(d, current / a);
+            double vte = d.emissionCoefficient() * d.thermalVoltage();
+            hi = Math.max(vte * Math.log1p(current / a / d.saturationCurrent()), 1e-6);
+            int guard = 0;
+            while (JunctionCurrent.current(d, hi) * a + shunt * hi < current) {
+                hi = 2 * hi + 0.1;
+                if (++guard > 200) {
+                    throw new ArithmeticException("no junction voltage carries " + current + " A");
+                }
+            }
         } else {
             hi = 0;
-            // both points leave F negative: the shunt alone carrying I, and the junction alone carrying I/a
-            lo = Math.max(current / shunt, DiodeSolver.junctionVoltageAtCurrent(d, current / a));
+            // F is negative where the shunt alone carries I, as the junction adds current of the same sign
+            lo = current / shunt;
         }
-        double[] ig = new double[2];
         double x = current > 0 ? hi : lo;
         double stepBefore = hi - lo;
         for (int iter = 0; iter < MAX_ITERATIONS; iter++) {
