@@ -31,13 +31,15 @@ import org.cardwright.model.TemperatureLaws;
  *
  * <ol>
  *   <li>It is tried unless the plain forward stage already fits to the residual floor (then nothing can lower
- *       the criterion). The start is the slope of the reverse leakage the junction does not explain, else half of
- *       the smallest forward point's I/V.</li>
- *   <li>The forward stage runs again, term selection included, on the junction's share of each
+ *       the criterion), or carries RTH0.</li>
+ *   <li>Screening: from several starts for G (fractions of the smallest forward point's I/V, an upper bound of
+ *       G; the slope of the reverse leakage the junction does not explain), a Levenberg-Marquardt fit of the
+ *       plain stage's free parameters and ln R together against the forward points and the reverse leakage below
+ *       breakdown (both see the resistor). That model holds the refined one, so if even it does not lower the
+ *       criterion, or its resistor does not act inside the data, the resistor stays out.</li>
+ *   <li>Refinement: the forward stage runs again, term selection included, on the junction's share of each
  *       point's current (I − G·V, kept where the junction carries at least {@value #JUNCTION_SHARE} of it), and
- *       a joint Levenberg-Marquardt fit then moves the junction's free parameters and ln R together against
- *       the forward points and the reverse leakage below breakdown (both see the resistor). Three such rounds at
- *       most, until G settles.</li>
+ *       the joint fit follows; rounds are kept while the criterion falls.</li>
  *   <li>The shunt goes in when the BIC on the forward points (the same form and floor as the other terms,
  *       with one parameter more) falls by more than the threshold against the plain forward stage, and the
  *       resistor carries at least {@value #CURRENT_SHARE} of the current at the smallest measured forward
