@@ -186,6 +186,17 @@ class ShuntedCardWorkflowTest {
     }
 
     @Test
+    void compareSimulatesTheResistorOfASubcircuitFile() throws Exception {
+        String sub = out.resolve("SHX.shunted.ngspice.lib").toString();
+        CliRun same = CliRun.of("compare", sub, sub, "--temp", "27");
+        assertEquals(ExitCodes.OK, same.exitCode(), same.describe());
+        assertTrue(same.out().contains("R(shunt)"), "the resistor is listed beside the parameters:\n" + same.out());
+        CliRun alone = CliRun.of("compare", out.resolve("SHX.ngspice.lib").toString(), sub, "--temp", "27");
+        assertEquals(ExitCodes.NOT_REPRODUCED, alone.exitCode(),
+                "the junction alone and the subcircuit differ where the resistor carries the current: " + alone.describe());
+    }
+
+    @Test
     void theOutputIsByteStable() throws Exception {
         Path again = dir.resolve("cards-again");
         CliRun fit = CliRun.of("fit", dir.resolve("shx-forward.csv").toString(), dir.resolve("shx-reverse.csv").toString(),
