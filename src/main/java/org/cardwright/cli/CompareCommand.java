@@ -94,8 +94,10 @@ final class CompareCommand implements Callable<Integer> {
         CardReader reader = new CardReader();
         Dialect da = VerifyCommand.dialectOf(cardA, dialectA);
         Dialect db = VerifyCommand.dialectOf(cardB, dialectB);
-        ParsedCard a = reader.read(cardA, da, Optional.ofNullable(modelA));
-        ParsedCard b = reader.read(cardB, db, Optional.ofNullable(modelB));
+        // a subcircuit file (NAME.shunted.DIALECT.lib) gives its .model and the resistor beside it, read strictly
+        double[] shunt = {Double.POSITIVE_INFINITY, Double.POSITIVE_INFINITY};
+        ParsedCard a = read(reader, cardA, da, modelA, shunt, 0);
+        ParsedCard b = read(reader, cardB, db, modelB, shunt, 1);
         PartTolerances t = device == null ? PartTolerances.DEFAULT : new DeviceFileReader().read(device).tolerances();
         double forwardLimit = limitMillivolts != null ? limitMillivolts * 1e-3 : t.forward().max();
         List<Double> kelvin = new ArrayList<>();
@@ -109,12 +111,24 @@ final class CompareCommand implements Callable<Integer> {
         // the built-in engine evaluates each card with the equations of the simulator it was written for
         CardComparison c = new CardComparer(Engines.byName(engine, da.flavour()), Engines.capacitanceByName(engine, da.flavour()),
                 Engines.byName(engine, db.flavour()), Engines.capacitanceByName(engine, db.flavour()))
-                .compare(a, Inputs.displayName(cardA), b, Inputs.displayName(cardB), plan);
+                .compare(a, shunt[0], Inputs.displayName(cardA), b, shunt[1], Inputs.displayName(cardB), plan);
         a.notices().forEach(n -> spec.commandLine().getOut().println("note: " + n));
         b.notices().forEach(n -> spec.commandLine().getOut().println("note: " + n));
         spec.commandLine().getOut().print(ComparisonText.render(c, plan));
         spec.commandLine().getOut().flush();
         return c.flaggedCount() == 0 ? ExitCodes.OK : ExitCodes.NOT_REPRODUCED;
+    }
+
+    private static ParsedCard read(CardReader reader, java.nio.file.Path file, Dialect d, String model, double[] shunt,
+                                   int slot) throws java.io.IOException {
+        String text = java.nio.file.Files.readString(file, java.nio.charset.StandardCharsets.UTF_8);
+        String source = file.toString();
+        if (!org.cardwright.card.ShuntedCard.isSubcircuit(text, source)) {
+            return reader.parse(text, source, d, Optional.ofNullable(model));
+        }
+        org.cardwright.card.ShuntedCard.Read r = org.cardwright.card.ShuntedCard.read(text, source, d);
+        shunt[slot] = r.shuntResistance();
+        return r.card();
     }
 
     private static List<Double> numbers(List<String> given, List<String> defaults) {

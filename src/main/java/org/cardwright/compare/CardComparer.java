@@ -50,8 +50,17 @@ public final class CardComparer {
     /** Compares {@code a} with {@code b} (differences are B minus A). */
     public CardComparison compare(ParsedCard a, String sourceA, ParsedCard b, String sourceB, ComparisonPlan plan)
             throws SimulationException {
-        CardUnderTest ca = underTest(a);
-        CardUnderTest cb = underTest(b);
+        return compare(a, Double.POSITIVE_INFINITY, sourceA, b, Double.POSITIVE_INFINITY, sourceB, plan);
+    }
+
+    /**
+     * Compares {@code a} with {@code b}, each with the resistor its subcircuit file puts between the terminals
+     * (positive infinity for none) [ohm]; the engines add it themselves.
+     */
+    public CardComparison compare(ParsedCard a, double shuntA, String sourceA, ParsedCard b, double shuntB, String sourceB,
+                                  ComparisonPlan plan) throws SimulationException {
+        CardUnderTest ca = underTest(a, shuntA);
+        CardUnderTest cb = underTest(b, shuntB);
         DiodeParameters pa = a.parameters();
         DiodeParameters pb = b.parameters();
         List<String> notes = new ArrayList<>();
@@ -62,6 +71,11 @@ public final class CardComparer {
             if (pa.isGiven(p) || pb.isGiven(p)) {
                 params.add(new CardComparison.ParameterRow(p.keyword(), cardValue(pa, p), cardValue(pb, p)));
             }
+        }
+        if (Double.isFinite(shuntA) || Double.isFinite(shuntB)) {
+            // not a .model parameter: the resistor of a subcircuit file, between the terminals
+            params.add(new CardComparison.ParameterRow("R(shunt)", Double.isFinite(shuntA) ? SpiceNumbers.format(shuntA, 7) : "",
+                    Double.isFinite(shuntB) ? SpiceNumbers.format(shuntB, 7) : ""));
         }
 
         List<Bias> fwd = new ArrayList<>();
@@ -157,7 +171,12 @@ public final class CardComparer {
 
     /** The card in ngspice keywords and meaning, from its parsed parameters, for the engines. */
     static CardUnderTest underTest(ParsedCard card) {
-        return CardUnderTest.ngspice(card.name(), card.parameters());
+        return underTest(card, Double.POSITIVE_INFINITY);
+    }
+
+    /** As {@link #underTest(ParsedCard)}, with a resistor between the terminals (infinity for none) [ohm]. */
+    static CardUnderTest underTest(ParsedCard card, double shunt) {
+        return CardUnderTest.ngspice(card.name(), card.parameters()).withShunt(shunt);
     }
 
     /** The value a card gives, or its default in parentheses (empty for terms that exist only when given). */

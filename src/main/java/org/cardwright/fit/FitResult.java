@@ -24,17 +24,35 @@ import org.cardwright.model.Param;
  * @param otherResiduals   residual statistics of the other data kinds, in their own units
  * @param terms            decisions about optional terms
  * @param warnings         plain-language warnings
+ * @param shunt            the resistor fitted between the terminals beside the junction, when the data show one
  */
 public record FitResult(DiodeParameters parameters, List<FittedParameter> fitted, Correlations correlations,
                         double chiSquare, double reducedChiSquare, int points, int degreesOfFreedom,
                         int evaluations, int iterations, String stopReason, List<SweepResiduals> residuals,
-                        List<KindResiduals> otherResiduals, List<TermDecision> terms, List<String> warnings) {
+                        List<KindResiduals> otherResiduals, List<TermDecision> terms, List<String> warnings,
+                        Optional<ShuntResistance> shunt) {
     public FitResult {
+        java.util.Objects.requireNonNull(shunt, "shunt");
         fitted = List.copyOf(fitted);
         residuals = List.copyOf(residuals);
         otherResiduals = List.copyOf(otherResiduals);
         terms = List.copyOf(terms);
         warnings = List.copyOf(warnings);
+    }
+
+    /** A result without a shunt resistor (the form every fit had before shunts were fitted). */
+    public FitResult(DiodeParameters parameters, List<FittedParameter> fitted, Correlations correlations,
+                     double chiSquare, double reducedChiSquare, int points, int degreesOfFreedom,
+                     int evaluations, int iterations, String stopReason, List<SweepResiduals> residuals,
+                     List<KindResiduals> otherResiduals, List<TermDecision> terms, List<String> warnings) {
+        this(parameters, fitted, correlations, chiSquare, reducedChiSquare, points, degreesOfFreedom, evaluations,
+                iterations, stopReason, residuals, otherResiduals, terms, warnings, Optional.empty());
+    }
+
+    /** This result with {@code resistor} as its shunt. */
+    public FitResult withShunt(ShuntResistance resistor) {
+        return new FitResult(parameters, fitted, correlations, chiSquare, reducedChiSquare, points, degreesOfFreedom,
+                evaluations, iterations, stopReason, residuals, otherResiduals, terms, warnings, Optional.of(resistor));
     }
 
     /** The result line of one parameter, if the card gives it. */

@@ -16,9 +16,26 @@ import org.cardwright.model.SimulatorOptions;
  * @param nominalTemperature TNOM [K]
  * @param options     GMIN and RELTOL of the model
  * @param selfHeating what to do when the data show self-heating
+ * @param shunt       whether a resistor between the terminals is decided by the data, left out or always fitted
  */
 public record FitSettings(Map<Param, ParameterRule> rules, DeviceKind kind, double nominalTemperature,
-                          SimulatorOptions options, SelfHeatingRemedy selfHeating) {
+                          SimulatorOptions options, SelfHeatingRemedy selfHeating, ShuntChoice shunt) {
+
+    /** The resistor between the terminals (docs/fitting.md, section 2.5). */
+    public enum ShuntChoice {
+        /** The data decide, like the optional terms. */
+        DECIDE,
+        /** Never fitted (a dialect refit of a fit that found none). */
+        OFF,
+        /** Always fitted (a dialect refit of a fit that found one). */
+        ON
+    }
+
+    /** Settings whose shunt the data decide. */
+    public FitSettings(Map<Param, ParameterRule> rules, DeviceKind kind, double nominalTemperature,
+                       SimulatorOptions options, SelfHeatingRemedy selfHeating) {
+        this(rules, kind, nominalTemperature, options, selfHeating, ShuntChoice.DECIDE);
+    }
 
     /** The two remedies for self-heating in forward data. */
     public enum SelfHeatingRemedy {
@@ -37,6 +54,7 @@ public record FitSettings(Map<Param, ParameterRule> rules, DeviceKind kind, doub
         public static final double EXCLUDE_SHIFT = 0.1e-3;
     }
     public FitSettings {
+        java.util.Objects.requireNonNull(shunt, "shunt");
         rules = Map.copyOf(rules);
         if (!(nominalTemperature > 0)) {
             throw new IllegalArgumentException("TNOM must be above 0 K, got " + nominalTemperature);
@@ -64,22 +82,27 @@ public record FitSettings(Map<Param, ParameterRule> rules, DeviceKind kind, doub
                 m.put(r.param(), r);
             }
         }
-        return new FitSettings(m, kind, tnom, options, selfHeating);
+        return new FitSettings(m, kind, tnom, options, selfHeating, shunt);
     }
 
     /** This with another device kind. */
     public FitSettings withKind(DeviceKind k) {
-        return new FitSettings(rules, k, nominalTemperature, options, selfHeating);
+        return new FitSettings(rules, k, nominalTemperature, options, selfHeating, shunt);
     }
 
     /** This evaluated with other equations or options (a dialect's flavour). */
     public FitSettings withOptions(SimulatorOptions other) {
-        return new FitSettings(rules, kind, nominalTemperature, other, selfHeating);
+        return new FitSettings(rules, kind, nominalTemperature, other, selfHeating, shunt);
     }
 
     /** This with another self-heating remedy. */
     public FitSettings withSelfHeating(SelfHeatingRemedy remedy) {
-        return new FitSettings(rules, kind, nominalTemperature, options, remedy);
+        return new FitSettings(rules, kind, nominalTemperature, options, remedy, shunt);
+    }
+
+    /** This with another choice about the resistor between the terminals. */
+    public FitSettings withShunt(ShuntChoice choice) {
+        return new FitSettings(rules, kind, nominalTemperature, options, selfHeating, choice);
     }
 
     /** The rule for {@code p}, or null. */

@@ -9,6 +9,7 @@ import org.cardwright.model.DiodeSolver;
 import org.cardwright.model.JunctionCurrent;
 import org.cardwright.model.Param;
 import org.cardwright.model.SelfHeating;
+import org.cardwright.model.ShuntedJunction;
 import org.cardwright.model.SimulatorOptions;
 import org.cardwright.model.TemperatureLaws;
 
@@ -34,10 +35,24 @@ final class ForwardBlock implements ResidualBlock {
     private final double[] temperatures;
     private final int[] group;
     private final SimulatorOptions options;
+    /** Conductance between the terminals (a shunt resistor beside the diode), 0 for none [S]. */
+    private final double shunt;
     private DiodeParameters cachedFor;
     private double[] cachedJunctionVoltages;
 
     ForwardBlock(List<FitPoint> points, SimulatorOptions options) {
+        this(points, options, 0);
+    }
+
+    /**
+     * Forward residuals of the diode with a conductance {@code shunt} between its terminals
+     * ({@link org.cardwright.model.ShuntedJunction}); 0 is the plain diode.
+     */
+    ForwardBlock(List<FitPoint> points, SimulatorOptions options, double shunt) {
+        if (!(shunt >= 0) || !Double.isFinite(shunt)) {
+            throw new IllegalArgumentException("shunt conductance must be finite and not negative, got " + shunt);
+        }
+        this.shunt = shunt;
         this.points = points.toArray(new FitPoint[0]);
         this.options = options;
         TemperatureGroups groups = TemperatureGroups.of(this.points, FitPoint::temperature);
@@ -64,7 +79,7 @@ final class ForwardBlock implements ResidualBlock {
     double[] voltages(DiodeParameters p) {
         double[] v = new double[points.length];
         DiodeAtTemperature[] at = scaled(p);
-        if (p.isGiven(Param.RTH0)) {
+        if (p.isGiven(Param.RTH0) && shunt == 0) {
             double rth = p.get(Param.RTH0);
             for (int i = 0; i < v.length; i++) {
                 // points whose dissipation cannot warm the junction measurably keep the isothermal shortcut
@@ -77,7 +92,9 @@ final class ForwardBlock implements ResidualBlock {
         }
         double[] vd = junctionVoltages(p, at);
         for (int i = 0; i < v.length; i++) {
-            v[i] = vd[i] + points[i].current() * at[group[i]].seriesResistance();
+            // with a shunt the diode carries less than the terminal current: V = vd + RS·Ij(vd)
+            double diodeCurrent = shunt == 0 ? points[i].current() : JunctionCurrent.current(at[group[i]], vd[i]);
+            v[i] = vd[i] + diodeCurrent * at[group[i]].seriesResistance();
         }
         return v;
     }
@@ -89,7 +106,8 @@ final class ForwardBlock implements ResidualBlock {
         }
         double[] vd = new double[points.length];
         for (int i = 0; i < vd.length; i++) {
-            vd[i] = DiodeSolver.junctionVoltageAtCurrent(at[group[i]], points[i].current());
+            vd[i] = shunt == 0 ? DiodeSolver.junctionVoltageAtCurrent(at[group[i]], points[i].current())
+                    : ShuntedJunction.junctionVoltageAtCurrent(at[group[i]], points[i].current(), shunt);
         }
         cachedFor = p;
         cachedJunctionVoltages = vd;
@@ -116,7 +134,7 @@ final class ForwardBlock implements ResidualBlock {
     @Override
     public double[][] jacobian(FreeParameters layout, double[] x) {
         DiodeParameters p = layout.toParameters(x);
-        if (p.isGiven(Param.RTH0)) {
+        if (p.isGiven(Param.RTH0) && shunt == 0) {
             // the junction temperature depends on the point: plain central differences of the residuals
             return ResidualBlock.super.jacobian(layout, x);
         }
@@ -151,6 +169,11 @@ final class ForwardBlock implements ResidualBlock {
             double w = 1 / points[i].sigma();
             double vd = vds[i];
             double g = JunctionCurrent.conductance(d, vd);
+            // with a shunt G: F = Ij(vd)(1 + G·RS) + G·vd - I = 0 at fixed I gives dvd/dp, then
+            // dV/dp = dvd/dp (1 + RS·g) + RS·dIj/dp + Ij·dRS/dp; with G = 0 this is -dIj/dp/g + I·dRS/dp
+            double rs = d.seriesResistance();
+            double a = 1 + shunt * rs;
+            double ij = shunt == 0 ? current : JunctionCurrent.current(d, vd);
             for (int j = 0; j < nFree; j++) {
                 if (plus[j] == null) {
                     continue;
@@ -159,10 +182,45 @@ final class ForwardBlock implements ResidualBlock {
                 DiodeAtTemperature dm = minus[j][group[i]];
                 double dIdp = (JunctionCurrent.current(dp, vd) - JunctionCurrent.current(dm, vd)) / (2 * steps[j]);
                 double dRdp = (dp.seriesResistance() - dm.seriesResistance()) / (2 * steps[j]);
-                jac[i][j] = (-dIdp / g + current * dRdp) * w;
+                if (shunt == 0) {
+                    jac[i][j] = (-dIdp / g + current * dRdp) * w;
+                } else {
+                    double dvd = -(a * dIdp + shunt * ij * dRdp) / (g * a + shunt);
+                    jac[i][j] = (dvd * (1 + rs * g) + rs * dIdp + ij * dRdp) * w;
+                }
             }
         }
         return jac;
+    }
+
+    /**
+     * d(weighted residual)/d(ln R) of every point, R = 1/G the resistor between the terminals: at fixed current,
+     * dvd/dG = -V/(g·(1 + G·RS) + G) and dV/dG = dvd/dG·(1 + RS·g); d/d(ln R) = -G·d/dG.
+     */
+    double[] shuntColumn(DiodeParameters p) {
+        DiodeAtTemperature[] at = scaled(p);
+        double[] vds = junctionVoltages(p, at);
+        double[] out = new double[points.length];
+        for (int i = 0; i < out.length; i++) {
+            DiodeAtTemperature d = at[group[i]];
+            double vd = vds[i];
+            double g = JunctionCurrent.conductance(d, vd);
+            double rs = d.seriesResistance();
+            double v = vd + rs * JunctionCurrent.current(d, vd);
+            double dvdG = -v / (g * (1 + shunt * rs) + shunt) * (1 + rs * g);
+            out[i] = -shunt * dvdG / points[i].sigma();
+        }
+        return out;
+    }
+
+    /** The conductance between the terminals, 0 for none [S]. */
+    double shunt() {
+        return shunt;
+    }
+
+    /** The same points with another conductance between the terminals [S]. */
+    ForwardBlock withShunt(double conductance) {
+        return new ForwardBlock(List.of(points), options, conductance);
     }
 
     /** Distinct temperatures of the points, ascending [K]. */

@@ -55,6 +55,8 @@ public final class JunctionExtraction {
         Map<Param, Double> start = new EnumMap<>(Param.class);
         DiodeParameters params;
         Optimiser.Run lastRun = null;
+        ShuntTerm shunt = null;
+        ShuntResistance shuntResult = null;
 
         if (!data.forward().isEmpty()) {
             ForwardExtraction.Stage st = forward.stage(data.forward());
@@ -87,10 +89,14 @@ public final class JunctionExtraction {
                 all.addAll(r.warnings());
                 return new FitResult(r.parameters(), r.fitted(), r.correlations(), r.chiSquare(), r.reducedChiSquare(),
                         r.points(), r.degreesOfFreedom(), r.evaluations(), r.iterations(), r.stopReason(), r.residuals(),
-                        r.otherResiduals(), r.terms(), all);
+                        r.otherResiduals(), r.terms(), all, r.shunt());
             }
+            // a resistor between the terminals (surface leakage, a cell's shunt) is decided like the optional terms
+            shunt = ShuntTerm.consider(settings, forward, st, data.forward(), ReverseAnalysis.split(data.reverse()).leakage());
+            st = shunt.stage();
             blocks.addAll(st.blocks());
             decisions.addAll(st.decisions());
+            decisions.add(shunt.decision());
             warnings.addAll(st.warnings());
             start.putAll(st.start());
             free.addAll(st.run().layout().free());
@@ -189,12 +195,17 @@ public final class JunctionExtraction {
 
         // ---- the joint fit ------------------------------------------------------------------------------------
         Optimiser.Run joint;
-        if (blocks.size() == 1 && lastRun != null) {
+        if (shunt != null && shunt.included()) {
+            ShuntTerm.Joint j = ShuntTerm.fit(blocks, params, new ArrayList<>(free), forward::bounds, shunt.conductance());
+            joint = j.run();
+            blocks = ShuntTerm.atShunt(blocks, j.conductance());
+            shuntResult = new ShuntResistance(1 / j.conductance(), j.resistanceError());
+        } else if (blocks.size() == 1 && lastRun != null) {
             joint = lastRun;
         } else {
             joint = Optimiser.run(blocks, params, new ArrayList<>(free), forward::bounds);
         }
-        leakageCheck(split.leakage(), joint.parameters(), warnings);
+        leakageCheck(split.leakage(), joint.parameters(), shuntResult == null ? 0 : shuntResult.conductance(), warnings);
         for (ParameterRule r : settings.rules().values()) {
             boolean varies = r.kind() == ParameterRule.Kind.FREE || r.kind() == ParameterRule.Kind.BOUNDED;
             if (varies && !joint.layout().free().contains(r.param())) {
@@ -204,7 +215,8 @@ public final class JunctionExtraction {
             }
         }
         selfHeatingNote(data.forward(), joint.parameters(), warnings);
-        return ResultAssembly.assemble(settings, blocks, joint, data.forward(), decisions, warnings, start, forward::bounds);
+        FitResult result = ResultAssembly.assemble(settings, blocks, joint, data.forward(), decisions, warnings, start, forward::bounds);
+        return shuntResult == null ? result : result.withShunt(shuntResult);
     }
 
     private DiodeParameters put(DiodeParameters p, Map<Param, Double> start, Param q, double value) {
@@ -230,7 +242,7 @@ public final class JunctionExtraction {
     }
 
     /** Warns when measured leakage far exceeds what the card predicts (surface or shunt leakage). */
-    private void leakageCheck(List<ReversePoint> leakage, DiodeParameters p, List<String> warnings) {
+    private void leakageCheck(List<ReversePoint> leakage, DiodeParameters p, double shunt, List<String> warnings) {
         ReversePoint worst = null;
         double worstRatio = LEAKAGE_EXCESS;
         double worstModel = 0;
@@ -239,7 +251,7 @@ public final class JunctionExtraction {
             if (r.voltage() > -3 * d.emissionCoefficient() * Ngspice39.thermalVoltage(r.temperature())) {
                 continue;
             }
-            double model = -JunctionCurrent.current(d, r.voltage());
+            double model = -JunctionCurrent.current(d, r.voltage()) - shunt * r.voltage();
             double ratio = -r.current() / model;
             if (ratio > worstRatio) {
                 worstRatio = ratio;
@@ -249,8 +261,9 @@ public final class JunctionExtraction {
         }
         if (worst != null) {
             warnings.add(String.format(Locale.ROOT,
-                    "%s: measured leakage %s A at %s V is %.0f times what the card predicts (%s A, IS plus GMIN): surface or shunt leakage that a level-1 card cannot carry",
-                    worst.where(), num(-worst.current()), num(worst.voltage()), worstRatio, num(worstModel)));
+                    "%s: measured leakage %s A at %s V is %.0f times what the card predicts (%s A, IS plus GMIN%s): surface or shunt leakage that a level-1 card cannot carry",
+                    worst.where(), num(-worst.current()), num(worst.voltage()), worstRatio, num(worstModel),
+                    shunt > 0 ? " plus the fitted shunt resistor" : ""));
         }
     }
 

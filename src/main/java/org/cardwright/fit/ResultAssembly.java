@@ -31,7 +31,10 @@ final class ResultAssembly {
         }
         FreeParameters layout = best.layout();
         JointProblem model = new JointProblem(blocks, layout);
-        ForwardBlock forward = new ForwardBlock(points, settings.options());
+        // a shunted fit reports the residuals of the diode with its resistor, as the subcircuit card carries them
+        ForwardBlock forward = blocks.stream()
+                .filter(b -> b instanceof ForwardBlock f && f.shunt() > 0 && f.size() == points.size())
+                .map(b -> (ForwardBlock) b).findFirst().orElse(new ForwardBlock(points, settings.options()));
         int n = model.rows();
         int k = layout.size();
         int dof = n - k;

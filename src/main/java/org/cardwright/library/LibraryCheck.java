@@ -91,6 +91,11 @@ public final class LibraryCheck {
             for (Dialect d : part.dialects()) {
                 long t0 = System.nanoTime();
                 Path card = part.cardPath(d);
+                // a part with a resistor between its terminals: the subcircuit file is what reproduces its data
+                Path shunted = part.cardFolder().resolve(org.cardwright.card.ShuntedCard.fileName(part.model(), d));
+                if (Files.exists(card) && Files.exists(shunted)) {
+                    card = shunted;
+                }
                 String cardName = LibraryPaths.display(root, card);
                 if (!Files.exists(card)) {
                     out.add(new CardCheck(name, part.model(), cardName, CardCheck.Status.MISSING,

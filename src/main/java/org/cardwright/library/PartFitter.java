@@ -10,6 +10,7 @@ import java.util.Locale;
 import java.util.Optional;
 import java.util.stream.Collectors;
 import java.util.stream.Stream;
+import org.cardwright.card.ShuntedCard;
 import org.cardwright.card.CardWriter;
 import org.cardwright.card.Dialect;
 import org.cardwright.card.ModelCard;
@@ -108,9 +109,19 @@ final class PartFitter {
             List<Card> cards = new ArrayList<>();
             for (FitOutcome.WrittenCard w : outcome.cards()) {
                 FitResult forCard = w.refit().orElse(outcome.fit());
-                cards.add(render(part, recipe, part.rules(), w.dialect(), forCard.parameters(), outcome.fit().points(),
+                List<String> lines = extraLines;
+                if (w.shunted().isPresent()) {
+                    // the plain card is the junction alone; its header says so and what that costs, as fit's does
+                    lines = new ArrayList<>(extraLines);
+                    w.text().lines().filter(l -> l.startsWith("* junction alone: ")).map(l -> l.substring(2)).forEach(lines::add);
+                }
+                Card plain = render(part, recipe, part.rules(), w.dialect(), forCard.parameters(), outcome.fit().points(),
                         Residual.of(forCard), w.leftOut(), w.leftOut().isEmpty() ? Double.NaN : outcome.fit().worstRms(),
-                        extraLines));
+                        lines);
+                cards.add(plain);
+                if (w.shunted().isPresent() && forCard.shunt().isPresent()) {
+                    cards.add(shunted(part, plain, forCard.shunt().get()));
+                }
             }
             List<String> notes = outcome.inputs().notes().stream().map(inputs::displayName).toList();
             return new Fitted(List.copyOf(cards), outcome.fit(), outcome.fit().points(), notes);
@@ -128,6 +139,29 @@ final class PartFitter {
         String text = new CardWriter(templates(part)).render(card, dialect, part.digits()).text();
         return new Card(dialect, part.cardPath(dialect), text, parameters, List.copyOf(residuals), List.copyOf(leftOut),
                 leftOutCost);
+    }
+
+    /**
+     * The subcircuit file beside {@code plain} (card/ShuntedCard): the diode with the plain card's {@code .model}
+     * and the resistor between the terminals, under the plain card's provenance.
+     */
+    private static Card shunted(DeviceFile part, Card plain, org.cardwright.fit.ShuntResistance resistor) {
+        List<String> header = new ArrayList<>();
+        String sub = ShuntedCard.subcircuitName(part.model());
+        header.add("model " + part.model() + " with a resistor between its terminals: subcircuit " + sub + " for "
+                + plain.dialect().simulator() + ", written by cardwright " + ToolVersion.get() + " (library build)");
+        header.add("ports: " + ShuntedCard.ANODE + " anode, " + ShuntedCard.CATHODE + " cathode; use it as X1 anode cathode " + sub);
+        header.add("resistor: " + org.cardwright.card.SpiceNumbers.format(resistor.resistance(), 6) + " ohm, fitted together with the junction");
+        List<String> comments = plain.text().lines().takeWhile(l -> l.startsWith("*")).toList();
+        for (String c : comments.subList(Math.min(1, comments.size()), comments.size())) {
+            String line = c.length() > 1 ? c.substring(c.startsWith("* ") ? 2 : 1) : "";
+            if (!line.startsWith("junction alone: ")) {
+                header.add(line);
+            }
+        }
+        String text = ShuntedCard.render(part.model(), plain.text(), resistor.resistance(), header, part.digits());
+        return new Card(plain.dialect(), part.cardFolder().resolve(ShuntedCard.fileName(part.model(), plain.dialect())),
+                text, plain.parameters(), plain.residuals(), plain.leftOut(), plain.leftOutCost());
     }
 
     private static Optional<Path> templates(DeviceFile part) {

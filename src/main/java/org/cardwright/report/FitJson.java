@@ -126,6 +126,15 @@ public final class FitJson {
             terms.add(t);
         }
         o.put("terms", terms);
+        r.shunt().ifPresent(sh -> {
+            Map<String, Object> t = Json.object();
+            t.put("resistance", sh.resistance());
+            if (Double.isFinite(sh.standardError())) {
+                t.put("stderr", sh.standardError());
+            }
+            t.put("unit", "ohm");
+            o.put("shunt", t);
+        });
         Map<String, Object> corr = Json.object();
         var order = r.correlations().order();
         for (int i = 0; i < order.size(); i++) {

@@ -24,9 +24,13 @@ public final class FitText {
         sb.append(String.format(Locale.ROOT, "Model %s: %d points fitted (%d forward I-V at %d temperature(s))%n%n", name,
                 r.points(), outcome.inputs().forward().size(), r.residuals().size()));
         sb.append(parameterTable(r));
+        r.shunt().ifPresent(sh -> sb.append(String.format(Locale.ROOT,
+                "  shunt resistor between the terminals (not a .model parameter; carried by the subcircuit file): %s%s%n",
+                Units.engineering(sh.resistance(), "ohm"),
+                Double.isFinite(sh.standardError()) ? String.format(Locale.ROOT, " +/- %.3g %%", 100 * sh.standardError() / sh.resistance()) : "")));
         sb.append("\nOptional terms\n");
         for (TermDecision d : r.terms()) {
-            sb.append(String.format(Locale.ROOT, "  %-28s %-4s %s%n", d.term() + " (" + keywords(d) + ")",
+            sb.append(String.format(Locale.ROOT, "  %-28s %-4s %s%n", d.params().isEmpty() ? d.term() : d.term() + " (" + keywords(d) + ")",
                     d.included() ? "yes" : "no", d.reason()));
         }
         sb.append("\nResiduals, model minus measured terminal voltage\n");

@@ -16,8 +16,11 @@ import org.cardwright.model.Param;
  * @param name       model name on the card: a letter, then letters, digits and {@code _ . - +}
  * @param parameters the card's parameters [SI, ngspice 39 meaning]
  * @param settings   the values the card states, keyword and number as the card's simulator reads them, in order
+ * @param shuntResistance a resistor between the diode's terminals, as a subcircuit card carries it; positive
+ *                   infinity for none. Every engine adds it itself (the built-in one to its equations, the
+ *                   simulators as a resistor element in their decks) [ohm]
  */
-public record CardUnderTest(String name, DiodeParameters parameters, List<Setting> settings) {
+public record CardUnderTest(String name, DiodeParameters parameters, List<Setting> settings, double shuntResistance) {
     private static final Pattern MODEL_NAME = Pattern.compile("[A-Za-z][A-Za-z0-9_.+-]*");
     private static final Pattern KEYWORD = Pattern.compile("[A-Za-z][A-Za-z0-9_]*");
 
@@ -44,6 +47,29 @@ public record CardUnderTest(String name, DiodeParameters parameters, List<Settin
         }
         Objects.requireNonNull(parameters, "parameters");
         settings = List.copyOf(settings);
+        if (!(shuntResistance > 0)) {
+            throw new IllegalArgumentException("a shunt resistance must be positive (infinity for none), got " + shuntResistance);
+        }
+    }
+
+    /** A card without a shunt resistor. */
+    public CardUnderTest(String name, DiodeParameters parameters, List<Setting> settings) {
+        this(name, parameters, settings, Double.POSITIVE_INFINITY);
+    }
+
+    /** The same card with a resistor between its terminals [ohm]. */
+    public CardUnderTest withShunt(double resistance) {
+        return new CardUnderTest(name, parameters, settings, resistance);
+    }
+
+    /** True when a resistor lies between the terminals. */
+    public boolean hasShunt() {
+        return Double.isFinite(shuntResistance);
+    }
+
+    /** The conductance between the terminals, 0 for none [S]. */
+    public double shuntConductance() {
+        return hasShunt() ? 1 / shuntResistance : 0;
     }
 
     /**

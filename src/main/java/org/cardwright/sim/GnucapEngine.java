@@ -79,6 +79,11 @@ public final class GnucapEngine implements SimulationEngine {
         sb.append(d.currentDiode).append(" a 0 ").append(card.name()).append('\n');
         sb.append(d.voltageSource).append(" b 0 dc 0\n");
         sb.append(d.voltageDiode).append(" b 0 ").append(card.name()).append('\n');
+        if (card.hasShunt()) {
+            // the resistor a subcircuit card carries beside its diode, between the same two nodes
+            sb.append(d.currentResistor).append(" a 0 ").append(num(card.shuntResistance())).append('\n');
+            sb.append(d.voltageResistor).append(" b 0 ").append(num(card.shuntResistance())).append('\n');
+        }
         sb.append(card.modelStatement());
         sb.append(OPTIONS).append('\n');
         sb.append(".print op v(a) v(b) i(").append(d.voltageDiode).append(")\n");
@@ -116,7 +121,8 @@ public final class GnucapEngine implements SimulationEngine {
             double[] row = rows.get(k);
             out.add(b.forcing() == Bias.Forcing.CURRENT
                     ? new OperatingPoint(row[0], b.value())
-                    : new OperatingPoint(row[1], row[2]));
+                    // plus the resistor's current beside the diode, v(b)/R by Ohm's law at the solved node voltage
+                    : new OperatingPoint(row[1], row[2] + card.shuntConductance() * row[1]));
         }
         SimulatorProcess.discard(dir);
         return out;
@@ -223,14 +229,16 @@ public final class GnucapEngine implements SimulationEngine {
      * Element names that differ from the model name in any letter case (gnucap names are case-blind, and a
      * diode named like its model makes gnucap refuse the model).
      */
-    private record Instances(String currentSource, String currentDiode, String voltageSource, String voltageDiode) {
+    private record Instances(String currentSource, String currentDiode, String voltageSource, String voltageDiode,
+                             String currentResistor, String voltageResistor) {
         static Instances avoiding(String modelName) {
             String tag = "cw";
-            while (List.of("i" + tag + "f", "d" + tag + "f", "v" + tag + "r", "d" + tag + "r")
+            while (List.of("i" + tag + "f", "d" + tag + "f", "v" + tag + "r", "d" + tag + "r", "r" + tag + "f", "r" + tag + "r")
                     .contains(modelName.toLowerCase(Locale.ROOT))) {
                 tag = tag + "x";
             }
-            return new Instances("I" + tag + "f", "D" + tag + "f", "V" + tag + "r", "D" + tag + "r");
+            return new Instances("I" + tag + "f", "D" + tag + "f", "V" + tag + "r", "D" + tag + "r", "R" + tag + "f",
+                    "R" + tag + "r");
         }
     }
 }

@@ -58,6 +58,11 @@ public final class NgspiceEngine implements SimulationEngine {
         boolean thermal = card.parameters().isGiven(org.cardwright.model.Param.RTH0);
         sb.append("D1 a 0 ").append(thermal ? "t1 " : "").append(card.name()).append(thermal ? " thermal" : "").append('\n');
         sb.append("D2 b 0 ").append(thermal ? "t2 " : "").append(card.name()).append(thermal ? " thermal" : "").append('\n');
+        if (card.hasShunt()) {
+            // the resistor a subcircuit card carries beside its diode, between the same two nodes
+            sb.append("R1 a 0 ").append(num(card.shuntResistance())).append('\n');
+            sb.append("R2 b 0 ").append(num(card.shuntResistance())).append('\n');
+        }
         sb.append(card.modelStatement());
         sb.append(".options reltol=").append(num(CONVERGENCE.reltol())).append(" vntol=1e-10 abstol=1e-20\n");
         sb.append(".control\n");
@@ -109,7 +114,8 @@ public final class NgspiceEngine implements SimulationEngine {
             } else {
                 // the device current (equal to the terminal current at DC), evaluated by ngspice at the converged
                 // junction voltage; i(v1) would carry the cancellation in (v(b) - v(internal))/RS
-                out.add(new OperatingPoint(b.value(), f[3]));
+                // plus the resistor's current beside it, V/R by Ohm's law at the forced voltage
+                out.add(new OperatingPoint(b.value(), f[3] + card.shuntConductance() * b.value()));
             }
         }
         SimulatorProcess.discard(dir);

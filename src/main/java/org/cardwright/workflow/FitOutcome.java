@@ -24,10 +24,27 @@ public record FitOutcome(FitResult fit, List<WrittenCard> cards, Inputs inputs) 
      * @param text     its text
      * @param leftOut  fitted parameters this dialect cannot carry
      * @param refit    the refit without them, when any were left out
+     * @param shunted  the subcircuit file beside the card, when the fit carries a shunt resistor
      */
-    public record WrittenCard(Dialect dialect, Path file, String text, List<Param> leftOut, Optional<FitResult> refit) {
+    public record WrittenCard(Dialect dialect, Path file, String text, List<Param> leftOut, Optional<FitResult> refit,
+                              Optional<ShuntedFile> shunted) {
         public WrittenCard {
             leftOut = List.copyOf(leftOut);
+            java.util.Objects.requireNonNull(shunted, "shunted");
         }
+
+        /** A card without a subcircuit file. */
+        public WrittenCard(Dialect dialect, Path file, String text, List<Param> leftOut, Optional<FitResult> refit) {
+            this(dialect, file, text, leftOut, refit, Optional.empty());
+        }
+    }
+
+    /**
+     * The subcircuit file of a card whose fit carries a shunt resistor (card/ShuntedCard).
+     *
+     * @param file where it is written
+     * @param text its text
+     */
+    public record ShuntedFile(Path file, String text) {
     }
 }

@@ -48,6 +48,7 @@ public final class FitWorkflow {
         java.util.Map<Path, String> files = new java.util.LinkedHashMap<>();
         for (FitOutcome.WrittenCard c : outcome.cards()) {
             files.put(c.file(), c.text());
+            c.shunted().ifPresent(f -> files.put(f.file(), f.text()));
         }
         request.json().ifPresent(j -> files.put(j, jsonRenderer.apply(outcome)));
         OutputFiles.writeAllAtomically(files);
@@ -110,15 +111,27 @@ public final class FitWorkflow {
                 }
                 // the card is fitted with the equations of the simulator that will read it
                 FitSettings target = settings.withRules(rules).withOptions(
-                        new org.cardwright.model.SimulatorOptions(settings.options().gmin(), settings.options().reltol(), d.flavour()));
+                        new org.cardwright.model.SimulatorOptions(settings.options().gmin(), settings.options().reltol(), d.flavour()))
+                        // the full fit decided the resistor between the terminals; a refit carries it or not alike
+                        .withShunt(full.shunt().isPresent() ? FitSettings.ShuntChoice.ON : FitSettings.ShuntChoice.OFF);
                 forCard = extract(target, request, data);
                 refit = Optional.of(forCard);
             }
-            ModelCard card = new ModelCard(request.name(), forCard.parameters(),
-                    provenance(request, inputs, full, forCard, d, leftOut));
+            List<String> provenance = provenance(request, inputs, full, forCard, d, leftOut);
+            if (forCard.shunt().isPresent()) {
+                // the plain card is the junction alone: say so, and what leaving the resistor out costs
+                provenance.add(provenance.size() - 1, ShuntOutput.costLine(request, d, forCard, data));
+            }
+            ModelCard card = new ModelCard(request.name(), forCard.parameters(), provenance);
             CardWriter.Rendered rendered = writer.render(card, d, request.digits());
-            cards.add(new FitOutcome.WrittenCard(d, request.cardPath(d), rendered.text(), leftOut, refit));
+            Optional<FitOutcome.ShuntedFile> shunted = forCard.shunt().isEmpty() ? Optional.empty()
+                    : Optional.of(new FitOutcome.ShuntedFile(ShuntOutput.path(request, d),
+                            ShuntOutput.render(request, d, forCard, rendered.text(), provenance)));
+            cards.add(new FitOutcome.WrittenCard(d, request.cardPath(d), rendered.text(), leftOut, refit, shunted));
         }
+        List<Path> shuntedTargets = new ArrayList<>();
+        cards.forEach(c -> c.shunted().ifPresent(f -> shuntedTargets.add(f.file())));
+        OutputFiles.checkWritable(shuntedTargets, request.force());
 
         return new FitOutcome(full, cards, inputs);
     }
@@ -258,7 +271,7 @@ public final class FitWorkflow {
             lines.add("data: " + relative(home, f.file()) + " sha256 " + f.sha256());
         }
         lines.add(String.format(Locale.ROOT, "fit: %d points fitted, read from %d forward I-V%s; forward worst RMS residual %s mV",
-                full.points(), inputs.forward().size(), otherKinds(inputs), mv(forCard.worstRms(), 3)));
+                full.points(), inputs.forward().size(), otherKinds(inputs, forCard.shunt().isPresent()), mv(forCard.worstRms(), 3)));
         if (!request.rules().isEmpty()) {
             lines.add("rules: " + request.rules().stream().map(ParameterRule::text).collect(Collectors.joining(" ")));
         }
@@ -307,10 +320,12 @@ public final class FitWorkflow {
         return String.format(Locale.ROOT, "%." + decimals + "f", volts * 1e3);
     }
 
-    private static String otherKinds(Inputs inputs) {
+    private static String otherKinds(Inputs inputs, boolean shunted) {
         StringBuilder sb = new StringBuilder();
         if (!inputs.reverse().isEmpty()) {
-            sb.append(", ").append(inputs.reverse().size()).append(" reverse I-V (leakage below breakdown is compared, not fitted)");
+            sb.append(", ").append(inputs.reverse().size()).append(shunted
+                    ? " reverse I-V (leakage below breakdown fitted with the shunt resistor)"
+                    : " reverse I-V (leakage below breakdown is compared, not fitted)");
         }
         if (!inputs.capacitance().isEmpty()) {
             sb.append(", ").append(inputs.capacitance().size()).append(" C-V");

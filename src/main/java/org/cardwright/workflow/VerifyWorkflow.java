@@ -64,8 +64,23 @@ public final class VerifyWorkflow {
                     .output("--json", request.json().get()).check();
             OutputFiles.checkWritable(List.of(request.json().get()), request.force());
         }
-        ParsedCard parsed = new CardReader().read(request.card(), Inputs.displayName(request.card()),
-                request.dialect(), request.model());
+        String cardSource = Inputs.displayName(request.card());
+        String text = CardReader.readText(request.card(), cardSource);
+        ParsedCard parsed;
+        double shuntResistance = Double.POSITIVE_INFINITY;
+        if (org.cardwright.card.ShuntedCard.isSubcircuit(text, cardSource)) {
+            // a subcircuit card: the diode's .model and the resistor beside it, read strictly
+            org.cardwright.card.ShuntedCard.Read sub = org.cardwright.card.ShuntedCard.read(text, cardSource, request.dialect());
+            if (request.model().isPresent() && !request.model().get().equalsIgnoreCase(sub.card().name())
+                    && !request.model().get().equalsIgnoreCase(sub.subcircuit())) {
+                throw new org.cardwright.card.CardFormatException(cardSource, 0, "no .model or subcircuit named "
+                        + request.model().get() + " (found: " + sub.subcircuit() + " with model " + sub.card().name() + ")", null);
+            }
+            parsed = sub.card();
+            shuntResistance = sub.shuntResistance();
+        } else {
+            parsed = new CardReader().parse(text, cardSource, request.dialect(), request.model());
+        }
         ReadOptions options = request.readOptions();
         Inputs inputs = Inputs.read(request.data(), options);
         ExtractionData data = FitWorkflow.extractionData(inputs);
@@ -74,7 +89,7 @@ public final class VerifyWorkflow {
         if (data.forward().isEmpty() && data.reverse().isEmpty() && data.capacitance().isEmpty() && data.recovery().isEmpty()) {
             throw new DataFileException(request.data().get(0), 0, "no I-V or C-V points to verify against", null);
         }
-        CardUnderTest card = Engines.underTest(parsed, request.dialect());
+        CardUnderTest card = Engines.underTest(parsed, request.dialect()).withShunt(shuntResistance);
         SimulationEngine engine = Engines.byName(request.engine(), request.dialect().flavour());
 
         Optional<Verification> forward = Optional.empty();
