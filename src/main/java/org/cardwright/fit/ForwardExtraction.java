@@ -193,7 +193,23 @@ public final class ForwardExtraction {
 
         // ---- stage 2: global fit of the base model ------------------------------------------------------
         List<ResidualBlock> blocks = List.of(new ForwardBlock(points, settings.options()));
-        Optimiser.Run best = run(blocks, DiodeParameters.of(start), free);
+        DiodeParameters[] screened = new DiodeParameters[1];
+        Optimiser.Run best;
+        try {
+            best = run(blocks, DiodeParameters.of(start), free);
+        } catch (RuntimeException e) {
+            if (!free.contains(Param.ISR) && !free.contains(Param.NR)) {
+                throw e;
+            }
+            best = null;
+        }
+        if (free.contains(Param.ISR) || free.contains(Param.NR)) {
+            // recombination forced on by a rule: the base fit already has both exponential terms
+            best = multiStart(best, blocks, start, free, reference, screened);
+            if (best == null) {
+                throw new FitFailedException("the fit with the recombination term you asked for did not converge from any start");
+            }
+        }
         int n = points.size();
         double bestBic = bic(best.rss(), n, best.layout().size());
 
@@ -228,6 +244,12 @@ public final class ForwardExtraction {
                 try {
                     r = run(blocks, DiodeParameters.of(trial), trialFree);
                 } catch (RuntimeException e) {
+                    r = null;
+                }
+                if (term == RECOMBINATION) {
+                    r = multiStart(r, blocks, trial, trialFree, reference, screened);
+                }
+                if (r == null) {
                     lastDelta.put(term, Double.NaN);
                     continue;
                 }
@@ -299,7 +321,139 @@ public final class ForwardExtraction {
                             : String.format(Locale.ROOT, "not warranted: BIC changed by %+.1f (needs below -%.0f)", d, BIC_THRESHOLD)));
         }
 
+        plausibility(best.parameters(), warnings);
         return new Stage(best, blocks, decisions, warnings, start);
+    }
+
+    /**
+     * Multi-start for the two exponential terms (IS, N and ISR, NR): a sum of two exponentials has a second
+     * minimum where the terms trade places or share one region, so one start is not enough. The starts are the
+     * start given ({@code trial}) and, for every ordered pair of the low-, mid- and high-current thirds of the
+     * reference sweep, the main term from one third's Shockley line and the recombination term from another's
+     * ({@link StartValues#regionalLines}), the swapped assignments included. Each is refined on the reference
+     * sweep alone (EG and XTI held, which is cheap), the best of them by the sum of squared weighted residuals is
+     * fitted on all the data, and of that run and {@code first} (the global run from {@code trial}) the one with
+     * the smaller sum of squares is kept: the same criterion as every fit here. Returns null only when no start
+     * converged.
+     */
+    private Optimiser.Run multiStart(Optimiser.Run first, List<ResidualBlock> blocks, Map<Param, Double> trial,
+                                     List<Param> free, List<FitPoint> reference, DiodeParameters[] screened) {
+        if (screened[0] == null) {
+            screened[0] = screenStarts(trial, free, reference);
+        }
+        DiodeParameters pick = screened[0];
+        if (pick == null) {
+            return first;
+        }
+        EnumMap<Param, Double> alt = new EnumMap<>(Param.class);
+        alt.putAll(trial);
+        boolean differs = false;
+        for (Param p : TWO_TERMS) {
+            if (free.contains(p) && pick.isGiven(p)) {
+                differs |= !trial.containsKey(p) || Math.abs(pick.get(p) / trial.get(p) - 1) > 1e-6;
+                alt.put(p, pick.get(p));
+            }
+        }
+        if (!differs && first != null) {
+            return first;
+        }
+        Optimiser.Run second;
+        try {
+            second = run(blocks, DiodeParameters.of(alt), free);
+        } catch (RuntimeException e) {
+            return first;
+        }
+        return first == null || second.rss() < first.rss() ? second : first;
+    }
+
+    /** The parameters of the two exponential terms (and RS, which the regional lines share), as multi-started. */
+    private static final List<Param> TWO_TERMS = List.of(Param.IS, Param.N, Param.ISR, Param.NR, Param.RS);
+
+    /**
+     * Refines every start of {@link #multiStart} on the reference sweep alone and returns the best, or null when
+     * none converged.
+     */
+    private DiodeParameters screenStarts(Map<Param, Double> trial, List<Param> free, List<FitPoint> reference) {
+        double tRef = reference.get(0).temperature();
+        double tnom = settings.nominalTemperature();
+        double eg = trial.getOrDefault(Param.EG, settings.kind().activationEnergy());
+        double xti = trial.getOrDefault(Param.XTI, settings.kind().temperatureExponent());
+        double rs = trial.getOrDefault(Param.RS, 0.0);
+        List<Map<Param, Double>> starts = new ArrayList<>();
+        starts.add(trial);
+        double[][] lines = StartValues.regionalLines(reference, rs);
+        for (int a = 0; a < 3; a++) {
+            for (int b = 0; b < 3; b++) {
+                if (a == b || lines[a] == null || lines[b] == null) {
+                    continue;
+                }
+                EnumMap<Param, Double> s = new EnumMap<>(Param.class);
+                s.putAll(trial);
+                putIfFree(s, free, Param.N, lines[a][1]);
+                putIfFree(s, free, Param.IS, StartValues.toNominal(lines[a][0], tRef, tnom, s.get(Param.N), eg, xti));
+                putIfFree(s, free, Param.NR, lines[b][1]);
+                putIfFree(s, free, Param.ISR, StartValues.toNominal(lines[b][0], tRef, tnom, s.get(Param.NR), eg, xti));
+                starts.add(s);
+            }
+        }
+        List<Param> local = new ArrayList<>();
+        for (Param p : TWO_TERMS) {
+            if (free.contains(p)) {
+                local.add(p);
+            }
+        }
+        List<ResidualBlock> one = List.of(new ForwardBlock(reference, settings.options()));
+        DiodeParameters best = null;
+        double bestRss = Double.POSITIVE_INFINITY;
+        for (Map<Param, Double> s : starts) {
+            if (!s.containsKey(Param.ISR) || !s.containsKey(Param.NR)) {
+                continue;
+            }
+            try {
+                Optimiser.Run r = run(one, DiodeParameters.of(s), local);
+                if (r.rss() < bestRss) {
+                    bestRss = r.rss();
+                    best = r.parameters();
+                }
+            } catch (RuntimeException e) {
+                // a start that does not converge is simply not a candidate
+            }
+        }
+        return best;
+    }
+
+    private static void putIfFree(Map<Param, Double> start, List<Param> free, Param p, double value) {
+        if (free.contains(p) && Double.isFinite(value) && value > 0) {
+            start.put(p, value);
+        }
+    }
+
+    /**
+     * Flags a result that is physically implausible for the device kind: an emission coefficient outside the
+     * kind's usual range ({@link DeviceKind#typicalEmission}), or a recombination term less steep than the main
+     * term (NR below N), which means the two exponential terms have traded places.
+     */
+    private void plausibility(DiodeParameters p, List<String> warnings) {
+        double[] range = settings.kind().typicalEmission();
+        for (Param q : List.of(Param.N, Param.NR)) {
+            if (!p.isGiven(q) || (q == Param.NR && !p.isGiven(Param.ISR))) {
+                continue;
+            }
+            double v = p.get(q);
+            double hi = q == Param.NR ? 2 * range[1] : range[1];
+            if (v < range[0] || v > hi) {
+                warnings.add(String.format(Locale.ROOT,
+                        "%s = %.3f is outside the range usual for a %s (%.1f to %.1f): check the device kind (--kind) "
+                                + "and the data; the fit may describe the curve without describing the junction",
+                        q, v, settings.kind().description(), range[0], hi));
+            }
+        }
+        if (p.isGiven(Param.ISR) && p.get(Param.NR) < p.get(Param.N)) {
+            warnings.add(String.format(Locale.ROOT,
+                    "NR = %.3f is below N = %.3f: the recombination term carries the high currents and the main term the "
+                            + "low ones, the reverse of a junction's physics; the parameters may not describe the junction",
+                    p.get(Param.NR), p.get(Param.N)));
+        }
     }
 
     // ---------------------------------------------------------------------------------------------------
@@ -570,7 +724,7 @@ public final class ForwardExtraction {
         return Optimiser.run(blocks, start, free, this::bounds);
     }
 
-    private static double bic(double rss, int n, int k) {
+    static double bic(double rss, int n, int k) {
         return n * Math.log(Math.max(rss / n, RESIDUAL_FLOOR_SQUARED)) + k * Math.log(n);
     }
 
