@@ -82,8 +82,18 @@ public final class ForwardExtraction {
                  Map<Param, Double> start) {
     }
 
-    /** Runs the forward stages (start values, global fit, term selection). */
+    /** Runs the forward stages (start values, global fit, term selection), with no C-V data to follow. */
     Stage stage(List<FitPoint> points) throws FitInputException {
+        return stage(points, false);
+    }
+
+    /**
+     * Runs the forward stages (start values, global fit, term selection).
+     *
+     * @param capacitanceFollows true when C-V data will be fitted jointly, so that VJ and M of the recombination
+     *                           factor come from them rather than from the forward data alone
+     */
+    Stage stage(List<FitPoint> points, boolean capacitanceFollows) throws FitInputException {
         Map<Double, List<FitPoint>> sweeps = checkInput(points);
         double tnom = settings.nominalTemperature();
         List<String> warnings = new ArrayList<>();
@@ -321,6 +331,7 @@ public final class ForwardExtraction {
                             : String.format(Locale.ROOT, "not warranted: BIC changed by %+.1f (needs below -%.0f)", d, BIC_THRESHOLD)));
         }
 
+        best = recombinationFactor(best, blocks, n, capacitanceFollows, decisions);
         plausibility(best.parameters(), warnings);
         return new Stage(best, blocks, decisions, warnings, start);
     }
@@ -364,6 +375,57 @@ public final class ForwardExtraction {
             return first;
         }
         return first == null || second.rss() < first.rss() ? second : first;
+    }
+
+    /** The decision's name for VJ and M in the recombination factor. */
+    static final String RECOMBINATION_FACTOR = "recombination factor (VJ, M)";
+
+    /**
+     * VJ and M of the recombination current's factor ((1 - vd/VJ)^2 + 0.005)^(M/2) (diode-model.md section 4):
+     * with C-V data they are the depletion VJ and M and come from those; otherwise, when the card carries the
+     * recombination term, freeing both is tried on the forward data (from the values in the card, the ngspice
+     * defaults unless a rule sets them) and kept only if BIC falls by more than {@value #BIC_THRESHOLD}, the
+     * criterion of the other terms. Either way a decision says what was assumed.
+     */
+    private Optimiser.Run recombinationFactor(Optimiser.Run best, List<ResidualBlock> blocks, int n,
+                                              boolean capacitanceFollows, List<TermDecision> decisions) {
+        List<Param> params = List.of(Param.VJ, Param.M);
+        DiodeParameters p = best.parameters();
+        if (!p.isGiven(Param.ISR)) {
+            return best;
+        }
+        if (settings.rule(Param.VJ) != null || settings.rule(Param.M) != null) {
+            decisions.add(new TermDecision(RECOMBINATION_FACTOR, params, true, Double.NaN,
+                    "VJ and M as your rules give them"));
+            return best;
+        }
+        if (capacitanceFollows) {
+            decisions.add(new TermDecision(RECOMBINATION_FACTOR, params, true, Double.NaN,
+                    "VJ and M come from the C-V data, fitted jointly with the forward data"));
+            return best;
+        }
+        String held = String.format(Locale.ROOT, "VJ = %.3g V and M = %.3g assumed (%s)", p.get(Param.VJ),
+                p.get(Param.M), p.isGiven(Param.VJ) || p.isGiven(Param.M) ? "as given" : "the ngspice defaults");
+        List<Param> f = new ArrayList<>(best.layout().free());
+        f.addAll(params);
+        Optimiser.Run r;
+        try {
+            r = run(blocks, p, f);
+        } catch (RuntimeException e) {
+            decisions.add(new TermDecision(RECOMBINATION_FACTOR, params, false, Double.NaN,
+                    held + "; a fit with them free did not converge"));
+            return best;
+        }
+        double delta = bic(r.rss(), n, r.layout().size()) - bic(best.rss(), n, best.layout().size());
+        if (delta < -BIC_THRESHOLD) {
+            decisions.add(new TermDecision(RECOMBINATION_FACTOR, params, true, delta, String.format(Locale.ROOT,
+                    "fitted from the forward data (no C-V data): BIC fell by %.1f (threshold %.0f)", -delta, BIC_THRESHOLD)));
+            return r;
+        }
+        decisions.add(new TermDecision(RECOMBINATION_FACTOR, params, false, delta, String.format(Locale.ROOT,
+                "%s: freeing them changed BIC by %+.1f (needs below -%.0f); give C-V data to determine them",
+                held, delta, BIC_THRESHOLD)));
+        return best;
     }
 
     /** The parameters of the two exponential terms (and RS, which the regional lines share), as multi-started. */

@@ -57,7 +57,7 @@ public final class JunctionExtraction {
         Optimiser.Run lastRun = null;
 
         if (!data.forward().isEmpty()) {
-            ForwardExtraction.Stage st = forward.stage(data.forward());
+            ForwardExtraction.Stage st = forward.stage(data.forward(), !data.capacitance().isEmpty());
             if (settings.selfHeating() == FitSettings.SelfHeatingRemedy.EXCLUDE && st.run().parameters().isGiven(Param.RTH0)) {
                 // the remedy the user chose: leave out the heated points and fit the rest without RTH0
                 DiodeParameters heated = st.run().parameters();
