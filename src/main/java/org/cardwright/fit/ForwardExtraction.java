@@ -289,9 +289,20 @@ public final class ForwardExtraction {
         }
         // backward check: a term taken early (self-heating standing in for a knee not yet added, say) must still
         // earn its place once the others are in; one that no longer lowers BIC by the threshold is taken out
-        if (accepted.size() > 1) {
+        // VJ and M of the recombination factor come last: a term taken as a stand-in for them (TRS1, say) is then
+        // checked like the others
+        Optimiser.Run beforeFactor = best;
+        best = recombinationFactor(best, blocks, n, capacitanceFollows, decisions);
+        boolean factorFreed = best != beforeFactor;
+        if (factorFreed) {
+            bestBic = bic(best.rss(), n, best.layout().size());
+        }
+        if (accepted.size() > 1 || (factorFreed && !accepted.isEmpty())) {
             // the last term taken was judged with every other one already in; the earlier ones need the check
-            for (Term term : new ArrayList<>(accepted.subList(0, accepted.size() - 1))) {
+            for (Term term : new ArrayList<>(accepted.subList(0, accepted.size() - (factorFreed ? 0 : 1)))) {
+                if (factorFreed && term == RECOMBINATION) {
+                    continue;
+                }
                 List<Param> without = new ArrayList<>(best.layout().free());
                 without.removeAll(term.params());
                 DiodeParameters reduced = best.parameters();
@@ -331,7 +342,6 @@ public final class ForwardExtraction {
                             : String.format(Locale.ROOT, "not warranted: BIC changed by %+.1f (needs below -%.0f)", d, BIC_THRESHOLD)));
         }
 
-        best = recombinationFactor(best, blocks, n, capacitanceFollows, decisions);
         plausibility(best.parameters(), warnings);
         return new Stage(best, blocks, decisions, warnings, start);
     }
