@@ -605,7 +605,7 @@ public final class ForwardExtraction {
             double hi = q == Param.NR ? 2 * range[1] : range[1];
             if (v < range[0] || v > hi) {
                 warnings.add(String.format(Locale.ROOT,
-                        "%s = %.3f is outside the range usual for a %s (%.1f to %.1f): check the device kind (--kind) "
+                        "%s = %.3f is outside the range usual for a %s (%.2f to %.2f): check the device kind (--kind) "
                                 + "and the data; the fit may describe the curve without describing the junction",
                         q, v, settings.kind().description(), range[0], hi));
             }

@@ -55,9 +55,29 @@ class HighBandgapFamilyTest {
             if (!(worst < tolerance)) {
                 failures.append(String.format(java.util.Locale.ROOT, " member %d: %.4f mV;", m, worst * 1e3));
             }
+            if (fit.warnings().stream().anyMatch(HighBandgapFamilyTest::implausible)) {
+                failures.append(String.format(java.util.Locale.ROOT, " member %d flagged implausible: %s;", m, fit.warnings()));
+            }
         }
         System.out.printf(java.util.Locale.ROOT, "high-bandgap family (%s): worst %.4f mV%n", noisy ? "noisy" : "noise-free", worstAll * 1e3);
         assertTrue(failures.length() == 0, "forward deviation from the generating card:" + failures);
+    }
+
+    private static boolean implausible(String warning) {
+        return warning.contains("is outside the range usual for") || warning.contains("is below N =");
+    }
+
+    /**
+     * The same junction declared as a transistor's base-emitter junction: its N near 2 is outside that kind's usual
+     * range (N near 1; common practice, no source), and the result must say so.
+     */
+    @Test
+    void anEmissionCoefficientImplausibleForTheKindIsFlagged() throws Exception {
+        DiodeParameters truth = member(9200);
+        List<FitPoint> pts = FamilyData.forward(truth, CELSIUS, 1e-9, 30e-3, 8, null);
+        FitResult fit = new ForwardExtraction(FitSettings.defaults().withKind(DeviceKind.BASE_EMITTER)).fit(pts);
+        System.out.println("as base-emitter: " + fit.parameters().givenValues() + " " + fit.warnings());
+        assertTrue(fit.warnings().stream().anyMatch(HighBandgapFamilyTest::implausible), fit.warnings().toString());
     }
 
     @Test
