@@ -276,14 +276,19 @@ public final class CapacitanceExtraction {
                     "the data stay below FC·VJ(T) (at most %.0f %% of it, at %.2f degC), where FC has no effect",
                     100 * highest, highestT - Ngspice39.CELSIUS_TO_KELVIN);
         }
+        // TT·g acts at every bias, in reverse and at 0 V too, where a leaky junction's conductance at high
+        // temperature makes it a visible share of C; the data decide through the BIC. Without forward-bias points,
+        // g must come from fitted DC parameters, or TT would only measure the defaults
         boolean forward = block.points().stream().anyMatch(pt -> pt.voltage() > 0);
-        return forward ? null : "no forward-bias points, where diffusion capacitance shows";
+        return forward || p.isGiven(Param.IS) ? null
+                : "no forward-bias points and no fitted DC parameters to give the conductance in TT·g";
     }
 
     /**
-     * Least-squares TT from the forward-bias excess over the depletion law: first over the reverse-bias
-     * start card extrapolated (the excess a depletion-only fit has not yet absorbed), else over the current
-     * fit. NaN when neither shows a positive excess.
+     * Least-squares TT from the excess over the depletion law, TT = sum(w e g)/sum(w g^2) over every point (TT·g
+     * acts at every bias, with g from the DC parameters as ngspice computes it): first over the start card
+     * (fitted to the reverse-bias points nearest TNOM, so the excess a depletion-only fit has not yet absorbed
+     * elsewhere shows), else over the current fit. NaN when neither shows a positive excess.
      */
     private double diffusionStart(CapacitanceBlock block, DiodeParameters startCard, DiodeParameters current) {
         for (DiodeParameters p : List.of(startCard, current)) {
@@ -294,9 +299,6 @@ public final class CapacitanceExtraction {
             List<CapacitancePoint> pts = block.points();
             for (int i = 0; i < pts.size(); i++) {
                 CapacitancePoint pt = pts.get(i);
-                if (pt.voltage() <= 0) {
-                    continue;
-                }
                 DiodeAtTemperature d = at.computeIfAbsent(pt.temperature(), t -> TemperatureLaws.at(p, t, settings.options()));
                 double g = JunctionCurrent.reportedConductance(d, JunctionCapacitance.junctionVoltage(d, pt.voltage()));
                 double excess = pt.capacitance() - block.strayCapacitance() - model[i];

@@ -66,6 +66,22 @@ public enum DeviceKind {
         return maxEmission;
     }
 
+    /**
+     * The range of N usual for this kind, {lowest, highest} [1]; NR usually stays below twice the highest. A fitted
+     * value outside it is flagged as implausible (it is not a bound). Common practice, no source: an ideal
+     * diffusion current has N = 1 and recombination in the depletion region N = 2 (Sah, Noyce &amp; Shockley,
+     * Proc. IRE 45 (1957) 1228-1243); Schottky barriers stay near 1, base-emitter junctions near 1, and
+     * heterojunction emitters reach about 3.
+     */
+    public double[] typicalEmission() {
+        return switch (this) {
+            case SCHOTTKY -> new double[] {0.95, 1.5};
+            case BASE_EMITTER -> new double[] {0.95, 1.3};
+            case LED -> new double[] {1.0, 3.0};
+            default -> new double[] {0.95, 2.2};
+        };
+    }
+
     /** True when the user will want BV fitted (a warning follows when no breakdown data are given). */
     public boolean expectsBreakdown() {
         return expectsBreakdown;

@@ -82,8 +82,18 @@ public final class ForwardExtraction {
                  Map<Param, Double> start) {
     }
 
-    /** Runs the forward stages (start values, global fit, term selection). */
+    /** Runs the forward stages (start values, global fit, term selection), with no C-V data to follow. */
     Stage stage(List<FitPoint> points) throws FitInputException {
+        return stage(points, false);
+    }
+
+    /**
+     * Runs the forward stages (start values, global fit, term selection).
+     *
+     * @param capacitanceFollows true when C-V data will be fitted jointly, so that VJ and M of the recombination
+     *                           factor come from them rather than from the forward data alone
+     */
+    Stage stage(List<FitPoint> points, boolean capacitanceFollows) throws FitInputException {
         Map<Double, List<FitPoint>> sweeps = checkInput(points);
         double tnom = settings.nominalTemperature();
         List<String> warnings = new ArrayList<>();
@@ -193,7 +203,23 @@ public final class ForwardExtraction {
 
         // ---- stage 2: global fit of the base model ------------------------------------------------------
         List<ResidualBlock> blocks = List.of(new ForwardBlock(points, settings.options()));
-        Optimiser.Run best = run(blocks, DiodeParameters.of(start), free);
+        Screen[] screened = new Screen[1];
+        Optimiser.Run best;
+        try {
+            best = run(blocks, DiodeParameters.of(start), free);
+        } catch (RuntimeException e) {
+            if (!free.contains(Param.ISR) && !free.contains(Param.NR)) {
+                throw e;
+            }
+            best = null;
+        }
+        if (free.contains(Param.ISR) || free.contains(Param.NR)) {
+            // recombination forced on by a rule: the base fit already has both exponential terms
+            best = multiStart(best, blocks, start, free, reference, screened);
+            if (best == null) {
+                throw new FitFailedException("the fit with the recombination term you asked for did not converge from any start");
+            }
+        }
         int n = points.size();
         double bestBic = bic(best.rss(), n, best.layout().size());
 
@@ -228,6 +254,12 @@ public final class ForwardExtraction {
                 try {
                     r = run(blocks, DiodeParameters.of(trial), trialFree);
                 } catch (RuntimeException e) {
+                    r = null;
+                }
+                if (term == RECOMBINATION) {
+                    r = multiStart(r, blocks, trial, trialFree, reference, screened);
+                }
+                if (r == null) {
                     lastDelta.put(term, Double.NaN);
                     continue;
                 }
@@ -257,9 +289,20 @@ public final class ForwardExtraction {
         }
         // backward check: a term taken early (self-heating standing in for a knee not yet added, say) must still
         // earn its place once the others are in; one that no longer lowers BIC by the threshold is taken out
-        if (accepted.size() > 1) {
+        // VJ and M of the recombination factor come last: a term taken as a stand-in for them (TRS1, say) is then
+        // checked like the others
+        Optimiser.Run beforeFactor = best;
+        best = recombinationFactor(best, blocks, n, capacitanceFollows, decisions);
+        boolean factorFreed = best != beforeFactor;
+        if (factorFreed) {
+            bestBic = bic(best.rss(), n, best.layout().size());
+        }
+        if (accepted.size() > 1 || (factorFreed && !accepted.isEmpty())) {
             // the last term taken was judged with every other one already in; the earlier ones need the check
-            for (Term term : new ArrayList<>(accepted.subList(0, accepted.size() - 1))) {
+            for (Term term : new ArrayList<>(accepted.subList(0, accepted.size() - (factorFreed ? 0 : 1)))) {
+                if (factorFreed && term == RECOMBINATION) {
+                    continue;
+                }
                 List<Param> without = new ArrayList<>(best.layout().free());
                 without.removeAll(term.params());
                 DiodeParameters reduced = best.parameters();
@@ -299,7 +342,280 @@ public final class ForwardExtraction {
                             : String.format(Locale.ROOT, "not warranted: BIC changed by %+.1f (needs below -%.0f)", d, BIC_THRESHOLD)));
         }
 
+        plausibility(best.parameters(), warnings);
         return new Stage(best, blocks, decisions, warnings, start);
+    }
+
+    /**
+     * Multi-start for the two exponential terms (IS, N and ISR, NR): a sum of two exponentials has a second
+     * minimum where the terms trade places or share one region, so one start is not enough. The starts are the
+     * start given ({@code trial}) and, for every ordered pair of the low-, mid- and high-current thirds of the
+     * reference sweep, the main term from one third's Shockley line and the recombination term from another's
+     * ({@link StartValues#regionalLines}), the swapped assignments included. Each is refined on the reference
+     * sweep alone (EG and XTI held, which is cheap), the best of them by the sum of squared weighted residuals is
+     * fitted on all the data, and of that run and {@code first} (the global run from {@code trial}) the one with
+     * the smaller sum of squares is kept: the same criterion as every fit here. Returns null only when no start
+     * converged.
+     */
+    private Optimiser.Run multiStart(Optimiser.Run first, List<ResidualBlock> blocks, Map<Param, Double> trial,
+                                     List<Param> free, List<FitPoint> reference, Screen[] screened) {
+        if (screened[0] == null) {
+            screened[0] = screenStarts(trial, free, reference);
+        }
+        Screen screen = screened[0];
+        if (screen.best() == null) {
+            return first;
+        }
+        if (first != null) {
+            // the global run from the start given is already in the best basin when it fits the reference sweep
+            // about as well as the best screened start does there: another basin shows as a multiple of the sum of
+            // squares, the same basin within a factor of 2 (the global run also serves the other temperatures)
+            double[] r = new ForwardBlock(reference, settings.options()).residuals(first.parameters());
+            double refRss = 0;
+            for (double x : r) {
+                refRss += x * x;
+            }
+            if (refRss <= 2 * screen.rss() + r.length * RESIDUAL_FLOOR_SQUARED) {
+                return first;
+            }
+        }
+        DiodeParameters pick = screen.best();
+        EnumMap<Param, Double> alt = new EnumMap<>(Param.class);
+        alt.putAll(trial);
+        for (Param p : TWO_TERMS) {
+            if (free.contains(p) && pick.isGiven(p)) {
+                alt.put(p, pick.get(p));
+            }
+        }
+        Optimiser.Run second;
+        try {
+            second = run(blocks, DiodeParameters.of(alt), free);
+        } catch (RuntimeException e) {
+            return first;
+        }
+        return first == null || second.rss() < first.rss() ? second : first;
+    }
+
+    /** The decision's name for VJ and M in the recombination factor. */
+    static final String RECOMBINATION_FACTOR = "recombination factor (VJ, M)";
+
+    /**
+     * VJ and M of the recombination current's factor ((1 - vd/VJ)^2 + 0.005)^(M/2) (diode-model.md section 4):
+     * with C-V data they are the depletion VJ and M and come from those; otherwise, when the card carries the
+     * recombination term, freeing both is tried on the forward data (from the values in the card, the ngspice
+     * defaults unless a rule sets them) and kept only if BIC falls by more than {@value #BIC_THRESHOLD}, the
+     * criterion of the other terms. Either way a decision says what was assumed.
+     */
+    private Optimiser.Run recombinationFactor(Optimiser.Run best, List<ResidualBlock> blocks, int n,
+                                              boolean capacitanceFollows, List<TermDecision> decisions) {
+        List<Param> params = List.of(Param.VJ, Param.M);
+        DiodeParameters p = best.parameters();
+        if (!p.isGiven(Param.ISR)) {
+            return best;
+        }
+        if (settings.rule(Param.VJ) != null || settings.rule(Param.M) != null) {
+            decisions.add(new TermDecision(RECOMBINATION_FACTOR, params, true, Double.NaN,
+                    "VJ and M as your rules give them"));
+            return best;
+        }
+        if (capacitanceFollows) {
+            decisions.add(new TermDecision(RECOMBINATION_FACTOR, params, true, Double.NaN,
+                    "VJ and M come from the C-V data, fitted jointly with the forward data"));
+            return best;
+        }
+        String held = String.format(Locale.ROOT, "VJ = %.3g V and M = %.3g assumed (%s)", p.get(Param.VJ),
+                p.get(Param.M), p.isGiven(Param.VJ) || p.isGiven(Param.M) ? "as given" : "the ngspice defaults");
+        double bound = factorScoreBound(best, params, (ForwardBlock) blocks.get(0));
+        if (bound > -BIC_THRESHOLD) {
+            decisions.add(new TermDecision(RECOMBINATION_FACTOR, params, false, Double.NaN, String.format(Locale.ROOT,
+                    "%s: no sign of them in the residuals, at best BIC would change by %+.1f (score test; needs below -%.0f)",
+                    held, bound, BIC_THRESHOLD)));
+            return best;
+        }
+        List<Param> f = new ArrayList<>(best.layout().free());
+        f.addAll(params);
+        Optimiser.Run r;
+        try {
+            r = run(blocks, p, f);
+        } catch (RuntimeException e) {
+            decisions.add(new TermDecision(RECOMBINATION_FACTOR, params, false, Double.NaN,
+                    held + "; a fit with them free did not converge"));
+            return best;
+        }
+        double delta = bic(r.rss(), n, r.layout().size()) - bic(best.rss(), n, best.layout().size());
+        if (delta < -BIC_THRESHOLD) {
+            decisions.add(new TermDecision(RECOMBINATION_FACTOR, params, true, delta, String.format(Locale.ROOT,
+                    "fitted from the forward data (no C-V data): BIC fell by %.1f (threshold %.0f)", -delta, BIC_THRESHOLD)));
+            return r;
+        }
+        decisions.add(new TermDecision(RECOMBINATION_FACTOR, params, false, delta, String.format(Locale.ROOT,
+                "%s: freeing them changed BIC by %+.1f (needs below -%.0f); give C-V data to determine them",
+                held, delta, BIC_THRESHOLD)));
+        return best;
+    }
+
+    /**
+     * Score (Lagrange-multiplier) test for freeing {@code extra} parameters, as for self-heating (Rao 1948): their
+     * residual derivatives H (central differences) are made orthogonal to the Jacobian of the free parameters, and
+     * r'H(H'H)^-1 H'r bounds, to first order, how much of the sum of squares freeing them could remove. Returns the
+     * best change of BIC that allows.
+     */
+    private double factorScoreBound(Optimiser.Run best, List<Param> extra, ForwardBlock block) {
+        DiodeParameters p = best.parameters();
+        double[] r = block.residuals(p);
+        int rows = r.length;
+        double[][] h = new double[extra.size()][];
+        for (int k = 0; k < extra.size(); k++) {
+            Param q = extra.get(k);
+            double v = p.get(q);
+            double step = 1e-6 * Math.max(Math.abs(v), 1e-3);
+            double[] up = block.residuals(p.with(q, v + step));
+            double[] down = block.residuals(p.with(q, v - step));
+            h[k] = new double[rows];
+            for (int i = 0; i < rows; i++) {
+                h[k][i] = (up[i] - down[i]) / (2 * step);
+            }
+        }
+        double[][] j = block.jacobian(best.layout(), best.x());
+        if (j.length > 0 && j[0].length > 0) {
+            org.apache.commons.math3.linear.RealMatrix jm = new org.apache.commons.math3.linear.Array2DRowRealMatrix(j, false);
+            org.apache.commons.math3.linear.DecompositionSolver solver =
+                    new org.apache.commons.math3.linear.QRDecomposition(jm, 1e-14).getSolver();
+            for (int k = 0; k < h.length; k++) {
+                double[] c = solver.solve(new org.apache.commons.math3.linear.ArrayRealVector(h[k], false)).toArray();
+                double[] fit = jm.operate(c);
+                for (int i = 0; i < rows; i++) {
+                    h[k][i] -= fit[i];
+                }
+            }
+        }
+        int m = h.length;
+        double[][] hh = new double[m][m];
+        double[] hr = new double[m];
+        for (int a = 0; a < m; a++) {
+            for (int i = 0; i < rows; i++) {
+                hr[a] += h[a][i] * r[i];
+            }
+            for (int b = 0; b < m; b++) {
+                for (int i = 0; i < rows; i++) {
+                    hh[a][b] += h[a][i] * h[b][i];
+                }
+            }
+        }
+        double removable = 0;
+        try {
+            double[] z = new org.apache.commons.math3.linear.SingularValueDecomposition(
+                    new org.apache.commons.math3.linear.Array2DRowRealMatrix(hh, false)).getSolver()
+                    .solve(new org.apache.commons.math3.linear.ArrayRealVector(hr, false)).toArray();
+            for (int a = 0; a < m; a++) {
+                removable += hr[a] * z[a];
+            }
+        } catch (RuntimeException e) {
+            removable = best.rss();
+        }
+        double rss = best.rss();
+        double reduced = Math.max(rss - Math.max(removable, 0), 0);
+        return bic(reduced, rows, best.layout().size() + m) - bic(rss, rows, best.layout().size());
+    }
+
+    /**
+     * Stopping tolerance of the screening fits: enough to tell one basin from another, at a fraction of the cost of
+     * the final fit's 1e-13 [1].
+     */
+    private static final double SCREENING_TOLERANCE = 1e-6;
+
+    /** The best start after screening (null when none converged) and its sum of squares on the reference sweep. */
+    private record Screen(DiodeParameters best, double rss) {
+    }
+
+    /** The parameters of the two exponential terms (and RS, which the regional lines share), as multi-started. */
+    private static final List<Param> TWO_TERMS = List.of(Param.IS, Param.N, Param.ISR, Param.NR, Param.RS);
+
+    /**
+     * Refines every start of {@link #multiStart} on the reference sweep alone and returns the best, or null when
+     * none converged.
+     */
+    private Screen screenStarts(Map<Param, Double> trial, List<Param> free, List<FitPoint> reference) {
+        double tRef = reference.get(0).temperature();
+        double tnom = settings.nominalTemperature();
+        double eg = trial.getOrDefault(Param.EG, settings.kind().activationEnergy());
+        double xti = trial.getOrDefault(Param.XTI, settings.kind().temperatureExponent());
+        double rs = trial.getOrDefault(Param.RS, 0.0);
+        List<Map<Param, Double>> starts = new ArrayList<>();
+        starts.add(trial);
+        double[][] lines = StartValues.regionalLines(reference, rs);
+        for (int a = 0; a < 3; a++) {
+            for (int b = 0; b < 3; b++) {
+                if (a == b || lines[a] == null || lines[b] == null) {
+                    continue;
+                }
+                EnumMap<Param, Double> s = new EnumMap<>(Param.class);
+                s.putAll(trial);
+                putIfFree(s, free, Param.N, lines[a][1]);
+                putIfFree(s, free, Param.IS, StartValues.toNominal(lines[a][0], tRef, tnom, s.get(Param.N), eg, xti));
+                putIfFree(s, free, Param.NR, lines[b][1]);
+                putIfFree(s, free, Param.ISR, StartValues.toNominal(lines[b][0], tRef, tnom, s.get(Param.NR), eg, xti));
+                starts.add(s);
+            }
+        }
+        List<Param> local = new ArrayList<>();
+        for (Param p : TWO_TERMS) {
+            if (free.contains(p)) {
+                local.add(p);
+            }
+        }
+        List<ResidualBlock> one = List.of(new ForwardBlock(reference, settings.options()));
+        DiodeParameters best = null;
+        double bestRss = Double.POSITIVE_INFINITY;
+        for (Map<Param, Double> s : starts) {
+            if (!s.containsKey(Param.ISR) || !s.containsKey(Param.NR)) {
+                continue;
+            }
+            try {
+                Optimiser.Run r = Optimiser.run(one, DiodeParameters.of(s), local, this::bounds, SCREENING_TOLERANCE);
+                if (r.rss() < bestRss) {
+                    bestRss = r.rss();
+                    best = r.parameters();
+                }
+            } catch (RuntimeException e) {
+                // a start that does not converge is simply not a candidate
+            }
+        }
+        return new Screen(best, bestRss);
+    }
+
+    private static void putIfFree(Map<Param, Double> start, List<Param> free, Param p, double value) {
+        if (free.contains(p) && Double.isFinite(value) && value > 0) {
+            start.put(p, value);
+        }
+    }
+
+    /**
+     * Flags a result that is physically implausible for the device kind: an emission coefficient outside the
+     * kind's usual range ({@link DeviceKind#typicalEmission}), or a recombination term less steep than the main
+     * term (NR below N), which means the two exponential terms have traded places.
+     */
+    private void plausibility(DiodeParameters p, List<String> warnings) {
+        double[] range = settings.kind().typicalEmission();
+        for (Param q : List.of(Param.N, Param.NR)) {
+            if (!p.isGiven(q) || (q == Param.NR && !p.isGiven(Param.ISR))) {
+                continue;
+            }
+            double v = p.get(q);
+            double hi = q == Param.NR ? 2 * range[1] : range[1];
+            if (v < range[0] || v > hi) {
+                warnings.add(String.format(Locale.ROOT,
+                        "%s = %.3f is outside the range usual for a %s (%.2f to %.2f): check the device kind (--kind) "
+                                + "and the data; the fit may describe the curve without describing the junction",
+                        q, v, settings.kind().description(), range[0], hi));
+            }
+        }
+        if (p.isGiven(Param.ISR) && p.get(Param.NR) < p.get(Param.N)) {
+            warnings.add(String.format(Locale.ROOT,
+                    "NR = %.3f is below N = %.3f: the recombination term carries the high currents and the main term the "
+                            + "low ones, the reverse of a junction's physics; the parameters may not describe the junction",
+                    p.get(Param.NR), p.get(Param.N)));
+        }
     }
 
     // ---------------------------------------------------------------------------------------------------
@@ -570,7 +886,7 @@ public final class ForwardExtraction {
         return Optimiser.run(blocks, start, free, this::bounds);
     }
 
-    private static double bic(double rss, int n, int k) {
+    static double bic(double rss, int n, int k) {
         return n * Math.log(Math.max(rss / n, RESIDUAL_FLOOR_SQUARED)) + k * Math.log(n);
     }
 

@@ -59,7 +59,7 @@ public final class JunctionExtraction {
         ShuntResistance shuntResult = null;
 
         if (!data.forward().isEmpty()) {
-            ForwardExtraction.Stage st = forward.stage(data.forward());
+            ForwardExtraction.Stage st = forward.stage(data.forward(), !data.capacitance().isEmpty());
             if (settings.selfHeating() == FitSettings.SelfHeatingRemedy.EXCLUDE && st.run().parameters().isGiven(Param.RTH0)) {
                 // the remedy the user chose: leave out the heated points and fit the rest without RTH0
                 DiodeParameters heated = st.run().parameters();
@@ -149,12 +149,21 @@ public final class JunctionExtraction {
             }
             BreakdownBlock block = new BreakdownBlock(split.breakdown(), settings.options());
             Optimiser.Run run = Optimiser.run(List.of(block), params, stageFree, forward::bounds);
+            String ibvNote = String.format(Locale.ROOT, "IBV held at %s A, where the data lie", num(run.parameters().get(Param.IBV)));
+            if (settings.rule(Param.IBV) == null && isVariable(Param.BV)) {
+                IbvDecision d = decideIbv(block, run, stageFree, forward);
+                ibvNote = d.note();
+                if (d.run() != null) {
+                    run = d.run();
+                    stageFree.add(Param.IBV);
+                }
+            }
             params = run.parameters();
             blocks.add(block);
             free.addAll(stageFree);
             decisions.add(new TermDecision("breakdown", List.of(Param.BV, Param.IBV, Param.NBV), true, Double.NaN,
-                    String.format(Locale.ROOT, "%d points in breakdown at %d temperature(s); IBV held at %s A, where the data lie",
-                            split.breakdown().size(), temps, num(params.get(Param.IBV)))));
+                    String.format(Locale.ROOT, "%d points in breakdown at %d temperature(s); %s",
+                            split.breakdown().size(), temps, ibvNote)));
         }
 
         if (settings.kind().expectsBreakdown() && !decisions.stream().anyMatch(d -> d.term().equals("breakdown") && d.included())) {
@@ -168,6 +177,10 @@ public final class JunctionExtraction {
         }
 
         // ---- C-V ----------------------------------------------------------------------------------------------
+        if (!data.capacitance().isEmpty() && !data.recovery().isEmpty() && isVariable(Param.TT)) {
+            // recovery records give TT directly; the C-V stage then evaluates TT·g with it at every bias
+            params = put(params, start, Param.TT, RecoveryBlock.closedForm(data.recovery()));
+        }
         if (!data.capacitance().isEmpty()) {
             CapacitanceFit cf = new CapacitanceExtraction(settings, capacitanceOptions).fit(data.capacitance(), params);
             for (FittedParameter fp : cf.fitted()) {
@@ -217,6 +230,56 @@ public final class JunctionExtraction {
         selfHeatingNote(data.forward(), joint.parameters(), warnings);
         FitResult result = ResultAssembly.assemble(settings, blocks, joint, data.forward(), decisions, warnings, start, forward::bounds);
         return shuntResult == null ? result : result.withShunt(shuntResult);
+    }
+
+    /** Whether the data determine IBV: the run with IBV free (null when held) and the note for the decision. */
+    private record IbvDecision(Optimiser.Run run, String note) {
+    }
+
+    /** Decades on either side of the chosen IBV from which the free-IBV trial starts (1 decade apart). */
+    private static final int IBV_START_DECADES = 3;
+
+    /**
+     * IBV as a term the data may determine, by the criterion of the other terms. At one temperature, or wherever
+     * ngspice's knee iteration runs (IBV above IS(T)·BV/Vt), the breakdown current is IBV·exp((|V| - BV(T))/(NBV
+     * Vt)) and BV and IBV trade off exactly; where IS(T) reaches IBV·Vt/BV (a leaky junction at its top temperature)
+     * the knee is not adjusted and the current follows IS(T) instead, so across temperatures the data fix IBV.
+     * The stage is refitted with IBV free from starts a decade apart around the chosen value (the knee condition
+     * makes the residuals kinked in IBV, so one start is not enough), and the best run by the sum of squares goes
+     * in only if it lowers the BIC of the breakdown residuals by more than {@link ForwardExtraction#BIC_THRESHOLD}
+     * (Schwarz, Ann. Statist. 6 (1978) 461-464; Kass &amp; Raftery, J. Am. Stat. Assoc. 90 (1995) 773-795).
+     */
+    private IbvDecision decideIbv(BreakdownBlock block, Optimiser.Run held, List<Param> stageFree, ForwardExtraction forward) {
+        int n = block.size();
+        double chosen = held.parameters().get(Param.IBV);
+        double bicHeld = ForwardExtraction.bic(held.rss(), n, held.layout().size());
+        List<Param> f = new ArrayList<>(stageFree);
+        f.add(Param.IBV);
+        Optimiser.Run best = null;
+        for (int k = -IBV_START_DECADES; k <= IBV_START_DECADES; k++) {
+            try {
+                Optimiser.Run r = Optimiser.run(List.of(block), held.parameters().with(Param.IBV, chosen * Math.pow(10, k)),
+                        f, forward::bounds);
+                if (best == null || r.rss() < best.rss()) {
+                    best = r;
+                }
+            } catch (RuntimeException e) {
+                // a start that does not converge is not a candidate
+            }
+        }
+        if (best == null) {
+            return new IbvDecision(null, String.format(Locale.ROOT,
+                    "IBV held at %s A, where the data lie (a fit with IBV free did not converge)", num(chosen)));
+        }
+        double delta = ForwardExtraction.bic(best.rss(), n, best.layout().size()) - bicHeld;
+        if (delta < -ForwardExtraction.BIC_THRESHOLD) {
+            return new IbvDecision(best, String.format(Locale.ROOT,
+                    "IBV determined by the data across temperatures (%s A): BIC fell by %.1f (threshold %.0f)",
+                    num(best.parameters().get(Param.IBV)), -delta, ForwardExtraction.BIC_THRESHOLD));
+        }
+        return new IbvDecision(null, String.format(Locale.ROOT,
+                "IBV held at %s A, where the data lie (freeing it changed BIC by %+.1f; needs below -%.0f)",
+                num(chosen), delta, ForwardExtraction.BIC_THRESHOLD));
     }
 
     private DiodeParameters put(DiodeParameters p, Map<Param, Double> start, Param q, double value) {

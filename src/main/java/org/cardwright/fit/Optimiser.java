@@ -37,6 +37,18 @@ final class Optimiser {
      */
     static Run run(List<ResidualBlock> blocks, DiodeParameters start, List<Param> free,
                    Function<Param, double[]> bounds) {
+        return run(blocks, start, free, bounds, TOLERANCE);
+    }
+
+    /** Relative change of cost and parameters at which a fit stops [1]. */
+    static final double TOLERANCE = 1e-13;
+
+    /**
+     * The same with another stopping tolerance: a looser one finds the basin of a start at a fraction of the cost,
+     * for comparing starts (the chosen one is then fitted to {@link #TOLERANCE}).
+     */
+    static Run run(List<ResidualBlock> blocks, DiodeParameters start, List<Param> free,
+                   Function<Param, double[]> bounds, double tolerance) {
         // start values outside the bounds are brought inside before the fit starts
         DiodeParameters clamped = start;
         for (Param p : free) {
@@ -67,9 +79,9 @@ final class Optimiser {
                 .lazyEvaluation(false)
                 .build();
         LevenbergMarquardtOptimizer lm = new LevenbergMarquardtOptimizer()
-                .withCostRelativeTolerance(1e-13)
-                .withParameterRelativeTolerance(1e-13)
-                .withOrthoTolerance(1e-13);
+                .withCostRelativeTolerance(tolerance)
+                .withParameterRelativeTolerance(tolerance)
+                .withOrthoTolerance(tolerance);
         String stop;
         double[] x;
         int evals;
@@ -79,7 +91,8 @@ final class Optimiser {
             x = layout.clamp(opt.getPoint().toArray());
             evals = opt.getEvaluations();
             iters = opt.getIterations();
-            stop = "converged: relative change of cost and parameters below 1e-13 after " + iters + " iterations";
+            stop = "converged: relative change of cost and parameters below "
+                    + String.format(java.util.Locale.ROOT, "%.0e", tolerance) + " after " + iters + " iterations";
         } catch (TooManyEvaluationsException | TooManyIterationsException e) {
             throw new FitFailedException("the fit did not converge within " + MAX_EVALUATIONS + " evaluations");
         } catch (ConvergenceException e) {

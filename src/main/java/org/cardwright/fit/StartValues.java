@@ -179,6 +179,41 @@ final class StartValues {
     }
 
     /**
+     * Shockley lines of the low-, mid- and high-current thirds of a sweep (by decades of current), each a least-squares
+     * line ln I = a + b (V - RS I) through the points of its third, with RS the start value: {IS at the sweep
+     * temperature [A], N [1]} per region, or null for a region with fewer than 3 points or no usable slope. These are
+     * the regional starts of the multi-start forward fit: in a sweep carried by two exponential terms, one region or
+     * another shows each term nearly alone.
+     */
+    static double[][] regionalLines(List<FitPoint> sweep, double seriesResistance) {
+        List<FitPoint> s = sorted(sweep);
+        double vt = Ngspice39.thermalVoltage(s.get(0).temperature());
+        double lo = Math.log(s.get(0).current());
+        double hi = Math.log(s.get(s.size() - 1).current());
+        double[][] out = new double[3][];
+        for (int r = 0; r < 3; r++) {
+            double from = lo + r * (hi - lo) / 3;
+            double to = lo + (r + 1) * (hi - lo) / 3;
+            List<double[]> xy = new ArrayList<>();
+            for (FitPoint p : s) {
+                double l = Math.log(p.current());
+                if (l >= from - 1e-12 && l <= to + 1e-12) {
+                    xy.add(new double[] {p.voltage() - seriesResistance * p.current(), l});
+                }
+            }
+            if (xy.size() < 3) {
+                continue;
+            }
+            double[] fit = regressPairs(xy);
+            double n = 1 / (fit[1] * vt);
+            if (n > 0.3 && n < 100 && Double.isFinite(fit[0])) {
+                out[r] = new double[] {Math.exp(fit[0]), n};
+            }
+        }
+        return out;
+    }
+
+    /**
      * Activation energy and IS at Tnom from per-temperature saturation currents at a common N, with XTI held:
      * ln IS(T) - (XTI/N) ln(T/Tnom) = ln IS + EG (T/Tnom - 1)/(N Vt(T)). Returns {IS(Tnom) [A], EG [eV]}.
      */
