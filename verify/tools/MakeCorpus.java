@@ -156,7 +156,7 @@ public final class MakeCorpus {
     /** The parts. Every value is invented; none is taken from a real device. */
     static List<Part> parts() {
         List<Part> p = new ArrayList<>();
-        p.add(new Part("alder", "ALDER", "silicon", "small-signal silicon switching diode, chamber logger wanders",
+        p.add(new Part("alder", "ALDER", "silicon-pn", "small-signal silicon switching diode, chamber logger wanders",
                 "IS=2.2e-15 N=1.03 RS=0.6 ISR=4e-12 NR=2 IKF=0.08 CJO=1.8e-12 VJ=0.72 M=0.36 TT=4e-9 EG=1.11 XTI=3",
                 0, 0.4e-12, true, d(-40, 25, 85, 125), d(-9, -1, 6), BENCH_FORWARD,
                 d(25, 125), d(0.5, 1, 2, 5, 10, 20, 40), NONE, LEAKAGE, BENCH_BREAKDOWN,
@@ -175,7 +175,7 @@ public final class MakeCorpus {
                 0, 0, true, d(-20, 25, 60), d(-5, -1.3, 8), BENCH_FORWARD,
                 d(25, 60), d(0.5, 1, 2, 5, 10, 20), NONE, LEAKAGE, BENCH_BREAKDOWN,
                 NONE, NONE, LCR, false, 8400));
-        p.add(new Part("elm", "ELM", "silicon", "kilovolt rectifier, avalanche near 1.1 kV, diffusion capacitance at 0 V",
+        p.add(new Part("elm", "ELM", "silicon-pn", "kilovolt rectifier, avalanche near 1.1 kV, diffusion capacitance at 0 V",
                 "IS=4e-9 N=1.85 RS=0.045 IKF=0.9 BV=1100 IBV=5e-6 NBV=20 TCV=-0.9 CJO=1.5e-11 VJ=0.6 M=0.4 TT=5e-6 EG=1.11 XTI=3",
                 0, 0, false, d(25, 75, 125), d(-6, 0, 6), METER_FORWARD,
                 d(25, 75, 125), d(10, 100, 300, 600), steps125(1e-6, 1e-3), LEAKAGE, jitter(0.15),
@@ -200,7 +200,7 @@ public final class MakeCorpus {
                 0, 0, true, d(25, 85, 125), d(-8, -1.3, 6), METER_FORWARD,
                 d(25, 85, 125), d(5, 20, 40), logSpaced(1e-6, 2e-2, 4), LEAKAGE, jitter(0.015),
                 NONE, NONE, LCR, false, 8900));
-        p.add(new Part("juniper", "JUNIPER", "silicon", "leaky high-N 100 V junction up to 150 degC, diffusion capacitance at 0 V",
+        p.add(new Part("juniper", "JUNIPER", "silicon-pn", "leaky high-N 100 V junction up to 150 degC, diffusion capacitance at 0 V",
                 "IS=2e-9 N=1.8 RS=0.8 BV=100 IBV=1e-4 NBV=3 TCV=-0.06 CJO=2e-10 VJ=0.7 M=0.4 TT=2e-6 EG=1.11 XTI=3",
                 0, 0, true, d(25, 85, 125, 150), d(-8, -1, 6), BENCH_FORWARD,
                 d(25, 85, 125, 150), d(1, 5, 20, 50, 80), logSpaced(2e-5, 2e-2, 4), LEAKAGE, jitter(0.010),
@@ -210,17 +210,17 @@ public final class MakeCorpus {
                 0, 0, false, d(25, 100), d(-8, -1.5, 6), BENCH_FORWARD,
                 d(25, 100), d(20, 100, 150), logSpaced(2e-6, 5e-3, 4), LEAKAGE, BENCH_BREAKDOWN,
                 NONE, NONE, LCR, false, 9100));
-        p.add(new Part("maple", "MAPLE", "silicon", "small diode with a 150 kOhm surface-leakage path across it",
+        p.add(new Part("maple", "MAPLE", "silicon-pn", "small diode with a 150 kOhm surface-leakage path across it",
                 "IS=1e-15 N=1.0 RS=1.2 ISR=5e-12 NR=2 EG=1.11 XTI=3",
                 150e3, 0, true, d(25, 85), d(-8, -1.3, 8), BENCH_FORWARD,
                 d(25, 85), d(0.1, 0.5, 1, 2, 5, 10, 20, 30), NONE, LEAKAGE, BENCH_BREAKDOWN,
                 NONE, NONE, LCR, false, 9200));
-        p.add(new Part("nettle", "NETTLE", "silicon", "leaky rectifier with a 2 MOhm shunt, up to 150 degC",
+        p.add(new Part("nettle", "NETTLE", "silicon-pn", "leaky rectifier with a 2 MOhm shunt, up to 150 degC",
                 "IS=1e-10 N=1.6 RS=0.05 IKF=1.5 EG=1.11 XTI=3",
                 2e6, 0, false, d(25, 100, 150), d(-7, 0, 6), BENCH_FORWARD,
                 d(25, 100, 150), d(1, 10, 50, 100, 200, 400), NONE, LEAKAGE, BENCH_BREAKDOWN,
                 NONE, NONE, LCR, false, 9300));
-        p.add(new Part("oak", "OAK", "silicon", "recombination-dominated junction (ISR above IS up to about 1 mA), with C-V",
+        p.add(new Part("oak", "OAK", "silicon-pn", "recombination-dominated junction (ISR above IS up to about 1 mA), with C-V",
                 "IS=1e-16 N=1.0 RS=0.3 ISR=2e-10 NR=2 CJO=4e-11 VJ=0.7 M=0.5 EG=1.11 XTI=3",
                 0, 0, true, d(-40, 25, 85, 125), d(-9, -1.5, 6), BENCH_FORWARD,
                 NONE, NONE, NONE, LEAKAGE, BENCH_BREAKDOWN,
@@ -235,13 +235,13 @@ public final class MakeCorpus {
                 0, 0, true, d(-20, 25, 85, 125), d(-7, -0.5, 6), BENCH_FORWARD,
                 d(25, 85), d(1, 5, 10, 20, 30), steps125(2e-4, 1e-2), LEAKAGE, BENCH_BREAKDOWN,
                 d(25), linear(0.2, -20, 23), LCR, false, 9600));
-        p.add(new Part("rowan", "ROWAN", "silicon", "0.3 pF RF diode on a fixture with 0.5 pF stray, 0.02 pF meter noise",
+        p.add(new Part("rowan", "ROWAN", "silicon-pn", "0.3 pF RF diode on a fixture with 0.5 pF stray, 0.02 pF meter noise",
                 "IS=5e-15 N=1.05 RS=3 CJO=3e-13 VJ=0.65 M=0.4 EG=1.11 XTI=3",
                 0, 0.5e-12, true, d(25, 85), d(-8, -2, 6), BENCH_FORWARD,
                 NONE, NONE, NONE, LEAKAGE, BENCH_BREAKDOWN,
                 d(25, 85, 125), linear(0.2, -20, 41), new CapacitanceNoise(0, 0.02e-12, "capacitance 0.02 pF"),
                 false, 9700));
-        p.add(new Part("willow", "WILLOW", "silicon", "3 A rectifier with high injection, 4.5-digit meter",
+        p.add(new Part("willow", "WILLOW", "silicon-pn", "3 A rectifier with high injection, 4.5-digit meter",
                 "IS=2e-12 N=1.3 RS=0.012 IKF=2 ISR=1e-9 NR=2.2 CJO=3e-10 VJ=0.5 M=0.45 EG=1.11 XTI=3",
                 0, 0, true, d(-40, 25, 85, 150), d(-6, 0.5, 6), METER_FORWARD,
                 d(25, 150), d(5, 50, 200), NONE, LEAKAGE, BENCH_BREAKDOWN,

@@ -16,9 +16,17 @@ import org.cardwright.model.SimulatorOptions;
  * @param nominalTemperature TNOM [K]
  * @param options     GMIN and RELTOL of the model
  * @param selfHeating what to do when the data show self-heating
+ * @param sweepGap    logged temperatures further apart than this start a new sweep
+ *                    ({@link org.cardwright.model.SweepTemperatures}) [K]
  */
 public record FitSettings(Map<Param, ParameterRule> rules, DeviceKind kind, double nominalTemperature,
-                          SimulatorOptions options, SelfHeatingRemedy selfHeating) {
+                          SimulatorOptions options, SelfHeatingRemedy selfHeating, double sweepGap) {
+
+    /** Settings with the default sweep gap ({@link org.cardwright.model.SweepTemperatures#DEFAULT_GAP}). */
+    public FitSettings(Map<Param, ParameterRule> rules, DeviceKind kind, double nominalTemperature,
+                       SimulatorOptions options, SelfHeatingRemedy selfHeating) {
+        this(rules, kind, nominalTemperature, options, selfHeating, org.cardwright.model.SweepTemperatures.DEFAULT_GAP);
+    }
 
     /** The two remedies for self-heating in forward data. */
     public enum SelfHeatingRemedy {
@@ -40,6 +48,9 @@ public record FitSettings(Map<Param, ParameterRule> rules, DeviceKind kind, doub
         rules = Map.copyOf(rules);
         if (!(nominalTemperature > 0)) {
             throw new IllegalArgumentException("TNOM must be above 0 K, got " + nominalTemperature);
+        }
+        if (!(sweepGap >= 0) || !Double.isFinite(sweepGap)) {
+            throw new IllegalArgumentException("sweep gap must be 0 or more kelvin, got " + sweepGap);
         }
     }
 
@@ -64,22 +75,27 @@ public record FitSettings(Map<Param, ParameterRule> rules, DeviceKind kind, doub
                 m.put(r.param(), r);
             }
         }
-        return new FitSettings(m, kind, tnom, options, selfHeating);
+        return new FitSettings(m, kind, tnom, options, selfHeating, sweepGap);
     }
 
     /** This with another device kind. */
     public FitSettings withKind(DeviceKind k) {
-        return new FitSettings(rules, k, nominalTemperature, options, selfHeating);
+        return new FitSettings(rules, k, nominalTemperature, options, selfHeating, sweepGap);
     }
 
     /** This evaluated with other equations or options (a dialect's flavour). */
     public FitSettings withOptions(SimulatorOptions other) {
-        return new FitSettings(rules, kind, nominalTemperature, other, selfHeating);
+        return new FitSettings(rules, kind, nominalTemperature, other, selfHeating, sweepGap);
     }
 
     /** This with another self-heating remedy. */
     public FitSettings withSelfHeating(SelfHeatingRemedy remedy) {
-        return new FitSettings(rules, kind, nominalTemperature, options, remedy);
+        return new FitSettings(rules, kind, nominalTemperature, options, remedy, sweepGap);
+    }
+
+    /** This with another gap between sweeps [K]. */
+    public FitSettings withSweepGap(double gap) {
+        return new FitSettings(rules, kind, nominalTemperature, options, selfHeating, gap);
     }
 
     /** The rule for {@code p}, or null. */

@@ -8,6 +8,7 @@ import org.cardwright.sim.Bias;
 import org.cardwright.sim.CapacitanceEngine;
 import org.cardwright.sim.CardUnderTest;
 import org.cardwright.sim.process.SimulationException;
+import org.cardwright.model.SweepTemperatures;
 
 /**
  * Re-simulates a card's small-signal capacitance at the measured C-V voltages with one engine and compares it
@@ -43,11 +44,13 @@ public final class CapacitanceVerifier {
         List<Double> simulated = engine.capacitance(card, biases, frequency);
         List<CapacitanceResidual> residuals = new ArrayList<>(points.size());
         Map<Double, List<CapacitanceResidual>> byT = new TreeMap<>();
+        double[] sweepOf = SweepTemperatures.labels(points.stream().mapToDouble(CapacitanceMeasurement::temperature)
+                .toArray(), SweepTemperatures.DEFAULT_GAP);
         for (int i = 0; i < points.size(); i++) {
             CapacitanceMeasurement p = points.get(i);
             CapacitanceResidual r = new CapacitanceResidual(p, p.capacitance() - strayCapacitance, simulated.get(i));
             residuals.add(r);
-            byT.computeIfAbsent(p.temperature(), t -> new ArrayList<>()).add(r);
+            byT.computeIfAbsent(sweepOf[i], t -> new ArrayList<>()).add(r);
         }
         List<CapacitanceVerdict> verdicts = new ArrayList<>();
         for (Map.Entry<Double, List<CapacitanceResidual>> e : byT.entrySet()) {

@@ -9,6 +9,7 @@ import org.cardwright.sim.CardUnderTest;
 import org.cardwright.sim.OperatingPoint;
 import org.cardwright.sim.SimulationEngine;
 import org.cardwright.sim.process.SimulationException;
+import org.cardwright.model.SweepTemperatures;
 
 /** Re-simulates a card at the measured currents with one engine and compares voltages, per temperature. */
 public final class Verifier {
@@ -34,10 +35,12 @@ public final class Verifier {
         List<OperatingPoint> sim = engine.dc(card, biases);
         List<PointResidual> residuals = new ArrayList<>(forward.size());
         Map<Double, List<PointResidual>> byT = new TreeMap<>();
+        double[] sweepOf = SweepTemperatures.labels(forward.stream().mapToDouble(MeasuredPoint::temperature).toArray(),
+                SweepTemperatures.DEFAULT_GAP);
         for (int i = 0; i < forward.size(); i++) {
             PointResidual r = new PointResidual(forward.get(i), sim.get(i).voltage());
             residuals.add(r);
-            byT.computeIfAbsent(forward.get(i).temperature(), t -> new ArrayList<>()).add(r);
+            byT.computeIfAbsent(sweepOf[i], t -> new ArrayList<>()).add(r);
         }
         List<TemperatureVerdict> verdicts = new ArrayList<>();
         for (Map.Entry<Double, List<PointResidual>> e : byT.entrySet()) {
