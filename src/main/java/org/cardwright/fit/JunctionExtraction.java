@@ -119,7 +119,8 @@ public final class JunctionExtraction {
                     deepest.where(), num(-deepest.current()), num(deepest.voltage()), ReverseAnalysis.BREAKDOWN_EXPONENT));
         }
         if (split.breakdown().size() >= MIN_BREAKDOWN_POINTS && !bvOff) {
-            long temps = split.breakdown().stream().mapToDouble(ReversePoint::temperature).distinct().count();
+            long temps = org.cardwright.model.SweepTemperatures.group(split.breakdown(), ReversePoint::temperature,
+                    settings.sweepGap()).size();
             boolean tempco = temps >= 2 && isVariable(Param.TCV);
             double[] s = ReverseAnalysis.start(split.breakdown(), params.get(Param.RS), settings.nominalTemperature(), tempco,
                     settings.sweepGap());
