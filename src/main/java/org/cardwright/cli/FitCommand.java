@@ -77,6 +77,11 @@ final class FitCommand implements Callable<Integer> {
                     + "(leave out the points whose voltage the warming moves by more than 0.1 mV, fit without RTH0). Default: ${DEFAULT-VALUE}.")
     String selfHeating;
 
+    @Option(names = "--sweep-gap", paramLabel = "KELVIN", defaultValue = "1",
+            description = "Logged temperatures further apart than this start a new sweep; closer ones (a chamber logger's wander) "
+                    + "form one sweep, each point keeping its own temperature in the model. 0: every distinct temperature is a sweep. Default: ${DEFAULT-VALUE} K.")
+    double sweepGap;
+
     @Option(names = "--robust",
             description = "Fit with a robust loss (Huber weights): points far off the curve count less, and are listed by file and line.")
     boolean robust;
@@ -116,7 +121,7 @@ final class FitCommand implements Callable<Integer> {
                 DeviceKind.byOptionName(kind), parsed, digits, force, Optional.ofNullable(templates),
                 reading.capacitance(),
                 reading.bench(!noMeterCorrection),
-                selfHeatingRemedy(selfHeating), robust);
+                selfHeatingRemedy(selfHeating), robust, sweepGap);
         FitOutcome outcome = new FitWorkflow().run(request, o -> FitJson.write(name, o));
         spec.commandLine().getOut().print(FitText.render(name, outcome));
         spec.commandLine().getOut().flush();

@@ -62,6 +62,11 @@ final class VerifyCommand implements Callable<Integer> {
             description = "Largest residual at any point, in mV (default: ${DEFAULT-VALUE}).")
     double limitMax;
 
+    @Option(names = "--verdict", paramLabel = "BASIS", defaultValue = "noise",
+            description = "What decides pass or fail: noise (the residual RMS against the data's own uncertainty, stated or "
+                    + "estimated from the residuals' point-to-point scatter) or fixed (the engineering limits). Both figures are printed. Default: ${DEFAULT-VALUE}.")
+    String verdict;
+
     @Option(names = "--json", paramLabel = "FILE", description = "Also write the result, point by point, as JSON.")
     Path json;
 
@@ -92,6 +97,14 @@ final class VerifyCommand implements Callable<Integer> {
         return Dialect.NGSPICE;
     }
 
+    private static org.cardwright.verify.VerdictBasis verdictBasis(String text) {
+        return switch (text.trim().toLowerCase(java.util.Locale.ROOT)) {
+            case "noise" -> org.cardwright.verify.VerdictBasis.NOISE;
+            case "fixed" -> org.cardwright.verify.VerdictBasis.FIXED;
+            default -> throw new IllegalArgumentException("--verdict takes noise or fixed, not '" + text + "'");
+        };
+    }
+
     @Override
     public Integer call() throws Exception {
         simulatorTimeLimit.apply();
@@ -110,7 +123,7 @@ final class VerifyCommand implements Callable<Integer> {
                 reading.temperatureKelvin(),
                 new Tolerance(limitRms * 1e-3, limitMax * 1e-3), Optional.ofNullable(json), force,
                 reading.capacitance(),
-                reading.bench(true));
+                reading.bench(true), verdictBasis(verdict));
         JunctionVerification v = new VerifyWorkflow().runAll(request, r -> VerificationJson.write(r, Inputs.displayName(card)));
         if (html != null) {
             OutputFiles.writeAtomically(html, HtmlReport.render(v, Inputs.displayName(card)));

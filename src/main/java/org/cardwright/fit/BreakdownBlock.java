@@ -70,10 +70,9 @@ final class BreakdownBlock implements ResidualBlock {
     @Override
     public List<KindResiduals> summary(DiodeParameters p) {
         double[] v = voltages(p);
-        Map<Double, List<Integer>> byT = new TreeMap<>();
-        for (int i = 0; i < v.length; i++) {
-            byT.computeIfAbsent(points.get(i).temperature(), t -> new ArrayList<>()).add(i);
-        }
+        Map<Double, List<Integer>> byT = org.cardwright.model.SweepTemperatures.groupIndices(
+                points.stream().mapToDouble(ReversePoint::temperature).toArray(),
+                org.cardwright.model.SweepTemperatures.DEFAULT_GAP);
         List<KindResiduals> out = new ArrayList<>();
         for (Map.Entry<Double, List<Integer>> e : byT.entrySet()) {
             double sum = 0;

@@ -3,12 +3,14 @@ package org.cardwright.fit;
 import java.util.ArrayList;
 import java.util.EnumSet;
 import java.util.List;
+import java.util.Map;
 import java.util.Set;
 import org.cardwright.model.DiodeAtTemperature;
 import org.cardwright.model.DiodeParameters;
 import org.cardwright.model.JunctionCapacitance;
 import org.cardwright.model.Param;
 import org.cardwright.model.SimulatorOptions;
+import org.cardwright.model.SweepTemperatures;
 import org.cardwright.model.TemperatureLaws;
 
 /**
@@ -112,17 +114,20 @@ public final class CapacitanceBlock implements ResidualBlock {
     public List<CapacitanceResiduals> statistics(DiodeParameters p) {
         double[] c = capacitances(p);
         List<CapacitanceResiduals> out = new ArrayList<>();
-        for (int k = 0; k < temperatures.length; k++) {
+        double[] pointTemperatures = new double[points.length];
+        for (int i = 0; i < points.length; i++) {
+            pointTemperatures[i] = points[i].temperature();
+        }
+        // one row per sweep (logged temperatures that wander form one sweep), not per distinct temperature
+        for (Map.Entry<Double, List<Integer>> e : SweepTemperatures.groupIndices(pointTemperatures,
+                SweepTemperatures.DEFAULT_GAP).entrySet()) {
             double sum = 0;
             double max = -1;
             int count = 0;
             double lo = Double.POSITIVE_INFINITY;
             double hi = Double.NEGATIVE_INFINITY;
             CapacitancePoint worst = null;
-            for (int i = 0; i < points.length; i++) {
-                if (group[i] != k) {
-                    continue;
-                }
+            for (int i : e.getValue()) {
                 CapacitancePoint pt = points[i];
                 double device = pt.capacitance() - strayCapacitance;
                 double r = 100 * (c[i] - device) / device;
@@ -135,7 +140,7 @@ public final class CapacitanceBlock implements ResidualBlock {
                 lo = Math.min(lo, pt.voltage());
                 hi = Math.max(hi, pt.voltage());
             }
-            out.add(new CapacitanceResiduals(temperatures[k], count, lo, hi, Math.sqrt(sum / count), max,
+            out.add(new CapacitanceResiduals(e.getKey(), count, lo, hi, Math.sqrt(sum / count), max,
                     worst.voltage(), worst.where()));
         }
         return out;

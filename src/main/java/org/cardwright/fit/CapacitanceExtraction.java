@@ -218,15 +218,15 @@ public final class CapacitanceExtraction {
         if (points.isEmpty()) {
             throw new FitInputException("no C-V points to fit");
         }
-        Map<Double, List<CapacitancePoint>> byT = new TreeMap<>();
         for (CapacitancePoint p : points) {
             if (!(p.capacitance() - stray > 0)) {
                 throw new FitInputException(String.format(Locale.ROOT,
                         "%s: capacitance %s F is not above the stray capacitance %s F given for subtraction",
                         p.where(), num(p.capacitance()), num(stray)));
             }
-            byT.computeIfAbsent(p.temperature(), t -> new ArrayList<>()).add(p);
         }
+        Map<Double, List<CapacitancePoint>> byT = org.cardwright.model.SweepTemperatures.group(points, CapacitancePoint::temperature,
+                settings.sweepGap());
         return byT;
     }
 

@@ -17,9 +17,11 @@ import org.cardwright.model.SimulatorOptions;
  * @param options     GMIN and RELTOL of the model
  * @param selfHeating what to do when the data show self-heating
  * @param shunt       whether a resistor between the terminals is decided by the data, left out or always fitted
+ * @param sweepGap    logged temperatures further apart than this start a new sweep
+ *                    ({@link org.cardwright.model.SweepTemperatures}) [K]
  */
 public record FitSettings(Map<Param, ParameterRule> rules, DeviceKind kind, double nominalTemperature,
-                          SimulatorOptions options, SelfHeatingRemedy selfHeating, ShuntChoice shunt) {
+                          SimulatorOptions options, SelfHeatingRemedy selfHeating, ShuntChoice shunt, double sweepGap) {
 
     /** The resistor between the terminals (docs/fitting.md, section 2.5). */
     public enum ShuntChoice {
@@ -31,10 +33,23 @@ public record FitSettings(Map<Param, ParameterRule> rules, DeviceKind kind, doub
         ON
     }
 
-    /** Settings whose shunt the data decide. */
+    /** Settings whose shunt the data decide, with the default sweep gap. */
     public FitSettings(Map<Param, ParameterRule> rules, DeviceKind kind, double nominalTemperature,
                        SimulatorOptions options, SelfHeatingRemedy selfHeating) {
-        this(rules, kind, nominalTemperature, options, selfHeating, ShuntChoice.DECIDE);
+        this(rules, kind, nominalTemperature, options, selfHeating, ShuntChoice.DECIDE,
+                org.cardwright.model.SweepTemperatures.DEFAULT_GAP);
+    }
+
+    /** Settings with the default sweep gap ({@link org.cardwright.model.SweepTemperatures#DEFAULT_GAP}). */
+    public FitSettings(Map<Param, ParameterRule> rules, DeviceKind kind, double nominalTemperature,
+                       SimulatorOptions options, SelfHeatingRemedy selfHeating, ShuntChoice shunt) {
+        this(rules, kind, nominalTemperature, options, selfHeating, shunt, org.cardwright.model.SweepTemperatures.DEFAULT_GAP);
+    }
+
+    /** Settings whose shunt the data decide, with a stated sweep gap [K]. */
+    public FitSettings(Map<Param, ParameterRule> rules, DeviceKind kind, double nominalTemperature,
+                       SimulatorOptions options, SelfHeatingRemedy selfHeating, double sweepGap) {
+        this(rules, kind, nominalTemperature, options, selfHeating, ShuntChoice.DECIDE, sweepGap);
     }
 
     /** The two remedies for self-heating in forward data. */
@@ -59,6 +74,9 @@ public record FitSettings(Map<Param, ParameterRule> rules, DeviceKind kind, doub
         if (!(nominalTemperature > 0)) {
             throw new IllegalArgumentException("TNOM must be above 0 K, got " + nominalTemperature);
         }
+        if (!(sweepGap >= 0) || !Double.isFinite(sweepGap)) {
+            throw new IllegalArgumentException("sweep gap must be 0 or more kelvin, got " + sweepGap);
+        }
     }
 
     /** Silicon pn, TNOM 27 degrees C, ngspice defaults, no rules. */
@@ -82,27 +100,32 @@ public record FitSettings(Map<Param, ParameterRule> rules, DeviceKind kind, doub
                 m.put(r.param(), r);
             }
         }
-        return new FitSettings(m, kind, tnom, options, selfHeating, shunt);
+        return new FitSettings(m, kind, tnom, options, selfHeating, shunt, sweepGap);
     }
 
     /** This with another device kind. */
     public FitSettings withKind(DeviceKind k) {
-        return new FitSettings(rules, k, nominalTemperature, options, selfHeating, shunt);
+        return new FitSettings(rules, k, nominalTemperature, options, selfHeating, shunt, sweepGap);
     }
 
     /** This evaluated with other equations or options (a dialect's flavour). */
     public FitSettings withOptions(SimulatorOptions other) {
-        return new FitSettings(rules, kind, nominalTemperature, other, selfHeating, shunt);
+        return new FitSettings(rules, kind, nominalTemperature, other, selfHeating, shunt, sweepGap);
     }
 
     /** This with another self-heating remedy. */
     public FitSettings withSelfHeating(SelfHeatingRemedy remedy) {
-        return new FitSettings(rules, kind, nominalTemperature, options, remedy, shunt);
+        return new FitSettings(rules, kind, nominalTemperature, options, remedy, shunt, sweepGap);
     }
 
     /** This with another choice about the resistor between the terminals. */
     public FitSettings withShunt(ShuntChoice choice) {
-        return new FitSettings(rules, kind, nominalTemperature, options, selfHeating, choice);
+        return new FitSettings(rules, kind, nominalTemperature, options, selfHeating, choice, sweepGap);
+    }
+
+    /** This with another gap between sweeps [K]. */
+    public FitSettings withSweepGap(double gap) {
+        return new FitSettings(rules, kind, nominalTemperature, options, selfHeating, shunt, gap);
     }
 
     /** The rule for {@code p}, or null. */

@@ -624,10 +624,7 @@ public final class ForwardExtraction {
         if (points.isEmpty()) {
             throw new FitInputException("no forward points (positive current) to fit");
         }
-        Map<Double, List<FitPoint>> sweeps = new TreeMap<>();
-        for (FitPoint p : points) {
-            sweeps.computeIfAbsent(p.temperature(), t -> new ArrayList<>()).add(p);
-        }
+        Map<Double, List<FitPoint>> sweeps = org.cardwright.model.SweepTemperatures.group(points, FitPoint::temperature, settings.sweepGap());
         double widest = 0;
         FitPoint lo = null;
         FitPoint hi = null;

@@ -114,7 +114,7 @@ public final class JunctionExtraction {
         }
 
         // ---- reverse: breakdown fit and leakage check ----------------------------------------------------
-        ReverseAnalysis.Split split = ReverseAnalysis.split(data.reverse());
+        ReverseAnalysis.Split split = ReverseAnalysis.split(data.reverse(), settings.sweepGap());
         ParameterRule bvRule = settings.rule(Param.BV);
         boolean bvOff = bvRule != null && bvRule.kind() == ParameterRule.Kind.OFF;
         if (!data.reverse().isEmpty() && split.breakdown().size() < MIN_BREAKDOWN_POINTS && !bvOff) {
@@ -125,9 +125,11 @@ public final class JunctionExtraction {
                     deepest.where(), num(-deepest.current()), num(deepest.voltage()), ReverseAnalysis.BREAKDOWN_EXPONENT));
         }
         if (split.breakdown().size() >= MIN_BREAKDOWN_POINTS && !bvOff) {
-            long temps = split.breakdown().stream().mapToDouble(ReversePoint::temperature).distinct().count();
+            long temps = org.cardwright.model.SweepTemperatures.group(split.breakdown(), ReversePoint::temperature,
+                    settings.sweepGap()).size();
             boolean tempco = temps >= 2 && isVariable(Param.TCV);
-            double[] s = ReverseAnalysis.start(split.breakdown(), params.get(Param.RS), settings.nominalTemperature(), tempco);
+            double[] s = ReverseAnalysis.start(split.breakdown(), params.get(Param.RS), settings.nominalTemperature(), tempco,
+                    settings.sweepGap());
             params = put(params, start, Param.BV, s[0]);
             params = put(params, start, Param.NBV, s[1]);
             params = put(params, start, Param.IBV, s[2]);

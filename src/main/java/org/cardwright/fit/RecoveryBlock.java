@@ -54,10 +54,9 @@ final class RecoveryBlock implements ResidualBlock {
     @Override
     public List<KindResiduals> summary(DiodeParameters p) {
         double[] t = times(p);
-        java.util.Map<Double, List<Integer>> byT = new java.util.TreeMap<>();
-        for (int i = 0; i < t.length; i++) {
-            byT.computeIfAbsent(points.get(i).temperature(), k -> new java.util.ArrayList<>()).add(i);
-        }
+        java.util.Map<Double, List<Integer>> byT = org.cardwright.model.SweepTemperatures.groupIndices(
+                points.stream().mapToDouble(RecoveryPoint::temperature).toArray(),
+                org.cardwright.model.SweepTemperatures.DEFAULT_GAP);
         List<KindResiduals> out = new java.util.ArrayList<>();
         for (var e : byT.entrySet()) {
             double sum = 0;

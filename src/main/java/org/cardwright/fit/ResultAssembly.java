@@ -25,9 +25,11 @@ final class ResultAssembly {
                               List<FitPoint> points, List<TermDecision> decisions, List<String> warningsIn,
                               Map<Param, Double> start, Function<Param, double[]> bounds) {
         List<String> warnings = new ArrayList<>(warningsIn);
+        double[] sweepOf = org.cardwright.model.SweepTemperatures.labels(
+                points.stream().mapToDouble(FitPoint::temperature).toArray(), settings.sweepGap());
         Map<Double, List<FitPoint>> sweeps = new TreeMap<>();
-        for (FitPoint pt : points) {
-            sweeps.computeIfAbsent(pt.temperature(), t -> new ArrayList<>()).add(pt);
+        for (int i = 0; i < points.size(); i++) {
+            sweeps.computeIfAbsent(sweepOf[i], t -> new ArrayList<>()).add(points.get(i));
         }
         FreeParameters layout = best.layout();
         JointProblem model = new JointProblem(blocks, layout);
@@ -95,7 +97,7 @@ final class ResultAssembly {
             int count = 0;
             for (int i = 0; i < points.size(); i++) {
                 FitPoint pt = points.get(i);
-                if (pt.temperature() != e.getKey()) {
+                if (sweepOf[i] != e.getKey()) {
                     continue;
                 }
                 double r = v[i] - pt.voltage();

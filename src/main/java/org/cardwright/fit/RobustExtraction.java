@@ -37,7 +37,7 @@ public final class RobustExtraction {
     public FitResult fit(ExtractionData data) throws FitInputException {
         JunctionExtraction plain = new JunctionExtraction(settings, capacitanceOptions);
         FitResult result = plain.fit(data);
-        ReverseAnalysis.Split split = ReverseAnalysis.split(data.reverse());
+        ReverseAnalysis.Split split = ReverseAnalysis.split(data.reverse(), settings.sweepGap());
         double[] weights = new double[data.forward().size() + split.breakdown().size()];
         Arrays.fill(weights, 1);
         double[] z = new double[weights.length];

@@ -12,6 +12,7 @@ import org.cardwright.verify.CapacitanceResidual;
 import org.cardwright.verify.CapacitanceVerification;
 import org.cardwright.verify.PointResidual;
 import org.cardwright.verify.Verification;
+import org.cardwright.model.SweepTemperatures;
 
 /**
  * The plots of the evidence page: measured points against the card's simulation, and the residuals against the
@@ -59,9 +60,15 @@ final class EvidencePlots {
 
     /** The temperatures a page plots, from its I-V and C-V sections [K]. */
     static NavigableSet<Double> temperaturesOf(List<Verification> junctions, List<CapacitanceVerification> capacitances) {
+        List<Double> all = new ArrayList<>();
+        junctions.forEach(v -> v.points().forEach(p -> all.add(p.point().temperature())));
+        capacitances.forEach(v -> v.points().forEach(p -> all.add(p.point().temperature())));
         NavigableSet<Double> t = new TreeSet<>();
-        junctions.forEach(v -> v.points().forEach(p -> t.add(p.point().temperature())));
-        capacitances.forEach(v -> v.points().forEach(p -> t.add(p.point().temperature())));
+        // one colour per sweep: logged temperatures that wander form one sweep (SweepTemperatures)
+        for (double label : SweepTemperatures.labels(all.stream().mapToDouble(Double::doubleValue).toArray(),
+                SweepTemperatures.DEFAULT_GAP)) {
+            t.add(label);
+        }
         return t;
     }
 
@@ -69,6 +76,11 @@ final class EvidencePlots {
     String colour(double temperature) {
         String c = colours.get(temperature);
         if (c == null) {
+            // a section's sweep label may differ from the page's by the wander of the rows it lacks
+            Map.Entry<Double, String> near = nearest(temperature);
+            if (near != null && Math.abs(near.getKey() - temperature) <= SweepTemperatures.DEFAULT_GAP) {
+                return near.getValue();
+            }
             throw new IllegalArgumentException("temperature " + temperature + " K is not among the page's temperatures");
         }
         return c;
@@ -168,8 +180,8 @@ final class EvidencePlots {
 
     /** Device capacitance (reading minus stray) and the card's capacitance in pF against bias voltage. */
     Figure capacitanceCurve(String id, CapacitanceVerification v) {
-        Map<Double, List<CapacitanceResidual>> byT = new TreeMap<>();
-        v.points().forEach(r -> byT.computeIfAbsent(r.point().temperature(), k -> new ArrayList<>()).add(r));
+        Map<Double, List<CapacitanceResidual>> byT = SweepTemperatures.group(v.points(), r -> r.point().temperature(),
+                SweepTemperatures.DEFAULT_GAP);
         double[] volts = range(v.points().stream().mapToDouble(r -> r.point().voltage()).toArray());
         double[] pf = range(v.points().stream().mapToDouble(r -> r.deviceCapacitance() * 1e12).toArray());
         double span = Math.max(pf[1] - pf[0], Math.abs(pf[1]) * 0.01);
@@ -209,8 +221,8 @@ final class EvidencePlots {
 
     /** Card minus measured capacitance in % of the measured, against bias voltage, with the limits. */
     Figure capacitanceResiduals(String id, CapacitanceVerification v) {
-        Map<Double, List<CapacitanceResidual>> byT = new TreeMap<>();
-        v.points().forEach(r -> byT.computeIfAbsent(r.point().temperature(), k -> new ArrayList<>()).add(r));
+        Map<Double, List<CapacitanceResidual>> byT = SweepTemperatures.group(v.points(), r -> r.point().temperature(),
+                SweepTemperatures.DEFAULT_GAP);
         double[] volts = range(v.points().stream().mapToDouble(r -> r.point().voltage()).toArray());
         double limit = v.tolerance().maxPercent();
         double extent = limit;
@@ -266,9 +278,17 @@ final class EvidencePlots {
     }
 
     private static Map<Double, List<PointResidual>> byTemperature(List<PointResidual> points) {
-        Map<Double, List<PointResidual>> byT = new TreeMap<>();
-        points.forEach(r -> byT.computeIfAbsent(r.point().temperature(), k -> new ArrayList<>()).add(r));
-        return byT;
+        return SweepTemperatures.group(points, r -> r.point().temperature(), SweepTemperatures.DEFAULT_GAP);
+    }
+
+    private Map.Entry<Double, String> nearest(double temperature) {
+        TreeMap<Double, String> m = (TreeMap<Double, String>) colours;
+        Map.Entry<Double, String> lo = m.floorEntry(temperature);
+        Map.Entry<Double, String> hi = m.ceilingEntry(temperature);
+        if (lo == null || (hi != null && hi.getKey() - temperature < temperature - lo.getKey())) {
+            return hi;
+        }
+        return lo;
     }
 
     /** {min, max} of finite values; {1, 1} when none. */

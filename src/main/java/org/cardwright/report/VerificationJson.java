@@ -87,6 +87,7 @@ public final class VerificationJson {
             o.put("worst_voltage", t.worstVoltage());
             o.put("worst_at", t.worstSource());
             o.put("pass", t.pass());
+            noise(o, t.noise(), t.fixedPass());
             temps.add(o);
         }
         root.put("temperatures", temps);
@@ -103,6 +104,16 @@ public final class VerificationJson {
         }
         root.put("points", pts);
         return root;
+    }
+
+    /** The noise-aware figures of one sweep (new keys beside the old ones). */
+    private static void noise(Map<String, Object> o, org.cardwright.verify.DataUncertainty u, boolean fixedPass) {
+        o.put("uncertainty", Double.isNaN(u.value()) ? null : u.value());
+        o.put("uncertainty_source", u.source());
+        o.put("rms_over_uncertainty", Double.isNaN(u.ratio()) ? null : u.ratio());
+        o.put("rms_over_uncertainty_limit", Double.isNaN(u.limitRatio()) ? null : u.limitRatio());
+        o.put("pass_uncertainty", u.pass());
+        o.put("pass_fixed_limits", fixedPass);
     }
 
     /** One voltage-residual section. */
@@ -127,6 +138,7 @@ public final class VerificationJson {
             o.put("pass", t.pass());
             o.put("points_with_stated_uncertainty", t.stated());
             o.put("beyond_three_sigma", t.beyondThree());
+            noise(o, t.noise(), t.fixedPass());
             temps.add(o);
         }
         root.put("temperatures", temps);

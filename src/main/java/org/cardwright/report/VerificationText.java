@@ -35,12 +35,12 @@ public final class VerificationText {
         sb.append(String.format(Locale.ROOT, "Limits per temperature: RMS %.2f %%, any point %.2f %%; stray %s subtracted, test frequency %s%n",
                 v.tolerance().rmsPercent(), v.tolerance().maxPercent(), Units.engineering(v.strayCapacitance(), "F"),
                 Units.engineering(v.frequency(), "Hz")));
-        sb.append(String.format(Locale.ROOT, "  %8s %6s %9s %9s  %-10s %-28s %s%n", "T [degC]", "points", "RMS [%]",
-                "max [%]", "largest at", "where", "result"));
+        sb.append(String.format(Locale.ROOT, "  %8s %6s %9s %9s  %-10s %-28s %-6s %s%n", "T [degC]", "points", "RMS [%]",
+                "max [%]", "largest at", "where", "result", "against the data's uncertainty; fixed limits"));
         for (CapacitanceVerdict t : v.perTemperature()) {
-            sb.append(String.format(Locale.ROOT, "  %8s %6d %9.3f %9.3f  %-10s %-28s %s%n", Units.celsius(t.temperature()),
+            sb.append(String.format(Locale.ROOT, "  %8s %6d %9.3f %9.3f  %-10s %-28s %-6s %s; limits %s%n", Units.celsius(t.temperature()),
                     t.points(), t.rmsPercent(), t.maxPercent(), Units.engineering(t.worstVoltage(), "V"), t.worstSource(),
-                    t.pass() ? "pass" : "FAIL"));
+                    t.pass() ? "pass" : "FAIL", t.noise().describe(1, "%"), t.fixedPass() ? "within" : "exceeded"));
         }
         return sb.append('\n').toString();
     }
@@ -84,12 +84,13 @@ public final class VerificationText {
         sb.append(title).append(": card ").append(v.cardName()).append(" re-simulated with ").append(v.engine()).append('\n');
         sb.append(String.format(Locale.ROOT, "Limits per temperature: RMS %s mV, any point %s mV%n",
                 Units.millivolts(v.tolerance().rms(), 2), Units.millivolts(v.tolerance().max(), 2)));
-        sb.append(String.format(Locale.ROOT, "  %8s %6s %9s %9s  %-10s %-28s %s%n", "T [degC]", "points", "RMS [mV]",
-                "max [mV]", "largest at", "where", "result"));
+        sb.append(String.format(Locale.ROOT, "  %8s %6s %9s %9s  %-10s %-28s %-6s %s%n", "T [degC]", "points", "RMS [mV]",
+                "max [mV]", "largest at", "where", "result", "against the data's uncertainty; fixed limits"));
         for (TemperatureVerdict t : v.perTemperature()) {
-            sb.append(String.format(Locale.ROOT, "  %8s %6d %9s %9s  %-10s %-28s %s%n", Units.celsius(t.temperature()),
+            sb.append(String.format(Locale.ROOT, "  %8s %6d %9s %9s  %-10s %-28s %-6s %s; limits %s%n", Units.celsius(t.temperature()),
                     t.points(), Units.millivolts(t.rms(), 3), Units.millivolts(t.max(), 3),
-                    Units.engineering(t.worstCurrent(), "A"), t.worstSource(), t.pass() ? "pass" : "FAIL"));
+                    Units.engineering(t.worstCurrent(), "A"), t.worstSource(), t.pass() ? "pass" : "FAIL",
+                    t.noise().describe(1e3, "mV"), t.fixedPass() ? "within" : "exceeded"));
         }
         for (TemperatureVerdict t : v.perTemperature()) {
             if (t.stated() > 0) {

@@ -9,6 +9,7 @@ import org.cardwright.sim.CardUnderTest;
 import org.cardwright.sim.OperatingPoint;
 import org.cardwright.sim.SimulationEngine;
 import org.cardwright.sim.process.SimulationException;
+import org.cardwright.model.SweepTemperatures;
 
 /**
  * Reverse leakage below breakdown: the current the card draws at each measured reverse voltage (DC), against
@@ -55,11 +56,13 @@ public record LeakageVerification(List<Verdict> perTemperature, List<String> not
         List<OperatingPoint> sim = engine.dc(card, biases);
         Map<Double, List<double[]>> byT = new TreeMap<>();
         Map<Double, List<String>> where = new TreeMap<>();
+        double[] sweepOf = SweepTemperatures.labels(points.stream().mapToDouble(MeasuredPoint::temperature).toArray(),
+                SweepTemperatures.DEFAULT_GAP);
         for (int i = 0; i < points.size(); i++) {
             double ratio = sim.get(i).current() / points.get(i).current();
             double decades = ratio > 0 ? Math.log10(ratio) : Double.POSITIVE_INFINITY;
-            byT.computeIfAbsent(points.get(i).temperature(), k -> new ArrayList<>()).add(new double[] {decades});
-            where.computeIfAbsent(points.get(i).temperature(), k -> new ArrayList<>())
+            byT.computeIfAbsent(sweepOf[i], k -> new ArrayList<>()).add(new double[] {decades});
+            where.computeIfAbsent(sweepOf[i], k -> new ArrayList<>())
                     .add(points.get(i).source() + ":" + points.get(i).line());
         }
         List<Verdict> out = new ArrayList<>();

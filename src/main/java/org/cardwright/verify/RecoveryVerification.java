@@ -6,6 +6,7 @@ import java.util.Map;
 import java.util.TreeMap;
 import org.cardwright.model.DiodeParameters;
 import org.cardwright.model.Param;
+import org.cardwright.model.SweepTemperatures;
 
 /**
  * Reverse-recovery records against the card's TT through the same charge-control relation the fit uses,
@@ -54,8 +55,8 @@ public record RecoveryVerification(List<Verdict> perTemperature) {
     /** Compares the card's TT with every record. */
     public static RecoveryVerification of(DiodeParameters card, List<Record> records) {
         double tt = card.get(Param.TT);
-        Map<Double, List<Record>> byT = new TreeMap<>();
-        records.forEach(r -> byT.computeIfAbsent(r.temperature(), k -> new ArrayList<>()).add(r));
+        Map<Double, List<Record>> byT = SweepTemperatures.group(records, Record::temperature,
+                SweepTemperatures.DEFAULT_GAP);
         List<Verdict> out = new ArrayList<>();
         for (Map.Entry<Double, List<Record>> e : byT.entrySet()) {
             double sum = 0;

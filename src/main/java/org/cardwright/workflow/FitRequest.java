@@ -30,12 +30,23 @@ import org.cardwright.fit.ParameterRule;
  *                    correct for the meter's draw (NaN resistance: none given)
  * @param selfHeating what to do when forward data show self-heating
  * @param robust      fit with Huber weights and list the outliers
+ * @param sweepGap    logged temperatures further apart than this start a new sweep [K]
  */
 public record FitRequest(List<Path> data, String name, List<Dialect> dialects, Path outDir, Optional<Path> json,
                          OptionalDouble temperature, DeviceKind kind, List<ParameterRule> rules, int digits,
                          boolean force, Optional<Path> templates,
                          CapacitanceOptions capacitance, BenchOptions bench,
-                         FitSettings.SelfHeatingRemedy selfHeating, boolean robust) {
+                         FitSettings.SelfHeatingRemedy selfHeating, boolean robust, double sweepGap) {
+
+    /** A request with the default sweep gap ({@link org.cardwright.model.SweepTemperatures#DEFAULT_GAP}). */
+    public FitRequest(List<Path> data, String name, List<Dialect> dialects, Path outDir, Optional<Path> json,
+                      OptionalDouble temperature, DeviceKind kind, List<ParameterRule> rules, int digits,
+                      boolean force, Optional<Path> templates, CapacitanceOptions capacitance, BenchOptions bench,
+                      FitSettings.SelfHeatingRemedy selfHeating, boolean robust) {
+        this(data, name, dialects, outDir, json, temperature, kind, rules, digits, force, templates, capacitance, bench,
+                selfHeating, robust, org.cardwright.model.SweepTemperatures.DEFAULT_GAP);
+    }
+
     public FitRequest {
         data = List.copyOf(data);
         dialects = List.copyOf(dialects);
@@ -45,6 +56,9 @@ public record FitRequest(List<Path> data, String name, List<Dialect> dialects, P
         }
         if (dialects.isEmpty()) {
             throw new IllegalArgumentException("no dialect given");
+        }
+        if (!(sweepGap >= 0) || !Double.isFinite(sweepGap)) {
+            throw new IllegalArgumentException("--sweep-gap must be 0 or more kelvin, got " + sweepGap);
         }
         if (digits < 4 || digits > 15) {
             throw new IllegalArgumentException("--digits must lie in 4..15, got " + digits);

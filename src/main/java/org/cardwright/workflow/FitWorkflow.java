@@ -73,14 +73,14 @@ public final class FitWorkflow {
         OutputFiles.checkWritable(targets, request.force());
 
         ReadOptions options = request.readOptions();
-        Inputs inputs = Inputs.read(request.data(), options);
+        Inputs inputs = Inputs.read(request.data(), options).withSweepNote(request.sweepGap());
         ExtractionData data = extractionData(inputs);
         if (data.isEmpty()) {
             throw new FitInputException(request.data().stream().map(Inputs::displayName).collect(Collectors.joining(", "))
                     + ": no I-V or C-V points to fit");
         }
         FitSettings settings = FitSettings.defaults().withKind(request.kind()).withRules(request.rules())
-                .withSelfHeating(request.selfHeating());
+                .withSelfHeating(request.selfHeating()).withSweepGap(request.sweepGap());
         FitResult full = extract(settings, request, data);
         if (data.forward().isEmpty() && full.fitted().stream().noneMatch(org.cardwright.fit.FittedParameter::fitted)) {
             // e.g. leakage without breakdown: a card of defaults would describe nothing the data determine
@@ -223,15 +223,16 @@ public final class FitWorkflow {
     }
 
     /**
-     * Local dV/d(ln |I|) of each point within its file and temperature, by differences to its neighbours in
+     * Local dV/d(ln |I|) of each point within its file and sweep, by differences to its neighbours in
      * current [V]; NaN where a sweep has fewer than two points.
      */
     static double[] slopes(List<Inputs.Located> pts) {
         double[] out = new double[pts.size()];
         java.util.Arrays.fill(out, Double.NaN);
         java.util.Map<String, List<Integer>> groups = new java.util.HashMap<>();
+        String[] keys = Inputs.sweepKeys(pts);
         for (int i = 0; i < pts.size(); i++) {
-            groups.computeIfAbsent(pts.get(i).source() + "@" + pts.get(i).point().temperature(), k -> new ArrayList<>()).add(i);
+            groups.computeIfAbsent(keys[i], k -> new ArrayList<>()).add(i);
         }
         for (List<Integer> g : groups.values()) {
             g.sort(java.util.Comparator.comparingDouble(i -> Math.abs(pts.get(i).point().current())));

@@ -11,6 +11,7 @@ import org.cardwright.data.MeasurementFile;
 import org.cardwright.data.MeasurementReader;
 import org.cardwright.data.ReadOptions;
 import org.cardwright.data.RecoveryReader;
+import org.cardwright.model.SweepTemperatures;
 
 /**
  * The measurement files of one job, read and sorted by kind (with a note for anything set aside; nothing
@@ -42,6 +43,46 @@ public record Inputs(List<MeasurementFile> files, List<Located> forward, List<Lo
      * @param source the file name as the user gave it
      */
     public record LocatedCapacitance(CvPoint point, String source) {
+    }
+
+    /**
+     * These inputs with a note stating how sweeps were formed, when the logged temperatures of a kind of data
+     * wander (more distinct temperatures than sweeps): the rule, and each kind's rows, distinct temperatures and
+     * sweeps. Unchanged when every sweep has one temperature.
+     *
+     * @param gap the sweep gap [K]
+     */
+    public Inputs withSweepNote(double gap) {
+        List<String> parts = new ArrayList<>();
+        sweepCount("forward I-V", forward.stream().mapToDouble(l -> l.point().temperature()).toArray(), gap, parts);
+        sweepCount("reverse I-V", reverse.stream().mapToDouble(l -> l.point().temperature()).toArray(), gap, parts);
+        sweepCount("C-V", capacitance.stream().mapToDouble(l -> l.point().temperature()).toArray(), gap, parts);
+        if (parts.isEmpty()) {
+            return this;
+        }
+        List<String> all = new ArrayList<>(notes);
+        all.add("sweeps: " + String.join("; ", parts) + " (" + SweepTemperatures.rule(gap) + "; --sweep-gap sets the gap)");
+        return new Inputs(files, forward, reverse, capacitance, recovery, all);
+    }
+
+    private static void sweepCount(String kind, double[] t, double gap, List<String> out) {
+        if (t.length == 0) {
+            return;
+        }
+        long distinct = java.util.Arrays.stream(t).distinct().count();
+        java.util.TreeSet<Double> sweeps = new java.util.TreeSet<>();
+        for (double label : SweepTemperatures.labels(t, gap)) {
+            sweeps.add(label);
+        }
+        if (distinct > sweeps.size()) {
+            StringBuilder b = new StringBuilder();
+            for (double k : sweeps) {
+                b.append(b.length() == 0 ? "" : ", ").append(String.format(java.util.Locale.ROOT, "%.2f",
+                        k - org.cardwright.model.Ngspice39.CELSIUS_TO_KELVIN));
+            }
+            out.add(String.format(java.util.Locale.ROOT, "%s: %d rows at %d logged temperatures form %d sweeps (%s degC)",
+                    kind, t.length, distinct, sweeps.size(), b));
+        }
     }
 
     /** Reads every file; points that are neither forward nor reverse (zero current, mixed signs) are set aside. */
@@ -92,14 +133,39 @@ public record Inputs(List<MeasurementFile> files, List<Located> forward, List<Lo
     }
 
     /**
+     * For each point, "file@T" where T is the label temperature of its sweep within its file
+     * ({@link SweepTemperatures}, default gap): rows whose logged temperature wanders stay one sweep.
+     */
+    static String[] sweepKeys(List<Located> points) {
+        String[] keys = new String[points.size()];
+        java.util.Map<String, List<Integer>> bySource = new java.util.LinkedHashMap<>();
+        for (int i = 0; i < points.size(); i++) {
+            bySource.computeIfAbsent(points.get(i).source(), k -> new ArrayList<>()).add(i);
+        }
+        for (java.util.Map.Entry<String, List<Integer>> e : bySource.entrySet()) {
+            List<Integer> idx = e.getValue();
+            double[] t = new double[idx.size()];
+            for (int k = 0; k < t.length; k++) {
+                t[k] = points.get(idx.get(k)).point().temperature();
+            }
+            double[] labels = SweepTemperatures.labels(t, SweepTemperatures.DEFAULT_GAP);
+            for (int k = 0; k < t.length; k++) {
+                keys[idx.get(k)] = e.getKey() + "@" + labels[k];
+            }
+        }
+        return keys;
+    }
+
+    /**
      * A source held at its current limit shows as several points of the same current at different voltages: the
      * diode did not set that current, the instrument did. Such points (same file and temperature, current equal
      * within {@value #SAME_CURRENT}, voltages more than {@value #PLATEAU_VOLTAGE} V apart) are set aside and named.
      */
     static void setAsideCompliance(List<Located> points, List<String> notes) {
         java.util.Map<String, List<Located>> groups = new java.util.LinkedHashMap<>();
-        for (Located l : points) {
-            groups.computeIfAbsent(l.source() + "@" + l.point().temperature(), k -> new ArrayList<>()).add(l);
+        String[] keys = sweepKeys(points);
+        for (int i = 0; i < points.size(); i++) {
+            groups.computeIfAbsent(keys[i], k -> new ArrayList<>()).add(points.get(i));
         }
         java.util.Set<Located> plateau = new java.util.LinkedHashSet<>();
         for (List<Located> g : groups.values()) {
@@ -144,8 +210,9 @@ public record Inputs(List<MeasurementFile> files, List<Located> forward, List<Lo
      */
     static void setAsideBelowFloor(List<Located> points, List<String> notes) {
         java.util.Map<String, List<Located>> groups = new java.util.LinkedHashMap<>();
-        for (Located l : points) {
-            groups.computeIfAbsent(l.source() + "@" + l.point().temperature(), k -> new ArrayList<>()).add(l);
+        String[] keys = sweepKeys(points);
+        for (int i = 0; i < points.size(); i++) {
+            groups.computeIfAbsent(keys[i], k -> new ArrayList<>()).add(points.get(i));
         }
         java.util.Set<Located> floor = new java.util.LinkedHashSet<>();
         for (List<Located> g : groups.values()) {

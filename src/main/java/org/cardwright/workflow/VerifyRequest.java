@@ -22,10 +22,21 @@ import org.cardwright.verify.Tolerance;
  * @param force       allow replacing an existing JSON file
  * @param capacitance how the C-V readings were taken (stray capacitance, test frequency)
  * @param bench       how bench logs are read (meter resistance, loading correction)
+ * @param verdict     what decides pass or fail: the data's own uncertainty or the fixed limits
  */
 public record VerifyRequest(Path card, List<Path> data, String engine, Optional<String> model, Dialect dialect,
                             OptionalDouble temperature, Tolerance tolerance, Optional<Path> json, boolean force,
-                            CapacitanceOptions capacitance, FitRequest.BenchOptions bench) {
+                            CapacitanceOptions capacitance, FitRequest.BenchOptions bench,
+                            org.cardwright.verify.VerdictBasis verdict) {
+
+    /** A request judged by the fixed limits (the uncertainty figures are reported too). */
+    public VerifyRequest(Path card, List<Path> data, String engine, Optional<String> model, Dialect dialect,
+                         OptionalDouble temperature, Tolerance tolerance, Optional<Path> json, boolean force,
+                         CapacitanceOptions capacitance, FitRequest.BenchOptions bench) {
+        this(card, data, engine, model, dialect, temperature, tolerance, json, force, capacitance, bench,
+                org.cardwright.verify.VerdictBasis.FIXED);
+    }
+
     public VerifyRequest {
         data = List.copyOf(data);
         if (data.isEmpty()) {

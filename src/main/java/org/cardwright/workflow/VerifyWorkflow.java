@@ -101,7 +101,7 @@ public final class VerifyWorkflow {
                 double sigma = raw.hasVoltageSigma() || raw.hasCurrentSigma() ? p.sigma() : Double.NaN;
                 pts.add(new MeasuredPoint(p.voltage(), p.current(), p.temperature(), p.source(), p.line(), sigma));
             }
-            forward = Optional.of(new Verifier(engine, request.tolerance()).verify(card, pts, List.of()));
+            forward = Optional.of(new Verifier(engine, request.tolerance(), request.verdict()).verify(card, pts, List.of()));
         }
 
         Optional<Verification> breakdown = Optional.empty();
@@ -121,7 +121,7 @@ public final class VerifyWorkflow {
             if (!parsed.parameters().isGiven(org.cardwright.model.Param.BV) || !request.dialect().flavour().spiceReverse()) {
                 bdNotes.add("the card carries no breakdown (BV), so it cannot reach these reverse currents at any sensible voltage");
             }
-            breakdown = Optional.of(new Verifier(engine, t).verify(card, pts, bdNotes));
+            breakdown = Optional.of(new Verifier(engine, t, request.verdict()).verify(card, pts, bdNotes));
         }
         Optional<LeakageVerification> leakage = Optional.empty();
         if (!split.leakage().isEmpty()) {
@@ -137,7 +137,8 @@ public final class VerifyWorkflow {
             List<CapacitanceMeasurement> pts = new ArrayList<>();
             data.capacitance().forEach(p -> pts.add(new CapacitanceMeasurement(p.voltage(), p.capacitance(),
                     p.temperature(), p.source(), p.line())));
-            capacitance = Optional.of(new CapacitanceVerifier(Engines.capacitanceByName(request.engine(), request.dialect().flavour()), CapacitanceTolerance.DEFAULT)
+            capacitance = Optional.of(new CapacitanceVerifier(Engines.capacitanceByName(request.engine(), request.dialect().flavour()), CapacitanceTolerance.DEFAULT,
+                    request.verdict())
                     .verify(card, pts, request.capacitance().strayCapacitance(), request.capacitance().frequency(), List.of()));
         }
         Optional<RecoveryVerification> recovery = Optional.empty();
