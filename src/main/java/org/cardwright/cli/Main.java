@@ -23,7 +23,6 @@ import picocli.CommandLine.Option;
         description = {
             "Fits SPICE diode .model cards to bench measurements and re-simulates each card against the same data.",
             ""},
-        subcommands = {FitCommand.class, VerifyCommand.class, BuildCommand.class, TweakCommand.class, CompareCommand.class, CheckCommand.class, CommandLine.HelpCommand.class},
         footerHeading = "%nExit codes%n",
         footer = {
             "  0  done; for verify: the card reproduces the data",
@@ -63,11 +62,51 @@ public final class Main implements Runnable {
 
     /** Runs with the given output streams (for tests). */
     public static int execute(PrintWriter out, PrintWriter err, String... args) {
-        CommandLine cl = new CommandLine(new Main());
+        CommandLine cl = commandLine(args);
         cl.setOut(out);
         cl.setErr(err);
         cl.setExecutionExceptionHandler((ex, commandLine, parseResult) -> handle(ex, commandLine));
         return cl.execute(args);
+    }
+
+    /** The subcommands, in the order the help lists them. */
+    private static final java.util.Map<String, java.util.function.Supplier<Object>> COMMANDS = commands();
+
+    private static java.util.Map<String, java.util.function.Supplier<Object>> commands() {
+        java.util.Map<String, java.util.function.Supplier<Object>> m = new java.util.LinkedHashMap<>();
+        m.put("fit", FitCommand::new);
+        m.put("verify", VerifyCommand::new);
+        m.put("build", BuildCommand::new);
+        m.put("tweak", TweakCommand::new);
+        m.put("compare", CompareCommand::new);
+        m.put("check", CheckCommand::new);
+        m.put("help", CommandLine.HelpCommand::new);
+        return m;
+    }
+
+    /**
+     * The command line for {@code args}. picocli reads the annotations of every subcommand it is given when the
+     * command line is built; a run that names one subcommand gets only that one, which saves the reflection over
+     * the other five. Anything else (no command, help, an unknown word) gets all of them.
+     */
+    static CommandLine commandLine(String... args) {
+        CommandLine cl = new CommandLine(new Main());
+        String named = null;
+        for (String a : args) {
+            if (!a.startsWith("-")) {
+                named = a;
+                break;
+            }
+            if (!a.equals("--stack-trace")) {
+                break;  // a root option such as --help: it lists every command
+            }
+        }
+        if (named != null && !named.equals("help") && COMMANDS.containsKey(named)) {
+            cl.addSubcommand(named, COMMANDS.get(named).get());
+        } else {
+            COMMANDS.forEach((name, command) -> cl.addSubcommand(name, command.get()));
+        }
+        return cl;
     }
 
     /** Maps a failure to its exit code, printing one line (and the stack trace on request). */
