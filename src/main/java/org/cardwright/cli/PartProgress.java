@@ -29,9 +29,22 @@ final class PartProgress {
         this.bar = bar;
     }
 
-    /** A bar when standard input and output are a terminal (where standard error usually is too). */
+    /**
+     * A bar when standard input and output are a terminal (where standard error usually is too). From Java 22 on
+     * a console exists even when the streams are redirected, and its {@code isTerminal()} tells.
+     */
     static boolean onTerminal() {
-        return System.console() != null;
+        java.io.Console console = System.console();
+        if (console == null) {
+            return false;
+        }
+        try {
+            return (Boolean) java.io.Console.class.getMethod("isTerminal").invoke(console);
+        } catch (NoSuchMethodException e) {
+            return true;  // before Java 22, a console means a terminal
+        } catch (ReflectiveOperationException | RuntimeException e) {
+            return false;
+        }
     }
 
     /** The number of jobs the command runs: {@code asked}, or one per available processor. */
