@@ -70,18 +70,20 @@ public final class Main implements Runnable {
     }
 
     /** The subcommands, in the order the help lists them. */
-    private static final java.util.Map<String, java.util.function.Supplier<Object>> COMMANDS = commands();
+    private static final java.util.List<String> COMMANDS = java.util.List.of("fit", "verify", "build", "tweak", "compare",
+            "check", "help");
 
-    private static java.util.Map<String, java.util.function.Supplier<Object>> commands() {
-        java.util.Map<String, java.util.function.Supplier<Object>> m = new java.util.LinkedHashMap<>();
-        m.put("fit", FitCommand::new);
-        m.put("verify", VerifyCommand::new);
-        m.put("build", BuildCommand::new);
-        m.put("tweak", TweakCommand::new);
-        m.put("compare", CompareCommand::new);
-        m.put("check", CheckCommand::new);
-        m.put("help", CommandLine.HelpCommand::new);
-        return m;
+    /** A new instance of the subcommand {@code name} (a plain switch: no lambdas to link at start-up). */
+    private static Object command(String name) {
+        switch (name) {
+            case "fit": return new FitCommand();
+            case "verify": return new VerifyCommand();
+            case "build": return new BuildCommand();
+            case "tweak": return new TweakCommand();
+            case "compare": return new CompareCommand();
+            case "check": return new CheckCommand();
+            default: return new CommandLine.HelpCommand();
+        }
     }
 
     /**
@@ -101,10 +103,12 @@ public final class Main implements Runnable {
                 break;  // a root option such as --help: it lists every command
             }
         }
-        if (named != null && !named.equals("help") && COMMANDS.containsKey(named)) {
-            cl.addSubcommand(named, COMMANDS.get(named).get());
+        if (named != null && !named.equals("help") && COMMANDS.contains(named)) {
+            cl.addSubcommand(named, command(named));
         } else {
-            COMMANDS.forEach((name, command) -> cl.addSubcommand(name, command.get()));
+            for (String name : COMMANDS) {
+                cl.addSubcommand(name, command(name));
+            }
         }
         return cl;
     }
