@@ -16,7 +16,8 @@ import picocli.CommandLine.Parameters;
             "Walks a folder tree for device files (*.device.yaml), fits each part whose settings, data or",
             "templates changed since its last build (by SHA-256, not time stamps), and writes its cards and",
             "build record (MODEL.state). Cards whose text comes out the same are left untouched. A card",
-            "changed by hand is not replaced unless --replace-edited is given. One line per part."},
+            "changed by hand is not replaced unless --replace-edited is given. One line per part, in order;",
+            "parts are fitted in parallel (--jobs), and standard error says as each one finishes."},
         footerHeading = "%nExamples%n",
         footer = {
             "  cardwright build fixtures/library",
@@ -39,6 +40,10 @@ final class BuildCommand implements Callable<Integer> {
     @Option(names = "--notes", description = "Also print what each fit set aside or changed in the data.")
     boolean notes;
 
+    @Option(names = "--jobs", paramLabel = "N",
+            description = "Parts fitted at once (default: one per processor). The cards and lines are the same for any N.")
+    Integer jobs;
+
     @picocli.CommandLine.Spec
     picocli.CommandLine.Model.CommandSpec spec;
 
@@ -46,10 +51,14 @@ final class BuildCommand implements Callable<Integer> {
     public Integer call() throws Exception {
         PrintWriter out = spec.commandLine().getOut();
         PrintWriter err = spec.commandLine().getErr();
-        List<PartOutcome> parts = new LibraryBuilder(replaceEdited, allowOutsideRoot).build(root, line -> {
-            out.println(line);
-            out.flush();
-        });
+        PartProgress progress = new PartProgress("build", out, err, PartProgress.onTerminal());
+        List<PartOutcome> parts;
+        try {
+            parts = new LibraryBuilder(replaceEdited, allowOutsideRoot).build(root, progress::result, PartProgress.jobs(jobs),
+                    (done, total, o) -> progress.finished(done, total, o.device(), status(o)));
+        } finally {
+            progress.close();
+        }
         if (notes) {
             for (PartOutcome p : parts) {
                 p.notes().forEach(n -> out.println("note: " + p.device() + ": " + n));
@@ -82,5 +91,9 @@ final class BuildCommand implements Callable<Integer> {
             err.flush();
         }
         return code;
+    }
+
+    private static String status(PartOutcome o) {
+        return o.status().name().toLowerCase(java.util.Locale.ROOT).replace('_', ' ');
     }
 }

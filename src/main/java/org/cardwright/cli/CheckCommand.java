@@ -49,6 +49,10 @@ final class CheckCommand implements Callable<Integer> {
     @Option(names = "--allow-stale", description = "Let cards built from older inputs pass when they reproduce the data.")
     boolean allowStale;
 
+    @Option(names = "--jobs", paramLabel = "N",
+            description = "Parts checked at once (default: one per processor). The lines and report are the same for any N.")
+    Integer jobs;
+
     @picocli.CommandLine.Spec
     picocli.CommandLine.Model.CommandSpec spec;
 
@@ -64,10 +68,16 @@ final class CheckCommand implements Callable<Integer> {
                     .output("--junit", junit).check();
         }
         PrintWriter out = spec.commandLine().getOut();
-        List<CardCheck> checks = new LibraryCheck(engine, allowStale, allowOutsideRoot).check(root, line -> {
-            out.println(line);
-            out.flush();
-        });
+        PartProgress progress = new PartProgress("check", out, spec.commandLine().getErr(), PartProgress.onTerminal());
+        List<CardCheck> checks;
+        try {
+            checks = new LibraryCheck(engine, allowStale, allowOutsideRoot).check(root, progress::result, PartProgress.jobs(jobs),
+                    (done, total, cards) -> progress.finished(done, total, cards.isEmpty() ? "" : cards.get(0).device(),
+                            cards.stream().map(c -> c.status().name().toLowerCase(java.util.Locale.ROOT).replace('_', ' '))
+                                    .distinct().collect(java.util.stream.Collectors.joining(", "))));
+        } finally {
+            progress.close();
+        }
         out.println();
         out.print(CheckReport.table(checks));
         out.flush();

@@ -23,7 +23,6 @@ import picocli.CommandLine.Option;
         description = {
             "Fits SPICE diode .model cards to bench measurements and re-simulates each card against the same data.",
             ""},
-        subcommands = {FitCommand.class, VerifyCommand.class, BuildCommand.class, TweakCommand.class, CompareCommand.class, CheckCommand.class, LotCommand.class, CommandLine.HelpCommand.class},
         footerHeading = "%nExit codes%n",
         footer = {
             "  0  done; for verify: the card reproduces the data",
@@ -50,7 +49,7 @@ public final class Main implements Runnable {
 
     @Override
     public void run() {
-        throw new CommandLine.ParameterException(spec.commandLine(), "name a command: fit, verify, build, tweak, compare or check (try --help)");
+        throw new CommandLine.ParameterException(spec.commandLine(), "name a command: fit, verify, build, tweak, compare, check or lot (try --help)");
     }
 
     public static void main(String[] args) {
@@ -64,11 +63,56 @@ public final class Main implements Runnable {
 
     /** Runs with the given output streams (for tests). */
     public static int execute(PrintWriter out, PrintWriter err, String... args) {
-        CommandLine cl = new CommandLine(new Main());
+        CommandLine cl = commandLine(args);
         cl.setOut(out);
         cl.setErr(err);
         cl.setExecutionExceptionHandler((ex, commandLine, parseResult) -> handle(ex, commandLine));
         return cl.execute(args);
+    }
+
+    /** The subcommands, in the order the help lists them. */
+    private static final java.util.List<String> COMMANDS = java.util.List.of("fit", "verify", "build", "tweak", "compare",
+            "check", "lot", "help");
+
+    /** A new instance of the subcommand {@code name} (a plain switch: no lambdas to link at start-up). */
+    private static Object command(String name) {
+        switch (name) {
+            case "fit": return new FitCommand();
+            case "verify": return new VerifyCommand();
+            case "build": return new BuildCommand();
+            case "tweak": return new TweakCommand();
+            case "compare": return new CompareCommand();
+            case "check": return new CheckCommand();
+            case "lot": return new LotCommand();
+            default: return new CommandLine.HelpCommand();
+        }
+    }
+
+    /**
+     * The command line for {@code args}. picocli reads the annotations of every subcommand it is given when the
+     * command line is built; a run that names one subcommand gets only that one, which saves the reflection over
+     * the other five. Anything else (no command, help, an unknown word) gets all of them.
+     */
+    static CommandLine commandLine(String... args) {
+        CommandLine cl = new CommandLine(new Main());
+        String named = null;
+        for (String a : args) {
+            if (!a.startsWith("-")) {
+                named = a;
+                break;
+            }
+            if (!a.equals("--stack-trace")) {
+                break;  // a root option such as --help: it lists every command
+            }
+        }
+        if (named != null && !named.equals("help") && COMMANDS.contains(named)) {
+            cl.addSubcommand(named, command(named));
+        } else {
+            for (String name : COMMANDS) {
+                cl.addSubcommand(name, command(name));
+            }
+        }
+        return cl;
     }
 
     /** Maps a failure to its exit code, printing one line (and the stack trace on request). */

@@ -19,8 +19,8 @@ import org.cardwright.workflow.OutputException;
 import org.cardwright.workflow.OutputFiles;
 
 /**
- * Builds a model library: every device file under a root, one part after the other, in the order of their
- * library-relative names.
+ * Builds a model library: every device file under a root, in the order of their library-relative names, one
+ * after the other or on a pool of threads ({@link PartPool}) with the same result.
  *
  * <p>A part is fitted only when its recipe ({@link Recipe}: settings, data hashes, templates, tool version) differs
  * from its build record, or a card is missing. A card whose text comes out as it already is on disk is not
@@ -62,21 +62,50 @@ public final class LibraryBuilder {
     }
 
     /**
-     * Builds every part under {@code root}.
+     * Builds every part under {@code root}, one after the other.
      *
      * @param progress receives one line per part as it finishes, e.g. {@code [ 3/20] diodes/RX10 built in 1.2 s ...}
      */
     public List<PartOutcome> build(Path root, Consumer<String> progress) throws IOException {
+        return build(root, progress, 1, (done, total, o) -> { });
+    }
+
+    /**
+     * Builds every part under {@code root} on up to {@code jobs} threads. The parts' cards and records, and the
+     * lines {@code progress} receives, are the same as those of a build with one job: the lines come in the
+     * parts' order (a part's line waits for the parts before it).
+     *
+     * @param progress receives one line per part, in the parts' order
+     * @param finished is told of each part as it finishes, in the order they finish: how many are done, of how many
+     */
+    public List<PartOutcome> build(Path root, Consumer<String> progress, int jobs, PartsDone<PartOutcome> finished)
+            throws IOException {
         List<Path> devices = LibraryPaths.deviceFiles(root);
         inventory = LibraryInventory.of(root, devices, allowOutsideRoot);
-        List<PartOutcome> out = new ArrayList<>();
         int width = Integer.toString(devices.size()).length();
-        for (int i = 0; i < devices.size(); i++) {
-            PartOutcome o = buildPart(root, devices.get(i));
-            out.add(o);
-            progress.accept(String.format(Locale.ROOT, "[%" + width + "d/%d] %s", i + 1, devices.size(), line(o)));
-        }
-        return out;
+        int[] done = {0};
+        return PartPool.run(devices.size(), jobs, i -> buildPart(root, devices.get(i)), new PartPool.Listener<>() {
+            @Override
+            public void inOrder(int i, PartOutcome o) {
+                progress.accept(String.format(Locale.ROOT, "[%" + width + "d/%d] %s", i + 1, devices.size(), line(o)));
+            }
+
+            @Override
+            public void finished(int i, PartOutcome o) {
+                finished.done(++done[0], devices.size(), o);
+            }
+        });
+    }
+
+    /** Is told of each part of a library as it finishes. */
+    @FunctionalInterface
+    public interface PartsDone<T> {
+        /**
+         * @param done   how many parts are done, this one included
+         * @param total  how many parts there are
+         * @param result this part's outcome
+         */
+        void done(int done, int total, T result);
     }
 
     /** The progress line of a part. */

@@ -47,17 +47,37 @@ public final class LibraryCheck {
         this.allowOutsideRoot = allowOutsideRoot;
     }
 
-    /** Checks every card under {@code root}; {@code progress} receives one line per card. */
+    /** Checks every card under {@code root}, one part after the other; {@code progress} receives one line per card. */
     public List<CardCheck> check(Path root, Consumer<String> progress) throws IOException {
-        List<CardCheck> out = new ArrayList<>();
+        return check(root, progress, 1, (done, total, cards) -> { });
+    }
+
+    /**
+     * Checks every card under {@code root}, the parts on up to {@code jobs} threads; the result and the lines
+     * {@code progress} receives (one per card, in the parts' order) are those of a check with one job.
+     *
+     * @param finished is told of each part as it finishes, with its cards' verdicts, in the order they finish
+     */
+    public List<CardCheck> check(Path root, Consumer<String> progress, int jobs,
+                                 LibraryBuilder.PartsDone<List<CardCheck>> finished) throws IOException {
         List<Path> devices = LibraryPaths.deviceFiles(root);
+        List<CardCheck> out = new ArrayList<>();
         LibraryInventory inventory = LibraryInventory.of(root, devices, allowOutsideRoot);
-        for (Path device : devices) {
-            for (CardCheck c : checkPart(root, device, inventory)) {
-                out.add(c);
-                progress.accept(line(c));
+        int[] done = {0};
+        PartPool.run(devices.size(), jobs, i -> checkPart(root, devices.get(i), inventory), new PartPool.Listener<>() {
+            @Override
+            public void inOrder(int i, List<CardCheck> cards) {
+                for (CardCheck c : cards) {
+                    out.add(c);
+                    progress.accept(line(c));
+                }
             }
-        }
+
+            @Override
+            public void finished(int i, List<CardCheck> cards) {
+                finished.done(++done[0], devices.size(), cards);
+            }
+        });
         return out;
     }
 
