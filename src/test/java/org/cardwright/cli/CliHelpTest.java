@@ -51,7 +51,7 @@ class CliHelpTest {
     void noCommandIsAUsageError() {
         CliRun run = CliRun.of();
         assertEquals(ExitCodes.USAGE, run.exitCode(), run.describe());
-        assertTrue(run.err().contains("name a command: fit, verify, build, tweak, compare or check"), run.err());
+        assertTrue(run.err().contains("name a command: fit, verify, build, tweak, compare, check or lot"), run.err());
     }
 
     /** Every {@code fixtures/...csv} pattern in the examples matches at least one file of the project. */
