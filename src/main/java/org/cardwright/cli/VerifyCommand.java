@@ -92,15 +92,17 @@ final class VerifyCommand implements Callable<Integer> {
     public Integer call() throws Exception {
         if (html != null) {
             if (json != null && json.toAbsolutePath().normalize().equals(html.toAbsolutePath().normalize())) {
-                throw new IllegalArgumentException("--json and --html both name " + html + "; give them different files");
+                throw new org.cardwright.failure.UsageException("--json and --html both name " + html
+                        + "; give them different files");
             }
             OutputFiles.checkWritable(List.of(html), force);
         }
-        VerifyRequest request = new VerifyRequest(card, data, engine, Optional.ofNullable(model), dialectOf(card, dialect),
+        VerifyRequest request = Main.option(() -> new VerifyRequest(card, data, engine, Optional.ofNullable(model),
+                dialectOf(card, dialect),
                 reading.temperatureKelvin(),
                 new Tolerance(limitRms * 1e-3, limitMax * 1e-3), Optional.ofNullable(json), force,
                 reading.capacitance(),
-                reading.bench(true));
+                reading.bench(true)));
         JunctionVerification v = new VerifyWorkflow().runAll(request, r -> VerificationJson.write(r, Inputs.displayName(card)));
         if (html != null) {
             OutputFiles.writeAtomically(html, HtmlReport.render(v, Inputs.displayName(card)));

@@ -227,7 +227,8 @@ public final class ForwardExtraction {
                 Optimiser.Run r;
                 try {
                     r = run(blocks, DiodeParameters.of(trial), trialFree);
-                } catch (RuntimeException e) {
+                } catch (FitFailedException | IllegalArgumentException | ArithmeticException e) {
+                    // a trial term the data cannot carry (no convergence, parameters leaving the model's domain)
                     lastDelta.put(term, Double.NaN);
                     continue;
                 }
@@ -269,7 +270,8 @@ public final class ForwardExtraction {
                 Optimiser.Run r;
                 try {
                     r = run(blocks, reduced, without);
-                } catch (RuntimeException e) {
+                } catch (FitFailedException | IllegalArgumentException | ArithmeticException e) {
+                    // a trial term the data cannot carry (no convergence, parameters leaving the model's domain)
                     continue;
                 }
                 double b = bic(r.rss(), n, r.layout().size());
@@ -434,8 +436,15 @@ public final class ForwardExtraction {
         double[] hPerp = h;
         if (j.length > 0 && j[0].length > 0) {
             org.apache.commons.math3.linear.RealMatrix jm = new org.apache.commons.math3.linear.Array2DRowRealMatrix(j, false);
-            org.apache.commons.math3.linear.RealVector c = new org.apache.commons.math3.linear.QRDecomposition(jm, 1e-14)
-                    .getSolver().solve(new org.apache.commons.math3.linear.ArrayRealVector(h, false));
+            org.apache.commons.math3.linear.RealVector c;
+            try {
+                c = new org.apache.commons.math3.linear.QRDecomposition(jm, 1e-14)
+                        .getSolver().solve(new org.apache.commons.math3.linear.ArrayRealVector(h, false));
+            } catch (org.apache.commons.math3.linear.SingularMatrixException e) {
+                throw new FitFailedException("the forward fit is degenerate: its Jacobian is singular, so the data do "
+                        + "not determine " + best.layout().free() + " (currents too small, too few distinct points, "
+                        + "or values beyond double precision)");
+            }
             double[] fit = jm.operate(c).toArray();
             hPerp = new double[h.length];
             for (int i = 0; i < h.length; i++) {

@@ -56,7 +56,7 @@ public final class Engines {
                 return new NgspiceEngine(new SimulatorProcess(SimulatorProcess.Kind.NGSPICE, exe, TIMEOUT), workFolder());
             }
             default:
-                throw new IllegalArgumentException("unknown engine '" + name + "'; choose one of " + NAMES);
+                throw new org.cardwright.failure.UsageException("unknown engine '" + name + "'; choose one of " + NAMES);
         }
     }
 
@@ -80,7 +80,7 @@ public final class Engines {
                         workFolder());
             }
             default:
-                throw new IllegalArgumentException("unknown engine '" + name + "'; choose one of " + NAMES);
+                throw new org.cardwright.failure.UsageException("unknown engine '" + name + "'; choose one of " + NAMES);
         }
     }
 }

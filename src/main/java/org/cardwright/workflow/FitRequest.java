@@ -41,13 +41,13 @@ public record FitRequest(List<Path> data, String name, List<Dialect> dialects, P
         dialects = List.copyOf(dialects);
         rules = List.copyOf(rules);
         if (data.isEmpty()) {
-            throw new IllegalArgumentException("no data files given");
+            throw new org.cardwright.failure.UsageException("no data files given");
         }
         if (dialects.isEmpty()) {
-            throw new IllegalArgumentException("no dialect given");
+            throw new org.cardwright.failure.UsageException("no dialect given");
         }
         if (digits < 4 || digits > 15) {
-            throw new IllegalArgumentException("--digits must lie in 4..15, got " + digits);
+            throw new org.cardwright.failure.UsageException("--digits must lie in 4..15, got " + digits);
         }
     }
 

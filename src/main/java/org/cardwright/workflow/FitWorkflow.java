@@ -130,10 +130,20 @@ public final class FitWorkflow {
                 + ":0: nothing to fit: no forward I-V points, and the other data determine no parameter";
     }
 
+    /**
+     * One extraction. Its failures become fit failures (exit 4) that name the data files: a stage that did not
+     * converge, and the model's own checks (a start value or parameter that is no longer finite, a singular
+     * matrix), which only extreme data reach.
+     */
     private static FitResult extract(FitSettings settings, FitRequest request, ExtractionData data) throws FitInputException {
-        return request.robust()
-                ? new RobustExtraction(settings, request.capacitance()).fit(data)
-                : new JunctionExtraction(settings, request.capacitance()).fit(data);
+        try {
+            return request.robust()
+                    ? new RobustExtraction(settings, request.capacitance()).fit(data)
+                    : new JunctionExtraction(settings, request.capacitance()).fit(data);
+        } catch (org.cardwright.fit.FitFailedException | IllegalArgumentException | ArithmeticException e) {
+            throw new org.cardwright.fit.FitFailedException(request.data().stream().map(Inputs::displayName)
+                    .collect(Collectors.joining(", ")) + ": the data cannot be fitted: " + e.getMessage());
+        }
     }
 
     /**
