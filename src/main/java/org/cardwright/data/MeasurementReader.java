@@ -100,6 +100,10 @@ public final class MeasurementReader {
 
         List<Notice> notices = new ArrayList<>();
         noteIgnoredColumns(file, headerLine, header, notices);
+        if (header.reverseMagnitudes()) {
+            notices.add(new Notice(file, headerLine, "columns VR and IR hold reverse-bias magnitudes: read as "
+                    + "V = -VR, I = -IR"));
+        }
         if (options.delimiter().isEmpty() && delimiter != ReadOptions.COMMA) {
             notices.add(new Notice(file, headerLine, "cells separated by " + (delimiter == '\t' ? "tabs" : "semicolons")
                     + " (detected from the header row); a decimal comma is read"));

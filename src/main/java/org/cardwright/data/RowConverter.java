@@ -127,6 +127,18 @@ final class RowConverter {
     private void addIvRow(int line, String text, List<String> cells, double temperature) throws DataFileException {
         BigDecimal voltage = exact(line, header.required(ColumnRole.VOLTAGE), cells);
         BigDecimal current = exact(line, header.required(ColumnRole.CURRENT), cells);
+        if (header.reverseMagnitudes()) {
+            for (ColumnRole role : List.of(ColumnRole.VOLTAGE, ColumnRole.CURRENT)) {
+                HeaderLayout.Column c = header.required(role);
+                if ((role == ColumnRole.VOLTAGE ? voltage : current).signum() < 0) {
+                    throw new DataFileException(file, line, "a negative value in " + c.describe() + ": VR and IR "
+                            + "hold reverse-bias magnitudes (read as V = -VR, I = -IR); write the magnitude, or name "
+                            + "the columns V and I for signed values", cells.get(c.index()));
+                }
+            }
+            voltage = voltage.negate();
+            current = current.negate();
+        }
         double i = current.doubleValue();
         double voltageSigma = stated(line, ColumnRole.VOLTAGE_SIGMA, cells, rules.voltmeter(),
                 voltage.doubleValue());

@@ -67,6 +67,15 @@ public final class FitWorkflow {
         ReadOptions options = request.readOptions();
         Inputs inputs = Inputs.read(request.data(), options);
         ExtractionData data = extractionData(inputs);
+        org.cardwright.fit.ForwardReduction.Reduced forward = org.cardwright.fit.ForwardReduction.reduce(data.forward());
+        if (forward.reduced()) {
+            // time and memory stay those of FULL_WEIGHT_LIMIT points; said in a note, as every change to the data
+            data = new ExtractionData(forward.points(), data.reverse(), data.capacitance(), data.recovery());
+            List<String> notes = new ArrayList<>(inputs.notes());
+            notes.add("forward I-V: " + forward.description());
+            inputs = new Inputs(inputs.files(), inputs.forward(), inputs.reverse(), inputs.capacitance(),
+                    inputs.recovery(), notes);
+        }
         if (data.isEmpty()) {
             throw new FitInputException(request.data().stream().map(Inputs::displayName).collect(Collectors.joining(", "))
                     + ": no I-V or C-V points to fit");

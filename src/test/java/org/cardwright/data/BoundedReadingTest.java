@@ -119,4 +119,28 @@ class BoundedReadingTest {
         DataFileException folder = assertThrows(DataFileException.class, () -> r.read(dir));
         assertTrue(folder.getMessage().contains("directory"), folder.getMessage());
     }
+
+    @Test
+    void reverseMagnitudesInVrAndIrColumnsAreReadAsNegativeAndSaidSo() throws Exception {
+        // the datasheet habit: reverse voltage and leakage written as positive magnitudes (common practice, no source)
+        MeasurementFile f = plain.read(write("vr-ir.csv", "VR [V],IR [nA],T\n1,1.5,25\n20,3,25\n"));
+        assertEquals(java.util.List.of(new IvPoint(-1, -1.5e-9, 298.15, 2), new IvPoint(-20, -3e-9, 298.15, 3)), f.iv());
+        assertTrue(f.notices().stream().anyMatch(n -> n.message().contains("V = -VR, I = -IR")), f.notices().toString());
+    }
+
+    @Test
+    void negativeValueInAMagnitudeColumnIsAnError() throws Exception {
+        Path file = write("vr-negative.csv", "VR,IR,T\n1,1e-9,25\n-20,3e-9,25\n");
+        DataFileException e = assertThrows(DataFileException.class, () -> plain.read(file));
+        assertEquals(3, e.line());
+        assertTrue(e.getMessage().contains("reverse-bias magnitudes"), e.getMessage());
+    }
+
+    @Test
+    void magnitudeColumnsCannotBeMixedWithSignedOnes() throws Exception {
+        Path file = write("vr-and-i.csv", "VR,I,T\n1,1e-9,25\n");
+        DataFileException e = assertThrows(DataFileException.class, () -> plain.read(file));
+        assertEquals(1, e.line());
+        assertTrue(e.getMessage().contains("beside VR or IR"), e.getMessage());
+    }
 }
