@@ -92,8 +92,8 @@ final class CompareCommand implements Callable<Integer> {
     public Integer call() throws Exception {
         simulatorTimeLimit.apply();
         CardReader reader = new CardReader();
-        Dialect da = VerifyCommand.dialectOf(cardA, dialectA);
-        Dialect db = VerifyCommand.dialectOf(cardB, dialectB);
+        Dialect da = Main.option(() -> VerifyCommand.dialectOf(cardA, dialectA));
+        Dialect db = Main.option(() -> VerifyCommand.dialectOf(cardB, dialectB));
         // a subcircuit file (NAME.shunted.DIALECT.lib) gives its .model and the resistor beside it, read strictly
         double[] shunt = {Double.POSITIVE_INFINITY, Double.POSITIVE_INFINITY};
         ParsedCard a = read(reader, cardA, da, modelA, shunt, 0);
@@ -104,10 +104,10 @@ final class CompareCommand implements Callable<Integer> {
         for (double c : temperatures == null ? List.of(-40.0, 25.0, 125.0) : temperatures) {
             kelvin.add(c + Ngspice39.CELSIUS_TO_KELVIN);
         }
-        ComparisonPlan plan = new ComparisonPlan(kelvin, SpiceNumbers.parse(from), SpiceNumbers.parse(to),
+        ComparisonPlan plan = Main.option(() -> new ComparisonPlan(kelvin, SpiceNumbers.parse(from), SpiceNumbers.parse(to),
                 numbers(leakageVoltages, List.of("1", "5", "20")), numbers(capacitanceBiases, List.of("0", "-1", "-5", "-10")),
                 ComparisonPlan.DEFAULT_FREQUENCY,
-                new ComparisonLimits(forwardLimit, t.leakageFactor(), t.capacitanceRelative(), t.breakdownRelative()));
+                new ComparisonLimits(forwardLimit, t.leakageFactor(), t.capacitanceRelative(), t.breakdownRelative())));
         // the built-in engine evaluates each card with the equations of the simulator it was written for
         CardComparison c = new CardComparer(Engines.byName(engine, da.flavour()), Engines.capacitanceByName(engine, da.flavour()),
                 Engines.byName(engine, db.flavour()), Engines.capacitanceByName(engine, db.flavour()))
@@ -137,7 +137,7 @@ final class CompareCommand implements Callable<Integer> {
             try {
                 out.add(SpiceNumbers.parse(s.trim()));
             } catch (NumberFormatException e) {
-                throw new IllegalArgumentException("'" + s + "' is not a number");
+                throw new org.cardwright.failure.UsageException("'" + s + "' is not a number");
             }
         }
         return out;

@@ -105,6 +105,15 @@ final class FitCommand implements Callable<Integer> {
 
     @Override
     public Integer call() throws Exception {
+        FitRequest request = Main.option(this::request);
+        FitOutcome outcome = new FitWorkflow().run(request, o -> FitJson.write(name, o));
+        spec.commandLine().getOut().print(FitText.render(name, outcome));
+        spec.commandLine().getOut().flush();
+        return ExitCodes.OK;
+    }
+
+    /** The request the options describe; a wrong value is a wrong command line. */
+    private FitRequest request() {
         List<Dialect> ds = new ArrayList<>();
         for (String d : dialects == null ? List.of("ngspice", "spice3") : dialects) {
             Dialect dialect = Dialect.byName(d.trim());
@@ -116,15 +125,11 @@ final class FitCommand implements Callable<Integer> {
         for (String r : rules) {
             parsed.add(ParameterRule.parse(r, SpiceNumbers::parse));
         }
-        FitRequest request = new FitRequest(data, name, ds, out, Optional.ofNullable(json),
+        return new FitRequest(data, name, ds, out, Optional.ofNullable(json),
                 reading.temperatureKelvin(),
                 DeviceKind.byOptionName(kind), parsed, digits, force, Optional.ofNullable(templates),
                 reading.capacitance(),
                 reading.bench(!noMeterCorrection),
                 selfHeatingRemedy(selfHeating), robust, sweepGap);
-        FitOutcome outcome = new FitWorkflow().run(request, o -> FitJson.write(name, o));
-        spec.commandLine().getOut().print(FitText.render(name, outcome));
-        spec.commandLine().getOut().flush();
-        return ExitCodes.OK;
     }
 }

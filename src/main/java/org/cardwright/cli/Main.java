@@ -3,11 +3,9 @@ package org.cardwright.cli;
 import java.io.PrintWriter;
 import org.cardwright.card.CardFormatException;
 import org.cardwright.card.CardTemplateException;
-import org.cardwright.data.DataFileException;
-import org.cardwright.fit.FitFailedException;
-import org.cardwright.fit.FitInputException;
+import org.cardwright.failure.KnownFailure;
+import org.cardwright.failure.UsageException;
 import org.cardwright.sim.process.SimulationException;
-import org.cardwright.workflow.OutputException;
 import org.cardwright.workflow.ToolVersion;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
@@ -67,7 +65,19 @@ public final class Main implements Runnable {
         cl.setOut(out);
         cl.setErr(err);
         cl.setExecutionExceptionHandler((ex, commandLine, parseResult) -> handle(ex, commandLine));
-        return cl.execute(args);
+        try {
+            return cl.execute(args);
+        } catch (OutOfMemoryError e) {
+            // the work that filled the heap is unreachable once we are here, so there is room to say so
+            err.println("cardwright: out of memory (Java heap limit " + (Runtime.getRuntime().maxMemory() >> 20)
+                    + " MB); give Java more with -Xmx, or split or thin the data");
+            err.flush();
+            return ExitCodes.INTERNAL_ERROR;
+        } catch (StackOverflowError e) {
+            err.println("cardwright: internal error (stack overflow); please report it with the output of --stack-trace");
+            err.flush();
+            return ExitCodes.INTERNAL_ERROR;
+        }
     }
 
     /** The subcommands, in the order the help lists them. */
@@ -85,6 +95,21 @@ public final class Main implements Runnable {
             case "check": return new CheckCommand();
             case "lot": return new LotCommand();
             default: return new CommandLine.HelpCommand();
+        }
+    }
+
+    /**
+     * Interprets option values: an {@link IllegalArgumentException} thrown while doing so is a wrong command
+     * line (exit 2). Used by the commands around everything that reads their options and nothing else, so that
+     * the same exception thrown deeper (by the fit, say) is not taken for a usage error.
+     */
+    static <T> T option(java.util.function.Supplier<T> interpretation) {
+        try {
+            return interpretation.get();
+        } catch (UsageException e) {
+            throw e;
+        } catch (IllegalArgumentException e) {
+            throw new UsageException(e.getMessage(), e);
         }
     }
 
@@ -115,7 +140,11 @@ public final class Main implements Runnable {
         return cl;
     }
 
-    /** Maps a failure to its exit code, printing one line (and the stack trace on request). */
+    /**
+     * Maps a failure to its exit code, printing one line (and the stack trace on request). A
+     * {@link KnownFailure} carries its own code; the card, simulator and library exceptions, which predate it,
+     * are mapped by type; anything else is a bug (exit 70).
+     */
     static int handle(Exception ex, CommandLine commandLine) {
         PrintWriter err = commandLine.getErr();
         Main root = commandLine.getCommandSpec().root().userObject() instanceof Main m ? m : null;
@@ -127,16 +156,15 @@ public final class Main implements Runnable {
         } else if (ex instanceof java.nio.file.AccessDeniedException ad) {
             message = ad.getFile() + ": permission denied";
         }
-        if (ex instanceof DataFileException || ex instanceof CardFormatException || ex instanceof java.io.IOException) {
+        if (ex instanceof KnownFailure known) {
+            code = known.kind().exitCode();
+        } else if (ex instanceof CardFormatException || ex instanceof java.io.IOException
+                || ex instanceof CardTemplateException) {
             code = ExitCodes.BAD_INPUT;
-        } else if (ex instanceof FitInputException || ex instanceof FitFailedException) {
-            code = ExitCodes.FIT_FAILED;
         } else if (ex instanceof SimulationException) {
             code = ExitCodes.SIMULATOR_FAILED;
-        } else if (ex instanceof OutputException) {
-            code = ExitCodes.OUTPUT_REFUSED;
-        } else if (ex instanceof IllegalArgumentException || ex instanceof CardTemplateException) {
-            code = ex instanceof CardTemplateException ? ExitCodes.BAD_INPUT : ExitCodes.USAGE;
+        } else if (ex instanceof CommandLine.ParameterException) {
+            code = ExitCodes.USAGE;
         } else {
             code = ExitCodes.INTERNAL_ERROR;
             message = "internal error (" + ex.getClass().getSimpleName() + "): " + message

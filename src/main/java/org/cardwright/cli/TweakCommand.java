@@ -54,7 +54,7 @@ final class TweakCommand implements Callable<Integer> {
 
     @Override
     public Integer call() throws Exception {
-        TweakReport r = TweakReport.run(device, Tweak.parse(tweak, !renderOnly), Optional.ofNullable(out), force,
+        TweakReport r = TweakReport.run(device, Main.option(() -> Tweak.parse(tweak, !renderOnly)), Optional.ofNullable(out), force,
                 Optional.ofNullable(root), allowOutsideRoot);
         spec.commandLine().getOut().print(r.text());
         spec.commandLine().getOut().flush();

@@ -119,11 +119,12 @@ final class VerifyCommand implements Callable<Integer> {
         if (html != null) {
             OutputFiles.checkWritable(List.of(html), force);
         }
-        VerifyRequest request = new VerifyRequest(card, data, engine, Optional.ofNullable(model), dialectOf(card, dialect),
+        VerifyRequest request = Main.option(() -> new VerifyRequest(card, data, engine, Optional.ofNullable(model),
+                dialectOf(card, dialect),
                 reading.temperatureKelvin(),
                 new Tolerance(limitRms * 1e-3, limitMax * 1e-3), Optional.ofNullable(json), force,
                 reading.capacitance(),
-                reading.bench(true), verdictBasis(verdict));
+                reading.bench(true), verdictBasis(verdict)));
         JunctionVerification v = new VerifyWorkflow().runAll(request, r -> VerificationJson.write(r, Inputs.displayName(card)));
         if (html != null) {
             OutputFiles.writeAtomically(html, HtmlReport.render(v, Inputs.displayName(card)));

@@ -22,7 +22,12 @@ import java.util.regex.Pattern;
  */
 final class CellNumber {
     private static final Pattern NUMBER_AND_SUFFIX = Pattern.compile(
-            "([+-]?(?:\\d+[.,]?\\d*|[.,]\\d+)(?:[eE][+-]?\\d+)?)((?i:meg|[tgkmunpf]))?");
+            "([+-]?(?:\\d++(?:[.,]\\d*+)?|[.,]\\d++)(?:[eE][+-]?\\d++)?)((?i:meg|[tgkmunpf]))?");
+    /**
+     * Longest number read [characters]: a double needs at most 17 significant digits and a three-digit
+     * exponent, so 100 leaves room for any export's padding while keeping the decimal arithmetic cheap.
+     */
+    static final int MAX_NUMBER_CHARS = 100;
 
     /**
      * A number as written.
@@ -52,6 +57,10 @@ final class CellNumber {
         String t = text.strip();
         if (t.isEmpty()) {
             throw new CellProblem("empty cell");
+        }
+        if (t.length() > MAX_NUMBER_CHARS) {
+            throw new CellProblem("cell of " + t.length() + " characters where a number is expected; a number has at most "
+                    + MAX_NUMBER_CHARS);
         }
         Matcher m = NUMBER_AND_SUFFIX.matcher(t);
         if (!m.matches()) {

@@ -13,6 +13,10 @@ enum ColumnRole {
     VOLTAGE(Quantity.VOLTAGE, "V"),
     /** Current of an I-V point table. */
     CURRENT(Quantity.CURRENT, "I"),
+    /** Reverse voltage of an I-V point table, written as a positive magnitude (datasheet habit): V = -VR. */
+    REVERSE_VOLTAGE(Quantity.VOLTAGE, "VR"),
+    /** Reverse current of an I-V point table, written as a positive magnitude (datasheet habit): I = -IR. */
+    REVERSE_CURRENT(Quantity.CURRENT, "IR"),
     /** Capacitance of a C-V point table. */
     CAPACITANCE(Quantity.CAPACITANCE, "C"),
     /** Device temperature of the row. */

@@ -8,7 +8,7 @@ import java.util.Objects;
  * {@code path:line: what is wrong (value 'raw')}, so a user can open the file at that line; line 0 stands for
  * the whole file (not found, unreadable, no header).
  */
-public final class DataFileException extends Exception {
+public final class DataFileException extends Exception implements org.cardwright.failure.KnownFailure {
     private static final long serialVersionUID = 1L;
     /** Longest raw value quoted in full in the message; {@link #rawValue()} always holds all of it [1]. */
     private static final int MAX_QUOTED = 80;
@@ -74,6 +74,12 @@ public final class DataFileException extends Exception {
             }
         }
         return s.toString();
+    }
+
+    /** An unreadable or malformed input: exit 3. */
+    @Override
+    public org.cardwright.failure.FailureKind kind() {
+        return org.cardwright.failure.FailureKind.BAD_INPUT;
     }
 
     /** The file as the user gave it. */

@@ -11,7 +11,7 @@ import java.util.regex.Pattern;
  * would quietly accept.
  */
 final class DecimalText {
-    private static final Pattern DECIMAL = Pattern.compile("[+-]?(\\d+\\.?\\d*|\\.\\d+)([eE][+-]?\\d+)?");
+    private static final Pattern DECIMAL = Pattern.compile("[+-]?(\\d++(?:\\.\\d*+)?|\\.\\d++)([eE][+-]?\\d++)?");
     /** NaN and infinity as programs write them, including the spreadsheet and C runtime forms. */
     private static final Pattern NOT_FINITE = Pattern.compile(
             "[+-]?(nan|inf|infinity|infinite|\u221e|1\\.#inf\\d*|1\\.#ind\\d*|1\\.#qnan\\d*|1\\.#snan\\d*)");
@@ -28,6 +28,10 @@ final class DecimalText {
         String t = text.strip();
         if (t.isEmpty()) {
             throw new CellProblem("empty cell");
+        }
+        if (t.length() > CellNumber.MAX_NUMBER_CHARS) {
+            throw new CellProblem("text of " + t.length() + " characters where a number is expected; a number has at "
+                    + "most " + CellNumber.MAX_NUMBER_CHARS);
         }
         if (NOT_FINITE.matcher(t.toLowerCase(Locale.ROOT)).matches()) {
             throw new CellProblem("not a finite number");

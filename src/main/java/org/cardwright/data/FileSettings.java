@@ -18,7 +18,7 @@ import java.util.regex.Pattern;
  * kept as comments and listed in one notice.
  */
 final class FileSettings {
-    private static final String NUMBER = "[+-]?(?:\\d+[.,]?\\d*|[.,]\\d+)(?:[eE][+-]?\\d+)?";
+    private static final String NUMBER = "[+-]?(?:\\d++(?:[.,]\\d*+)?|[.,]\\d++)(?:[eE][+-]?\\d++)?";
     private static final Pattern NUMBER_AND_UNIT = Pattern.compile("(" + NUMBER + ")\\s*(\\S.*)");
     private static final Pattern PERCENT = Pattern.compile("(" + NUMBER + ")\\s*%");
     private static final Pattern PERCENT_OF_READING = Pattern.compile("(" + NUMBER

@@ -23,9 +23,11 @@ import java.util.regex.Pattern;
  * @param columns the known columns by role
  * @param ignored the columns that name no role, or no role this kind of file uses, kept to be reported
  * @param width   how many cells the header has; every data row must have as many [1]
+ * @param reverseMagnitudes whether the V and I columns were written VR and IR: reverse-bias magnitudes, read as
+ *                V = -VR, I = -IR
  */
 record HeaderLayout(DataKind kind, FileLayout layout, Map<ColumnRole, Column> columns, List<Column> ignored,
-                    int width) {
+                    int width, boolean reverseMagnitudes) {
 
     /**
      * One column of the header.
@@ -57,6 +59,10 @@ record HeaderLayout(DataKind kind, FileLayout layout, Map<ColumnRole, Column> co
     HeaderLayout {
         columns = Map.copyOf(columns);
         ignored = List.copyOf(ignored);
+    }
+
+    HeaderLayout(DataKind kind, FileLayout layout, Map<ColumnRole, Column> columns, List<Column> ignored, int width) {
+        this(kind, layout, columns, ignored, width, false);
     }
 
     /** The column of a role, when the header has one. */
@@ -117,6 +123,10 @@ record HeaderLayout(DataKind kind, FileLayout layout, Map<ColumnRole, Column> co
             }
         }
         String hint = delimiterHint(cells);
+        boolean magnitudes = found.containsKey(ColumnRole.REVERSE_VOLTAGE) || found.containsKey(ColumnRole.REVERSE_CURRENT);
+        if (magnitudes) {
+            reverseColumns(file, line, rawLine, found, hint);
+        }
         if (LOG_COLUMNS.stream().anyMatch(found::containsKey)) {
             return seriesResistorLog(file, line, rawLine, found, ignored, cells.size(), hint);
         }
@@ -144,7 +154,31 @@ record HeaderLayout(DataKind kind, FileLayout layout, Map<ColumnRole, Column> co
             }
             ignored.sort((a, b) -> Integer.compare(a.index(), b.index()));
         }
-        return new HeaderLayout(kind, FileLayout.POINT_TABLE, found, ignored, cells.size());
+        return new HeaderLayout(kind, FileLayout.POINT_TABLE, found, ignored, cells.size(), magnitudes);
+    }
+
+    /**
+     * VR and IR: reverse-bias magnitudes, the datasheet habit. Both must be there, with no V, I, C or
+     * series-resistor column beside them; they then stand in the V and I places (the rows negate them).
+     */
+    private static void reverseColumns(Path file, int line, String rawLine, Map<ColumnRole, Column> found,
+                                       String hint) throws DataFileException {
+        for (ColumnRole r : List.of(ColumnRole.VOLTAGE, ColumnRole.CURRENT, ColumnRole.CAPACITANCE,
+                ColumnRole.SUPPLY_VOLTAGE, ColumnRole.SERIES_RESISTANCE, ColumnRole.METER_VOLTAGE)) {
+            Column c = found.get(r);
+            if (c != null) {
+                throw new DataFileException(file, line, "column " + r.columnName() + " beside VR or IR: a file of "
+                        + "reverse magnitudes has the columns VR and IR only (read as V = -VR, I = -IR)", c.cell());
+            }
+        }
+        Column vr = found.remove(ColumnRole.REVERSE_VOLTAGE);
+        Column ir = found.remove(ColumnRole.REVERSE_CURRENT);
+        if (vr == null || ir == null) {
+            throw new DataFileException(file, line, "a file of reverse magnitudes needs both VR and IR columns"
+                    + hint, rawLine);
+        }
+        found.put(ColumnRole.VOLTAGE, vr);
+        found.put(ColumnRole.CURRENT, ir);
     }
 
     private static HeaderLayout seriesResistorLog(Path file, int line, String rawLine, Map<ColumnRole, Column> found,

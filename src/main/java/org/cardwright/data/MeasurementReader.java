@@ -60,19 +60,39 @@ public final class MeasurementReader {
      */
     public MeasurementFile read(Path file) throws DataFileException {
         Objects.requireNonNull(file, "file");
-        SourceText source = SourceText.read(file);
-        List<String> lines = source.lines();
+        try (LineSource source = LineSource.open(file)) {
+            return read(file, source);
+        }
+    }
 
-        Preamble preamble = Preamble.scan(lines);
-        int headerIndex = preamble.headerIndex();
-        if (headerIndex < 0) {
-            String why = lines.isEmpty() ? "empty file: no header row"
+    private MeasurementFile read(Path file, LineSource source) throws DataFileException {
+        // the lines before the header: only the settings are kept
+        List<Preamble.Line> settingLines = new ArrayList<>();
+        String headerText = null;
+        boolean anyLine = false;
+        for (String text = source.next(); text != null; text = source.next()) {
+            anyLine = true;
+            String stripped = text.strip();
+            if (stripped.isEmpty()) {
+                continue;
+            }
+            Optional<Preamble.Line> setting = Preamble.setting(source.lineNumber(), stripped);
+            if (setting.isPresent()) {
+                settingLines.add(setting.get());
+            } else if (!stripped.startsWith("#")) {
+                headerText = text;
+                break;
+            }
+        }
+        if (headerText == null) {
+            String why = !anyLine ? "empty file: no header row"
                     : "no header row: the file holds only comments, settings and blank lines";
             throw new DataFileException(file, 0, why, null);
         }
-        int headerLine = headerIndex + 1;
-        String headerText = lines.get(headerIndex);
-        char delimiter = options.delimiter().orElseGet(() -> detectDelimiter(headerText));
+        int headerLine = source.lineNumber();
+        Preamble preamble = new Preamble(headerLine - 1, settingLines);
+        String header0 = headerText;
+        char delimiter = options.delimiter().orElseGet(() -> detectDelimiter(header0));
         boolean decimalComma = delimiter != ReadOptions.COMMA;
         CsvLine splitter = new CsvLine(delimiter);
         HeaderLayout header = HeaderLayout.parse(file, headerLine, headerText,
@@ -80,6 +100,10 @@ public final class MeasurementReader {
 
         List<Notice> notices = new ArrayList<>();
         noteIgnoredColumns(file, headerLine, header, notices);
+        if (header.reverseMagnitudes()) {
+            notices.add(new Notice(file, headerLine, "columns VR and IR hold reverse-bias magnitudes: read as "
+                    + "V = -VR, I = -IR"));
+        }
         if (options.delimiter().isEmpty() && delimiter != ReadOptions.COMMA) {
             notices.add(new Notice(file, headerLine, "cells separated by " + (delimiter == '\t' ? "tabs" : "semicolons")
                     + " (detected from the header row); a decimal comma is read"));
@@ -90,9 +114,8 @@ public final class MeasurementReader {
         RowConverter.Rules rules = rules(file, headerLine, headerText, header, settings, notices);
 
         RowConverter rows = new RowConverter(file, header, decimalComma, fallback, rules, notices);
-        for (int i = headerIndex + 1; i < lines.size(); i++) {
-            int line = i + 1;
-            String text = lines.get(i);
+        for (String text = source.next(); text != null; text = source.next()) {
+            int line = source.lineNumber();
             String stripped = text.strip();
             if (stripped.isEmpty()) {
                 continue;

@@ -34,7 +34,7 @@ record Preamble(int headerIndex, List<Line> settings) {
     }
 
     private static final Pattern COMMENT_SETTING = Pattern.compile("#\\s*([A-Za-z]+(?:[ _-]+[A-Za-z]+)*)\\s*=(.*)");
-    private static final Pattern PLAIN_SETTING = Pattern.compile("([A-Za-z][A-Za-z0-9 _./()-]*?)\\s*:(.*)");
+    private static final Pattern PLAIN_KEY = Pattern.compile("[A-Za-z][A-Za-z0-9 _./()-]*");
 
     Preamble {
         settings = List.copyOf(settings);
@@ -48,18 +48,22 @@ record Preamble(int headerIndex, List<Line> settings) {
             if (stripped.isEmpty()) {
                 continue;
             }
-            if (stripped.startsWith("#")) {
-                commentSetting(i + 1, stripped).ifPresent(settings::add);
-                continue;
+            Optional<Line> setting = setting(i + 1, stripped);
+            if (setting.isPresent()) {
+                settings.add(setting.get());
+            } else if (!stripped.startsWith("#")) {
+                return new Preamble(i, settings);
             }
-            Optional<Line> plain = plainSetting(i + 1, stripped);
-            if (plain.isPresent()) {
-                settings.add(plain.get());
-                continue;
-            }
-            return new Preamble(i, settings);
         }
         return new Preamble(-1, settings);
+    }
+
+    /**
+     * The setting a non-blank line before the header states: a {@code # key = value} comment or a plain
+     * {@code key: value} line; empty for any other comment and for the header row itself.
+     */
+    static Optional<Line> setting(int line, String stripped) {
+        return stripped.startsWith("#") ? commentSetting(line, stripped) : plainSetting(line, stripped);
     }
 
     /** The setting a comment line states, if it has the form {@code # words = value}. */
@@ -80,8 +84,10 @@ record Preamble(int headerIndex, List<Line> settings) {
                 return Optional.empty();
             }
         }
-        Matcher m = PLAIN_SETTING.matcher(stripped);
-        return m.matches() ? Optional.of(new Line(line, m.group(1).strip(), m.group(2).strip(), false))
+        // the key is the text before the first colon; matched on its own so the work stays linear in the line
+        String key = stripped.substring(0, colon).strip();
+        return PLAIN_KEY.matcher(key).matches()
+                ? Optional.of(new Line(line, key, stripped.substring(colon + 1).strip(), false))
                 : Optional.empty();
     }
 }

@@ -1,13 +1,7 @@
 package org.cardwright.data;
 
-import java.io.IOException;
-import java.nio.charset.StandardCharsets;
-import java.nio.file.Files;
 import java.nio.file.Path;
-import java.security.MessageDigest;
-import java.security.NoSuchAlgorithmException;
 import java.util.ArrayList;
-import java.util.HexFormat;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
@@ -34,21 +28,25 @@ public final class RecoveryReader {
         this.defaultTemperature = defaultTemperature;
     }
 
-    /** True when the first non-comment line of {@code file} names the recovery columns (IF, IR and trr). */
+    /**
+     * True when the first non-comment line of {@code file} names the recovery columns (IF, IR and trr). Reads
+     * no further than that line; a file that cannot be read (missing, not a regular file, not UTF-8) is not
+     * taken for recovery records, and the measurement reader then says what is wrong with it.
+     */
     public static boolean looksLikeRecovery(Path file) {
-        try {
-            for (String line : Files.readAllLines(file, StandardCharsets.UTF_8)) {
-                String t = line.replace("\ufeff", "").trim();
+        try (LineSource source = LineSource.open(file)) {
+            for (String line = source.next(); line != null; line = source.next()) {
+                String t = line.strip();
                 if (t.isEmpty() || t.startsWith("#")) {
                     continue;
                 }
                 List<String> names = new ArrayList<>();
-                for (String cell : t.split(String.valueOf(delimiterOf(t)))) {
+                for (String cell : new CsvLine(delimiterOf(t)).split(t)) {
                     names.add(name(cell));
                 }
                 return names.contains("if") && names.contains("ir") && names.contains("trr");
             }
-        } catch (IOException | RuntimeException e) {
+        } catch (DataFileException | CellProblem e) {
             return false;
         }
         return false;
@@ -61,37 +59,45 @@ public final class RecoveryReader {
         }
     }
 
-    /** Reads every record; errors name the file, the line and the raw value. */
+    /**
+     * Reads every record; errors name the file, the line and the raw value. The file is read the way every
+     * measurement file is (regular files only, size and line limits, strict UTF-8, control characters refused,
+     * the same cell splitting and number reading).
+     */
     public Records read(Path file) throws DataFileException {
-        byte[] bytes;
-        try {
-            bytes = Files.readAllBytes(file);
-        } catch (IOException e) {
-            throw new DataFileException(file, 0, "cannot read the file (" + e.getMessage() + ")", null, e);
+        try (LineSource source = LineSource.open(file)) {
+            return read(file, source);
         }
-        String sha;
-        try {
-            sha = HexFormat.of().formatHex(MessageDigest.getInstance("SHA-256").digest(bytes));
-        } catch (NoSuchAlgorithmException e) {
-            throw new IllegalStateException(e);
-        }
-        String[] lines = new String(bytes, StandardCharsets.UTF_8).replace("\ufeff", "").split("\r\n|\r|\n", -1);
+    }
+
+    private Records read(Path file, LineSource source) throws DataFileException {
         int[] col = null;
         double[] scale = null;
         boolean celsius = true;
         List<RecoveryRecord> out = new ArrayList<>();
         char delimiter = ',';
-        for (int i = 0; i < lines.length; i++) {
-            int lineNo = i + 1;
-            String t = lines[i].trim();
+        CsvLine splitter = null;
+        int headerLine = 0;
+        int width = 0;
+        for (String line = source.next(); line != null; line = source.next()) {
+            int lineNo = source.lineNumber();
+            String t = line.strip();
             if (t.isEmpty() || t.startsWith("#")) {
                 continue;
             }
             if (col == null) {
                 delimiter = delimiterOf(t);
+                splitter = new CsvLine(delimiter);
             }
-            String[] cells = t.split(java.util.regex.Pattern.quote(String.valueOf(delimiter)), -1);
+            String[] cells;
+            try {
+                cells = splitter.split(line).toArray(new String[0]);
+            } catch (CellProblem e) {
+                throw new DataFileException(file, lineNo, e.problem(), line);
+            }
             if (col == null) {
+                headerLine = lineNo;
+                width = cells.length;
                 col = new int[] {-1, -1, -1, -1};
                 scale = new double[] {1, 1, 1, 1};
                 String[] wanted = {"if", "ir", "trr", "t"};
@@ -127,21 +133,22 @@ public final class RecoveryReader {
                 }
                 continue;
             }
+            if (cells.length < width) {
+                throw new DataFileException(file, lineNo, "the row has " + cells.length + " cells, the header on line "
+                        + headerLine + " has " + width, t);
+            }
             double[] v = new double[4];
             for (int w = 0; w < 4; w++) {
                 if (col[w] < 0) {
                     continue;
                 }
-                if (col[w] >= cells.length) {
-                    throw new DataFileException(file, lineNo, "the row has fewer cells than the header", t);
-                }
                 String raw = cells[col[w]].trim();
                 try {
                     // the same number reading as every other cardwright file: SPICE suffixes, and a decimal
                     // comma when cells are not separated by commas
-                    v[w] = CellNumber.parse(raw, delimiter != ',').value().doubleValue() * scale[w];
+                    v[w] = DecimalText.toDouble(CellNumber.parse(raw, delimiter != ',').value()) * scale[w];
                 } catch (CellProblem e) {
-                    throw new DataFileException(file, lineNo, e.getMessage(), raw);
+                    throw new DataFileException(file, lineNo, e.problem(), raw);
                 }
                 if (!Double.isFinite(v[w])) {
                     throw new DataFileException(file, lineNo, "not a finite number", raw);
@@ -166,7 +173,7 @@ public final class RecoveryReader {
         if (out.isEmpty()) {
             throw new DataFileException(file, 0, "no recovery records", null);
         }
-        return new Records(file, sha, out);
+        return new Records(file, source.sha256(), out);
     }
 
     /** Tab, else semicolon, else comma: whichever the header line uses. */

@@ -3,10 +3,8 @@ package org.cardwright.data;
 import java.math.BigDecimal;
 import java.nio.file.Path;
 import java.util.ArrayList;
-import java.util.HashMap;
 import java.util.List;
 import java.util.Locale;
-import java.util.Map;
 import java.util.OptionalDouble;
 
 /** Turns data rows into points, checking each and collecting the notices they call for. */
@@ -39,8 +37,13 @@ final class RowConverter {
     record TemperatureFallback(OptionalDouble kelvin, String source) {
     }
 
-    private record Key(double voltage, double measured, double temperature) {
-    }
+    /**
+     * Per-row notices of one kind (zero current, empty T cell) are given one by one up to here; the rest are
+     * counted in one notice, so a large file cannot bury the terminal (or the heap) in notices [rows].
+     */
+    static final int ROW_NOTICES_PER_KIND = 10;
+    /** Flagged rows named one by one in the notice; the rest are counted [rows]. */
+    static final int LISTED_FLAGGED_ROWS = 50;
 
     private record Flagged(int line, String value) {
     }
@@ -53,8 +56,13 @@ final class RowConverter {
     private final List<Notice> notices;
     private final List<IvPoint> iv = new ArrayList<>();
     private final List<CvPoint> cv = new ArrayList<>();
-    private final Map<Key, Integer> seen = new HashMap<>();
+    private final PointIndex seen = new PointIndex();
+    private int zeroCurrentRows;
+    private int firstUnlistedZeroCurrent;
+    private int emptyTemperatureRows;
+    private int firstUnlistedEmptyTemperature;
     private final List<Flagged> flagged = new ArrayList<>();
+    private int flaggedRows;
     private boolean warnedKelvinAsCelsius;
     private boolean warnedCapitalMilli;
     private int zeroSigmaLine;
@@ -92,6 +100,7 @@ final class RowConverter {
             }
             checkDuplicate(line, text, voltage, capacitance, temperature, "C");
             cv.add(new CvPoint(voltage, capacitance, temperature, line));
+            seen.add(cv.size() - 1);
         }
     }
 
@@ -103,7 +112,10 @@ final class RowConverter {
         String cell = cells.get(f.index());
         try {
             if (StatusFlag.isFlagged(cell)) {
-                flagged.add(new Flagged(line, cell.strip()));
+                if (flagged.size() < LISTED_FLAGGED_ROWS) {
+                    flagged.add(new Flagged(line, cell.strip()));
+                }
+                flaggedRows++;
                 return true;
             }
             return false;
@@ -115,6 +127,18 @@ final class RowConverter {
     private void addIvRow(int line, String text, List<String> cells, double temperature) throws DataFileException {
         BigDecimal voltage = exact(line, header.required(ColumnRole.VOLTAGE), cells);
         BigDecimal current = exact(line, header.required(ColumnRole.CURRENT), cells);
+        if (header.reverseMagnitudes()) {
+            for (ColumnRole role : List.of(ColumnRole.VOLTAGE, ColumnRole.CURRENT)) {
+                HeaderLayout.Column c = header.required(role);
+                if ((role == ColumnRole.VOLTAGE ? voltage : current).signum() < 0) {
+                    throw new DataFileException(file, line, "a negative value in " + c.describe() + ": VR and IR "
+                            + "hold reverse-bias magnitudes (read as V = -VR, I = -IR); write the magnitude, or name "
+                            + "the columns V and I for signed values", cells.get(c.index()));
+                }
+            }
+            voltage = voltage.negate();
+            current = current.negate();
+        }
         double i = current.doubleValue();
         double voltageSigma = stated(line, ColumnRole.VOLTAGE_SIGMA, cells, rules.voltmeter(),
                 voltage.doubleValue());
@@ -138,11 +162,14 @@ final class RowConverter {
         }
         double v = voltage.doubleValue();
         checkDuplicate(line, text, v, i, temperature, "I");
-        if (i == 0) {
+        if (i == 0 && zeroCurrentRows++ < ROW_NOTICES_PER_KIND) {
             notices.add(new Notice(file, line, "current is exactly zero; the point is kept, but "
                     + "no logarithm of its current exists"));
+        } else if (i == 0 && firstUnlistedZeroCurrent == 0) {
+            firstUnlistedZeroCurrent = line;
         }
         iv.add(new IvPoint(v, i, temperature, line, voltageSigma, currentSigma, correlation));
+        seen.add(iv.size() - 1);
     }
 
     /** The stated uncertainty of a row: its dV or dI cell, else the instrument accuracy, else NaN. */
@@ -215,14 +242,88 @@ final class RowConverter {
         checkDuplicate(line, text, p.voltage(), p.current(), temperature, "I");
         iv.add(new IvPoint(p.voltage(), p.current(), temperature, line, p.voltageSigma(), p.currentSigma(),
                 p.correlation()));
+        seen.add(iv.size() - 1);
     }
 
     private void checkDuplicate(int line, String text, double voltage, double measured, double temperature,
                                 String y) throws DataFileException {
-        Integer earlier = seen.putIfAbsent(new Key(voltage + 0.0, measured + 0.0, temperature), line);
-        if (earlier != null) {
+        int earlier = seen.find(voltage, measured, temperature);
+        if (earlier > 0) {
             throw new DataFileException(file, line, "duplicate row: same V, " + y + " and T as line "
                     + earlier + " (lines " + earlier + " and " + line + ")", text);
+        }
+    }
+
+    /**
+     * The points read so far, indexed by (V, I or C, T) for the duplicate check: an open-addressing table of
+     * list positions, about 8 bytes a row where a map of boxed keys took some 100.
+     */
+    private final class PointIndex {
+        private int[] slots = new int[64];
+        private int used;
+
+        /** The line of an earlier point with exactly these values, or 0 when there is none. */
+        int find(double voltage, double measured, double temperature) {
+            int mask = slots.length - 1;
+            for (int k = hash(voltage, measured, temperature) & mask; slots[k] != 0; k = (k + 1) & mask) {
+                int at = slots[k] - 1;
+                if (same(at, voltage, measured, temperature)) {
+                    return line(at);
+                }
+            }
+            return 0;
+        }
+
+        /** Adds the point at this list position (of the I-V or the C-V list, whichever the file fills). */
+        void add(int position) {
+            if (2 * (used + 1) > slots.length) {
+                int[] old = slots;
+                slots = new int[old.length * 2];
+                for (int s : old) {
+                    if (s != 0) {
+                        insert(s - 1);
+                    }
+                }
+            }
+            insert(position);
+            used++;
+        }
+
+        private void insert(int position) {
+            int mask = slots.length - 1;
+            int k = hash(x(position), y(position), t(position)) & mask;
+            while (slots[k] != 0) {
+                k = (k + 1) & mask;
+            }
+            slots[k] = position + 1;
+        }
+
+        private boolean same(int at, double voltage, double measured, double temperature) {
+            return Double.compare(x(at) + 0.0, voltage + 0.0) == 0 && Double.compare(y(at) + 0.0, measured + 0.0) == 0
+                    && Double.compare(t(at), temperature) == 0;
+        }
+
+        private int hash(double voltage, double measured, double temperature) {
+            int h = Double.hashCode(voltage + 0.0);
+            h = 31 * h + Double.hashCode(measured + 0.0);
+            h = 31 * h + Double.hashCode(temperature);
+            return h ^ (h >>> 16);
+        }
+
+        private double x(int at) {
+            return iv.isEmpty() ? cv.get(at).voltage() : iv.get(at).voltage();
+        }
+
+        private double y(int at) {
+            return iv.isEmpty() ? cv.get(at).capacitance() : iv.get(at).current();
+        }
+
+        private double t(int at) {
+            return iv.isEmpty() ? cv.get(at).temperature() : iv.get(at).temperature();
+        }
+
+        private int line(int at) {
+            return iv.isEmpty() ? cv.get(at).line() : iv.get(at).line();
         }
     }
 
@@ -262,8 +363,12 @@ final class RowConverter {
             if (fallback.kelvin().isEmpty()) {
                 throw new DataFileException(file, line, "empty T cell and no --temp given", cell);
             }
-            notices.add(new Notice(file, line, "empty T cell: the point is at " + fallback.source() + " "
-                    + MeasurementReader.kelvinText(fallback.kelvin().getAsDouble())));
+            if (emptyTemperatureRows++ < ROW_NOTICES_PER_KIND) {
+                notices.add(new Notice(file, line, "empty T cell: the point is at " + fallback.source() + " "
+                        + MeasurementReader.kelvinText(fallback.kelvin().getAsDouble())));
+            } else if (firstUnlistedEmptyTemperature == 0) {
+                firstUnlistedEmptyTemperature = line;
+            }
             return fallback.kelvin().getAsDouble();
         }
         double kelvin = value(line, t, cells);
@@ -290,16 +395,28 @@ final class RowConverter {
         if (!flagged.isEmpty()) {
             HeaderLayout.Column f = header.column(ColumnRole.FLAG).orElseThrow();
             if (count() == 0) {
-                throw new DataFileException(file, headerLine, "every data row (" + flagged.size() + ") is flagged in "
+                throw new DataFileException(file, headerLine, "every data row (" + flaggedRows + ") is flagged in "
                         + f.describe() + ", so no point is left", headerText);
             }
             List<String> listed = new ArrayList<>();
             for (Flagged x : flagged) {
                 listed.add(x.line() + " (" + x.value() + ")");
             }
-            notices.add(new Notice(file, flagged.get(0).line(), flagged.size() + (flagged.size() == 1 ? " row" : " rows")
-                    + " flagged in " + f.describe() + " set aside, not used: line" + (flagged.size() == 1 ? " " : "s ")
-                    + String.join(", ", listed)));
+            String more = flaggedRows > flagged.size() ? " and " + (flaggedRows - flagged.size()) + " more" : "";
+            notices.add(new Notice(file, flagged.get(0).line(), flaggedRows + (flaggedRows == 1 ? " row" : " rows")
+                    + " flagged in " + f.describe() + " set aside, not used: line" + (flaggedRows == 1 ? " " : "s ")
+                    + String.join(", ", listed) + more));
+        }
+        if (firstUnlistedZeroCurrent > 0) {
+            notices.add(new Notice(file, firstUnlistedZeroCurrent, (zeroCurrentRows - ROW_NOTICES_PER_KIND)
+                    + " more rows from here on have a current of exactly zero; they are kept as the first "
+                    + ROW_NOTICES_PER_KIND + " were"));
+        }
+        if (firstUnlistedEmptyTemperature > 0) {
+            notices.add(new Notice(file, firstUnlistedEmptyTemperature, (emptyTemperatureRows - ROW_NOTICES_PER_KIND)
+                    + " more rows from here on have an empty T cell; they are at " + fallback.source() + " "
+                    + MeasurementReader.kelvinText(fallback.kelvin().getAsDouble()) + " as the first "
+                    + ROW_NOTICES_PER_KIND + " were"));
         }
         if (zeroSigmaLine > 0) {
             notices.add(new Notice(file, zeroSigmaLine, "the stated accuracy gives no uncertainty for a reading of "

@@ -173,7 +173,8 @@ public final class CapacitanceExtraction {
                 Optimiser.Run r;
                 try {
                     r = run(blocks, best.parameters().with(term.param, v0), f);
-                } catch (RuntimeException e) {
+                } catch (FitFailedException | IllegalArgumentException | ArithmeticException e) {
+                    // a trial term the data cannot carry (no convergence, parameters leaving the model's domain)
                     lastDelta.put(term, Double.NaN);
                     continue;
                 }

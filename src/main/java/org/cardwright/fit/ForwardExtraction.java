@@ -207,7 +207,7 @@ public final class ForwardExtraction {
         Optimiser.Run best;
         try {
             best = run(blocks, DiodeParameters.of(start), free);
-        } catch (RuntimeException e) {
+        } catch (FitFailedException | IllegalArgumentException | ArithmeticException e) {
             if (!free.contains(Param.ISR) && !free.contains(Param.NR)) {
                 throw e;
             }
@@ -253,7 +253,8 @@ public final class ForwardExtraction {
                 Optimiser.Run r;
                 try {
                     r = run(blocks, DiodeParameters.of(trial), trialFree);
-                } catch (RuntimeException e) {
+                } catch (FitFailedException | IllegalArgumentException | ArithmeticException e) {
+                    // a trial term the data cannot carry (no convergence, parameters leaving the model's domain)
                     r = null;
                 }
                 if (term == RECOMBINATION) {
@@ -312,7 +313,8 @@ public final class ForwardExtraction {
                 Optimiser.Run r;
                 try {
                     r = run(blocks, reduced, without);
-                } catch (RuntimeException e) {
+                } catch (FitFailedException | IllegalArgumentException | ArithmeticException e) {
+                    // a trial term the data cannot carry (no convergence, parameters leaving the model's domain)
                     continue;
                 }
                 double b = bic(r.rss(), n, r.layout().size());
@@ -390,7 +392,7 @@ public final class ForwardExtraction {
         Optimiser.Run second;
         try {
             second = run(blocks, DiodeParameters.of(alt), free);
-        } catch (RuntimeException e) {
+        } catch (FitFailedException | IllegalArgumentException | ArithmeticException e) {
             return first;
         }
         return first == null || second.rss() < first.rss() ? second : first;
@@ -437,7 +439,7 @@ public final class ForwardExtraction {
         Optimiser.Run r;
         try {
             r = run(blocks, p, f);
-        } catch (RuntimeException e) {
+        } catch (FitFailedException | IllegalArgumentException | ArithmeticException e) {
             decisions.add(new TermDecision(RECOMBINATION_FACTOR, params, false, Double.NaN,
                     held + "; a fit with them free did not converge"));
             return best;
@@ -510,7 +512,7 @@ public final class ForwardExtraction {
             for (int a = 0; a < m; a++) {
                 removable += hr[a] * z[a];
             }
-        } catch (RuntimeException e) {
+        } catch (FitFailedException | IllegalArgumentException | ArithmeticException e) {
             removable = best.rss();
         }
         double rss = best.rss();
@@ -577,7 +579,7 @@ public final class ForwardExtraction {
                     bestRss = r.rss();
                     best = r.parameters();
                 }
-            } catch (RuntimeException e) {
+            } catch (FitFailedException | IllegalArgumentException | ArithmeticException e) {
                 // a start that does not converge is simply not a candidate
             }
         }
@@ -747,8 +749,15 @@ public final class ForwardExtraction {
         double[] hPerp = h;
         if (j.length > 0 && j[0].length > 0) {
             org.apache.commons.math3.linear.RealMatrix jm = new org.apache.commons.math3.linear.Array2DRowRealMatrix(j, false);
-            org.apache.commons.math3.linear.RealVector c = new org.apache.commons.math3.linear.QRDecomposition(jm, 1e-14)
-                    .getSolver().solve(new org.apache.commons.math3.linear.ArrayRealVector(h, false));
+            org.apache.commons.math3.linear.RealVector c;
+            try {
+                c = new org.apache.commons.math3.linear.QRDecomposition(jm, 1e-14)
+                        .getSolver().solve(new org.apache.commons.math3.linear.ArrayRealVector(h, false));
+            } catch (org.apache.commons.math3.linear.SingularMatrixException e) {
+                throw new FitFailedException("the forward fit is degenerate: its Jacobian is singular, so the data do "
+                        + "not determine " + best.layout().free() + " (currents too small, too few distinct points, "
+                        + "or values beyond double precision)");
+            }
             double[] fit = jm.operate(c).toArray();
             hPerp = new double[h.length];
             for (int i = 0; i < h.length; i++) {

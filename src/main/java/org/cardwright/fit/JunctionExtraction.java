@@ -265,7 +265,7 @@ public final class JunctionExtraction {
                 if (best == null || r.rss() < best.rss()) {
                     best = r;
                 }
-            } catch (RuntimeException e) {
+            } catch (FitFailedException | IllegalArgumentException | ArithmeticException e) {
                 // a start that does not converge is not a candidate
             }
         }

@@ -97,6 +97,9 @@ final class Optimiser {
             throw new FitFailedException("the fit did not converge within " + MAX_EVALUATIONS + " evaluations");
         } catch (ConvergenceException e) {
             throw new FitFailedException("the fit stopped: " + e.getMessage());
+        } catch (IllegalArgumentException | ArithmeticException e) {
+            // the model left its domain (a parameter or voltage no longer finite) or a matrix became singular
+            throw new FitFailedException("the fit broke down: " + e.getMessage());
         }
         DiodeParameters result = layout.toParameters(x);
         return new Run(result, layout, x, model.chiSquare(result), evals, iters, stop);

@@ -153,7 +153,7 @@ final class ShuntTerm {
                 if (screen == null || j.run().rss() < screen.run().rss()) {
                     screen = j;
                 }
-            } catch (RuntimeException e) {
+            } catch (FitFailedException | IllegalArgumentException | ArithmeticException e) {
                 // this start does not converge; the others may
             }
         }
@@ -182,7 +182,7 @@ final class ShuntTerm {
             try {
                 j = fit(shuntBlocks(points, leakage, settings, g), c.run().parameters(), c.run().layout().free(),
                         forward::bounds, g);
-            } catch (RuntimeException e) {
+            } catch (FitFailedException | IllegalArgumentException | ArithmeticException e) {
                 break;
             }
             if (!(forwardBic(j, points, settings) < forwardBic(joint, points, settings))) {
@@ -279,7 +279,7 @@ final class ShuntTerm {
         try {
             ForwardExtraction.Stage s = forward.stage(kept);
             return s.run().parameters().isGiven(Param.RTH0) ? plain : s;
-        } catch (FitInputException | RuntimeException e) {
+        } catch (FitInputException | FitFailedException | IllegalArgumentException | ArithmeticException e) {
             return plain;
         }
     }

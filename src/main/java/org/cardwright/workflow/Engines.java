@@ -108,7 +108,7 @@ public final class Engines {
                 return new NgspiceEngine(process(SimulatorProcess.Kind.NGSPICE, exe), workFolder());
             }
             default:
-                throw new IllegalArgumentException("unknown engine '" + name + "'; choose one of " + NAMES);
+                throw new org.cardwright.failure.UsageException("unknown engine '" + name + "'; choose one of " + NAMES);
         }
     }
 
@@ -129,7 +129,7 @@ public final class Engines {
                 return new org.cardwright.sim.NgspiceCapacitance(process(SimulatorProcess.Kind.NGSPICE, exe), workFolder());
             }
             default:
-                throw new IllegalArgumentException("unknown engine '" + name + "'; choose one of " + NAMES);
+                throw new org.cardwright.failure.UsageException("unknown engine '" + name + "'; choose one of " + NAMES);
         }
     }
 }

@@ -52,16 +52,16 @@ public record FitRequest(List<Path> data, String name, List<Dialect> dialects, P
         dialects = List.copyOf(dialects);
         rules = List.copyOf(rules);
         if (data.isEmpty()) {
-            throw new IllegalArgumentException("no data files given");
+            throw new org.cardwright.failure.UsageException("no data files given");
         }
         if (dialects.isEmpty()) {
-            throw new IllegalArgumentException("no dialect given");
+            throw new org.cardwright.failure.UsageException("no dialect given");
         }
         if (!(sweepGap >= 0) || !Double.isFinite(sweepGap)) {
             throw new IllegalArgumentException("--sweep-gap must be 0 or more kelvin, got " + sweepGap);
         }
         if (digits < 4 || digits > 15) {
-            throw new IllegalArgumentException("--digits must lie in 4..15, got " + digits);
+            throw new org.cardwright.failure.UsageException("--digits must lie in 4..15, got " + digits);
         }
     }
 

@@ -75,6 +75,15 @@ public final class FitWorkflow {
         ReadOptions options = request.readOptions();
         Inputs inputs = Inputs.read(request.data(), options).withSweepNote(request.sweepGap());
         ExtractionData data = extractionData(inputs);
+        org.cardwright.fit.ForwardReduction.Reduced forward = org.cardwright.fit.ForwardReduction.reduce(data.forward());
+        if (forward.reduced()) {
+            // time and memory stay those of FULL_WEIGHT_LIMIT points; said in a note, as every change to the data
+            data = new ExtractionData(forward.points(), data.reverse(), data.capacitance(), data.recovery());
+            List<String> notes = new ArrayList<>(inputs.notes());
+            notes.add("forward I-V: " + forward.description());
+            inputs = new Inputs(inputs.files(), inputs.forward(), inputs.reverse(), inputs.capacitance(),
+                    inputs.recovery(), notes);
+        }
         if (data.isEmpty()) {
             throw new FitInputException(request.data().stream().map(Inputs::displayName).collect(Collectors.joining(", "))
                     + ": no I-V or C-V points to fit");
@@ -150,10 +159,20 @@ public final class FitWorkflow {
                 + ":0: nothing to fit: no forward I-V points, and the other data determine no parameter";
     }
 
+    /**
+     * One extraction. Its failures become fit failures (exit 4) that name the data files: a stage that did not
+     * converge, and the model's own checks (a start value or parameter that is no longer finite, a singular
+     * matrix), which only extreme data reach.
+     */
     private static FitResult extract(FitSettings settings, FitRequest request, ExtractionData data) throws FitInputException {
-        return request.robust()
-                ? new RobustExtraction(settings, request.capacitance()).fit(data)
-                : new JunctionExtraction(settings, request.capacitance()).fit(data);
+        try {
+            return request.robust()
+                    ? new RobustExtraction(settings, request.capacitance()).fit(data)
+                    : new JunctionExtraction(settings, request.capacitance()).fit(data);
+        } catch (org.cardwright.fit.FitFailedException | IllegalArgumentException | ArithmeticException e) {
+            throw new org.cardwright.fit.FitFailedException(request.data().stream().map(Inputs::displayName)
+                    .collect(Collectors.joining(", ")) + ": the data cannot be fitted: " + e.getMessage());
+        }
     }
 
     /**

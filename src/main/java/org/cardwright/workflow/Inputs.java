@@ -186,11 +186,10 @@ public record Inputs(List<MeasurementFile> files, List<Located> forward, List<Lo
                         vmax = Math.max(vmax, sorted.get(k).point().voltage());
                     }
                     if (vmax - vmin > PLATEAU_VOLTAGE) {
-                        StringBuilder lines = new StringBuilder();
                         for (int k = i; k <= j; k++) {
                             plateau.add(sorted.get(k));
-                            lines.append(k == i ? "" : ", ").append(sorted.get(k).point().line());
                         }
+                        String lines = lineList(sorted.subList(i, j + 1));
                         notes.add(String.format(java.util.Locale.ROOT,
                                 "%s: lines %s hold the current at %.4g A while the voltage moves %.4g V: a compliance limit, not the diode; set aside (a status column marks such points explicitly)",
                                 sorted.get(i).source(), lines, sorted.get(i).point().current(), vmax - vmin));
@@ -237,11 +236,25 @@ public record Inputs(List<MeasurementFile> files, List<Located> forward, List<Lo
                 notes.add(String.format(java.util.Locale.ROOT,
                         "%s: %d forward points at and below %.4g V set aside: the current stops rising there (lines %s), "
                                 + "which is the instrument's floor, not the diode",
-                        gone.get(0).source(), gone.size(), byV.get(cut).point().voltage(),
-                        String.join(", ", gone.stream().map(l -> Integer.toString(l.point().line())).toList())));
+                        gone.get(0).source(), gone.size(), byV.get(cut).point().voltage(), lineList(gone)));
             }
         }
         points.removeAll(floor);
+    }
+
+    /** Lines named one by one in a note; the rest are counted, so a note stays readable for any file [lines]. */
+    static final int LISTED_LINES = 50;
+
+    /** The points' lines, the first {@value #LISTED_LINES} of them, and how many more. */
+    private static String lineList(List<Located> points) {
+        StringBuilder s = new StringBuilder();
+        for (int k = 0; k < Math.min(points.size(), LISTED_LINES); k++) {
+            s.append(k == 0 ? "" : ", ").append(points.get(k).point().line());
+        }
+        if (points.size() > LISTED_LINES) {
+            s.append(" and ").append(points.size() - LISTED_LINES).append(" more");
+        }
+        return s.toString();
     }
 
     /** The floor is looked for only this many decades above the sweep's smallest current, at most [decades]. */

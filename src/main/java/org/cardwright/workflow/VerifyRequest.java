@@ -40,7 +40,7 @@ public record VerifyRequest(Path card, List<Path> data, String engine, Optional<
     public VerifyRequest {
         data = List.copyOf(data);
         if (data.isEmpty()) {
-            throw new IllegalArgumentException("no data files given");
+            throw new org.cardwright.failure.UsageException("no data files given");
         }
     }
 
