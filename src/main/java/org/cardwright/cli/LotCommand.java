@@ -103,8 +103,8 @@ final class LotCommand implements Callable<Integer> {
     @picocli.CommandLine.Spec
     picocli.CommandLine.Model.CommandSpec spec;
 
-    @Override
-    public Integer call() throws Exception {
+    /** The request the options describe; a wrong value is a wrong command line. */
+    private LotRequest request() {
         List<Dialect> ds = new ArrayList<>();
         for (String d : dialects == null ? List.of("ngspice") : dialects) {
             Dialect dialect = Dialect.byName(d.trim());
@@ -129,10 +129,15 @@ final class LotCommand implements Callable<Integer> {
         }
         LotSettings settings = new LotSettings(reading.bench(true).readOptions(reading.temperatureKelvin()),
                 DeviceKind.byOptionName(kind), parsed, reading.capacitance());
-        LotRequest request = new LotRequest(inputs, name, out, ds,
+        return new LotRequest(inputs, name, out, ds,
                 jobs == null ? Runtime.getRuntime().availableProcessors() : jobs, settings, cornerSigma, conditions,
                 atTemp == null ? OptionalDouble.empty() : OptionalDouble.of(atTemp + Ngspice39.CELSIUS_TO_KELVIN),
                 digits, force, Optional.ofNullable(templates));
+    }
+
+    @Override
+    public Integer call() throws Exception {
+        LotRequest request = Main.option(this::request);
         Progress progress = new Progress(spec.commandLine().getErr(), !noProgress);
         LotOutcome outcome = new LotJob().run(request, LotJson::write, LotHtml::write, progress);
         progress.end();

@@ -53,7 +53,7 @@ final class PartProgress {
             return Math.max(1, Runtime.getRuntime().availableProcessors());
         }
         if (asked < 1) {
-            throw new IllegalArgumentException("--jobs must be at least 1, not " + asked);
+            throw new org.cardwright.failure.UsageException("--jobs must be at least 1, not " + asked);
         }
         return asked;
     }

@@ -19,7 +19,7 @@ final class SimulatorTimeLimit {
             return;
         }
         if (!(seconds > 0) || seconds > Duration.ofDays(1).toSeconds()) {
-            throw new IllegalArgumentException("--sim-timeout must be a number of seconds above 0 and at most one day, got "
+            throw new org.cardwright.failure.UsageException("--sim-timeout must be a number of seconds above 0 and at most one day, got "
                     + seconds);
         }
         Engines.setTimeLimit(Optional.of(Duration.ofNanos(Math.round(seconds * 1e9))));

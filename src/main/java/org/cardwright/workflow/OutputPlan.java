@@ -65,7 +65,7 @@ public final class OutputPlan {
 
     /**
      * Fails, naming both files and their roles, when an output leads to an input, to a protected file or to a folder
-     * ({@link OutputException}), or to another output of the same command (IllegalArgumentException: the command
+     * ({@link OutputException}), or to another output of the same command (a UsageException: the command
      * line names one file for two things, a usage error).
      */
     public void check() throws OutputException {
@@ -94,7 +94,7 @@ public final class OutputPlan {
             for (int j = 0; j < i; j++) {
                 Entry o = writes.get(j);
                 if (same(w, o)) {
-                    throw new IllegalArgumentException(shown(w.path()) + ": " + o.role() + " and " + w.role() + " name the same file"
+                    throw new org.cardwright.failure.UsageException(shown(w.path()) + ": " + o.role() + " and " + w.role() + " name the same file"
                             + via(w, o) + "; give them different names");
                 }
             }
