@@ -88,6 +88,16 @@ final class VerifyCommand implements Callable<Integer> {
         return Dialect.NGSPICE;
     }
 
+    /** The command as given, the data files' hashes and the card's parameters, for the evidence page. */
+    private org.cardwright.report.PageFacts pageFacts() throws Exception {
+        String text = java.nio.file.Files.readString(card, java.nio.charset.StandardCharsets.UTF_8);
+        var parsed = new org.cardwright.card.CardReader().parse(text, Inputs.displayName(card), dialectOf(card, dialect),
+                Optional.ofNullable(model));
+        return new org.cardwright.report.PageFacts(
+                org.cardwright.report.PageFacts.command("cardwright", spec.commandLine().getParseResult().originalArgs()),
+                org.cardwright.report.PageFacts.hash(data), org.cardwright.report.PageFacts.parametersOf(parsed.parameters()));
+    }
+
     @Override
     public Integer call() throws Exception {
         if (html != null) {
@@ -103,7 +113,7 @@ final class VerifyCommand implements Callable<Integer> {
                 reading.bench(true));
         JunctionVerification v = new VerifyWorkflow().runAll(request, r -> VerificationJson.write(r, Inputs.displayName(card)));
         if (html != null) {
-            OutputFiles.writeAtomically(html, HtmlReport.render(v, Inputs.displayName(card)));
+            OutputFiles.writeAtomically(html, HtmlReport.render(v, Inputs.displayName(card), pageFacts()));
         }
         spec.commandLine().getOut().print(VerificationText.render(v));
         spec.commandLine().getOut().flush();
