@@ -244,7 +244,7 @@ final class EvidencePlots {
             }
             plot.add(series(e.getKey(), markers, line));
         }
-        plot.explain("markers: measured \u2212 stray").explain("lines: card");
+        plot.explain("markers: measured").explain("lines: card");
         return new Figure(plot.render(), cut);
     }
 
@@ -326,7 +326,7 @@ final class EvidencePlots {
             }
             plot.add(series(e.getKey(), markers, line));
         }
-        plot.explain("markers: measured \u2212 stray").explain("lines: card");
+        plot.explain("markers: measured").explain("lines: card");
         return new Figure(plot.render(), cut);
     }
 

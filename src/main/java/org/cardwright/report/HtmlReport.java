@@ -53,7 +53,7 @@ public final class HtmlReport {
             "th.text,td.text{text-align:left}",
             "td.result{font-weight:650;text-align:center}",
             "svg.swatch{display:inline-block;width:13px;height:13px;margin-right:6px;vertical-align:-1px}",
-            "svg.swatch path{fill:#fff;stroke-width:1.6}",
+            "svg.swatch path{fill:none;stroke-width:1.6}",
             "pre.command{white-space:pre-wrap;overflow-wrap:anywhere;background:#f2f0ea;padding:8px 10px;margin:6px 0;"
                     + "font:13.5px ui-monospace,monospace}",
             "td.hash{font-family:ui-monospace,monospace;font-size:12.5px;overflow-wrap:anywhere;text-align:left}",
@@ -70,7 +70,8 @@ public final class HtmlReport {
             "svg .key{fill:#5b6066}",
             "svg .series polyline{fill:none;stroke-width:1.8}",
             "svg.residuals .series polyline{stroke-width:0.9;stroke-opacity:0.55}",
-            "svg path.marker{fill:#fff;stroke-width:1.5}",
+            "svg path.marker{fill:none;stroke-width:1.5;pointer-events:visible}",
+            "td.temp{white-space:nowrap}",
             "svg .legend line{stroke-width:1.8}",
             "svg .off-scale{font-style:italic}",
             "svg .zero{stroke:#b3b0a6}",
@@ -205,8 +206,8 @@ public final class HtmlReport {
         notes(v.notes());
         String quantity = reverse ? "|I| against |V|" : "current against voltage";
         figure(plots.junctionCurve(id + "-curve", v, reverse), (reverse ? "Reverse breakdown: " : "Forward ")
-                + quantity + ", current on a log axis. Circles: measured points; line: the card's voltage at "
-                + "each measured current, one colour per temperature.");
+                + quantity + ", current on a log axis. Markers: measured points; lines: the card's voltage at "
+                + "each measured current, one colour and marker shape per temperature.");
         figure(plots.junctionResiduals(id + "-residuals", v, reverse), "Card minus measured "
                 + (reverse ? "|V|" : "voltage") + " at each point, in mV, against " + (reverse ? "|I|" : "current")
                 + ". Dashed: \u00b1 the RMS limit; dotted: \u00b1 the single-point limit.");
@@ -235,8 +236,9 @@ public final class HtmlReport {
                 v.tolerance().rmsPercent(), v.tolerance().maxPercent(), Units.engineering(v.strayCapacitance(), "F"),
                 Units.engineering(v.frequency(), "Hz")));
         notes(v.notes());
-        figure(plots.capacitanceCurve(CAPACITANCE_ID + "-curve", v), "Capacitance against bias. Circles: readings "
-                + "minus the stray capacitance; line: the card's capacitance at each measured bias, one colour per temperature.");
+        figure(plots.capacitanceCurve(CAPACITANCE_ID + "-curve", v), "Capacitance against bias. Markers: readings "
+                + "minus the stray capacitance; lines: the card's capacitance at each measured bias, one colour and marker "
+                + "shape per temperature.");
         if (v.points().stream().filter(r -> r.point().voltage() < 0).count() >= 2) {
             figure(plots.capacitanceLogLog(CAPACITANCE_ID + "-loglog", v), "The same capacitance against reverse bias |V| "
                     + "on log-log axes, where the depletion law CJO/(1 + |V|/VJ)^M straightens into a line of slope "
@@ -338,7 +340,7 @@ public final class HtmlReport {
 
     /** The temperature, with its plot colour and marker shape when the page plots it. */
     private String temperatureCell(double kelvin) {
-        return "<td class=\"text\">" + plots.plottedColour(kelvin)
+        return "<td class=\"text temp\">" + plots.plottedColour(kelvin)
                 .map(c -> "<svg class=\"swatch\" viewBox=\"0 0 12 12\" aria-hidden=\"true\"><path stroke=\"" + c + "\" d=\""
                         + plots.plottedShape(kelvin).orElseThrow().path(6, 6, 4) + "\"/></svg>").orElse("")
                 + Units.celsius(kelvin) + "</td>";

@@ -218,8 +218,9 @@ final class SvgPlot {
         sb.append("<text class=\"axis-label\" x=\"16\" y=\"").append(n(midY))
                 .append("\" text-anchor=\"middle\" transform=\"rotate(-90 16 ")
                 .append(n(midY)).append(")\">").append(Markup.escape(y.label())).append("</text>\n");
-        // data, clipped to the frame
-        sb.append("<g clip-path=\"url(#").append(Markup.escape(id)).append("-area)\">\n");
+        // reference lines and the card's lines, clipped to the frame
+        String clip = "<g clip-path=\"url(#" + Markup.escape(id) + "-area)\">";
+        sb.append(clip).append('\n');
         if (zeroLine && y.accepts(0) && y.low() <= 0 && y.high() >= 0) {
             sb.append(line(LEFT, py(0), right, py(0), "zero")).append('\n');
         }
@@ -228,9 +229,10 @@ final class SvgPlot {
                 sb.append(line(LEFT, py(l.y()), right, py(l.y()), "limit " + l.kind())).append('\n');
             }
         }
+        sb.append("</g>\n");
         for (Series s : series) {
             sb.append("<g class=\"series\" data-series=\"").append(Markup.escape(s.key())).append("\" stroke=\"")
-                    .append(s.colour()).append("\">\n");
+                    .append(s.colour()).append("\">\n").append(clip);
             // a point the axes cannot place (NaN, or not positive on a log axis) breaks the line in two
             StringBuilder points = new StringBuilder();
             for (double[] p : s.line()) {
@@ -244,15 +246,16 @@ final class SvgPlot {
             if (points.length() > 0) {
                 sb.append("<polyline points=\"").append(points).append("\"/>\n");
             }
+            sb.append("</g>\n");
+            // markers are not clipped: the axes always cover the measured points, and a marker on the frame stays whole
             for (Marker m : s.markers()) {
-                if (x.accepts(m.x()) && y.accepts(m.y())) {
+                if (x.accepts(m.x()) && y.accepts(m.y()) && inside(m)) {
                     sb.append("<path class=\"marker\" d=\"").append(s.shape().path(px(m.x()), py(m.y()), MARKER_RADIUS))
                             .append("\"><title>").append(Markup.escape(m.title())).append("</title></path>\n");
                 }
             }
             sb.append("</g>\n");
         }
-        sb.append("</g>\n");
         legend(sb, right + 16);
         return sb.append("</svg>").toString();
     }
@@ -289,6 +292,13 @@ final class SvgPlot {
             row += 18;
         }
         sb.append("</g>\n");
+    }
+
+    /** True when a marker lies within both axes' ranges (within rounding). */
+    private boolean inside(Marker m) {
+        double fx = x.fraction(m.x());
+        double fy = y.fraction(m.y());
+        return fx >= -1e-9 && fx <= 1 + 1e-9 && fy >= -1e-9 && fy <= 1 + 1e-9;
     }
 
     /** True when a level lies within the vertical axis, so it is drawn. */

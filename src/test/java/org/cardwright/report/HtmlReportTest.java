@@ -507,7 +507,7 @@ class HtmlReportTest {
     /** Table rows of {@code html} whose first cell ends with the temperature {@code celsius}. */
     private static List<String> rows(String html, String celsius) {
         List<String> out = new ArrayList<>();
-        Matcher m = Pattern.compile("<tr><td class=\"text\">(<svg class=\"swatch\".*?</svg>)?" + Pattern.quote(celsius) + "</td>.*?</tr>")
+        Matcher m = Pattern.compile("<tr><td class=\"text temp\">(<svg class=\"swatch\".*?</svg>)?" + Pattern.quote(celsius) + "</td>.*?</tr>")
                 .matcher(html);
         while (m.find()) {
             out.add(m.group());
