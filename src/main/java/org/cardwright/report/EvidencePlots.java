@@ -17,12 +17,12 @@ import org.cardwright.verify.Verification;
  * The plots of the evidence page: measured points against the card's simulation, and the residuals against the
  * limits, one colour and one marker shape per temperature (the same temperature looks the same on every plot of a
  * page). The colours are the colour-blind-safe set of Okabe and Ito, "Color Universal Design (CUD): how to make
- * figures and presentations that are friendly to colorblind people", J*FLY, 2008 [okabe-ito-2008]; the shapes keep
+ * figures and presentations that are friendly to colorblind people", J*FLY, 2008 [OkabeIto2008]; the shapes keep
  * the temperatures apart in greyscale too.
  */
 final class EvidencePlots {
     /**
-     * Okabe and Ito's colour-blind-safe set [okabe-ito-2008] without its yellow (too pale on white), ordered cold to
+     * Okabe and Ito's colour-blind-safe set [OkabeIto2008] without its yellow (too pale on white), ordered cold to
      * hot: blue, sky blue, bluish green, orange, vermillion, reddish purple, black. Spread over the temperatures of a
      * page so that the coldest is always blue and the hottest (of up to seven) always black.
      */
