@@ -25,8 +25,9 @@ import org.junit.jupiter.api.Test;
 
 /**
  * The evidence page in a real browser (Debian's chromium, headless), for every kind of page: forward I-V only; a
- * zener with forward, breakdown, C-V, recovery and leakage; forward with leakage. Each page is written by {@code verify
- * --html} from the invented demo data and the invented cards that generated it, then rendered at 1400 and 760 px.
+ * zener with forward, breakdown, C-V, recovery and leakage; forward with leakage (each written by {@code verify --html}
+ * from the invented demo data and the invented card that generated it); and the page {@code fit --html} writes for
+ * the card it fits to the forward data. Each is rendered at 1400 and 760 px.
  * The screenshots stay in {@code target/page-screens/} for a person to look at. A copy of each page with a small
  * probe script (the page itself has no script) records what the browser laid out, and the test asserts on it: no
  * horizontal scrolling, every plot as wide as its column, no plot text smaller than a reader reads comfortably, and
@@ -58,6 +59,7 @@ class PageInBrowserTest {
             + "var p=document.createElement('pre');p.id='probe';p.textContent=out.join(';');document.body.appendChild(p);"
             + "})();</script>";
 
+    /** A kind of page; {@code card} null for the page {@code fit --html} writes for the card it fits. */
     private record Kind(String name, String card, List<String> data, List<String> plots, List<String> sections) {
     }
 
@@ -83,12 +85,19 @@ class PageInBrowserTest {
                         List.of("forward", "breakdown", "capacitance", "recovery", "leakage")),
                 new Kind("leakage", demo + "generating-card.lib",
                         List.of("ks1-forward-25C.csv", "ks1-reverse-25C.csv"),
-                        List.of("forward-curve", "forward-residuals", "leakage-curve"), List.of("forward", "leakage")));
+                        List.of("forward-curve", "forward-residuals", "leakage-curve"), List.of("forward", "leakage")),
+                new Kind("fit", null,
+                        List.of("ks1-forward-minus40C.csv", "ks1-forward-25C.csv", "ks1-forward-85C.csv", "ks1-forward-125C.csv"),
+                        List.of("forward-curve", "forward-residuals"), List.of("forward")));
         List<String> problems = new ArrayList<>();
         for (Kind kind : kinds) {
             Path page = work.resolve(kind.name() + ".html");
-            List<String> args = new ArrayList<>(List.of("verify", project.resolve(kind.card()).toString()));
+            List<String> args = new ArrayList<>(kind.card() == null ? List.of("fit")
+                    : List.of("verify", project.resolve(kind.card()).toString()));
             kind.data().forEach(f -> args.add(project.resolve(demo + f).toString()));
+            if (kind.card() == null) {
+                args.addAll(List.of("--name", "KS1", "--dialect", "ngspice", "--out", work.resolve("fitted").toString()));
+            }
             args.addAll(List.of("--html", page.toString()));
             int code = run(args);
             assertTrue(code == 0 || code == 1, kind.name() + ": verify exits 0 or 1 (a verdict), got " + code);
@@ -147,8 +156,15 @@ class PageInBrowserTest {
             assertTrue(files.contains(digest), where + ": SHA-256 of " + f);
         }
         String command = between(dom, "<section id=\"command\">", "</section>", where);
-        assertTrue(command.contains("cardwright verify ") && command.contains(kind.card()) && command.contains("--html "),
+        assertTrue(command.contains(kind.card() == null ? "cardwright fit " : "cardwright verify ")
+                && command.contains(kind.card() == null ? "--name KS1" : kind.card()) && command.contains("--html "),
                 where + ": the command, " + command);
+        if (kind.card() == null) {
+            // a fit's page carries the standard errors of the fitted parameters
+            assertTrue(parameters.contains("<th>standard error</th>"), where + ": standard-error column");
+            assertTrue(Pattern.compile("<td class=\"text\">IS</td><td>[^<]+</td><td class=\"text\">A</td><td>\u00b1 ")
+                    .matcher(parameters).find(), where + ": IS with its standard error");
+        }
     }
 
     private static Map<String, Double> probe(String dom, String where) {
