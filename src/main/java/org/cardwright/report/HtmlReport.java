@@ -312,8 +312,7 @@ public final class HtmlReport {
         out.append("<figure>\n").append(f.svg()).append("\n<figcaption>Figure ").append(figure).append(". ")
                 .append(Markup.escape(caption));
         if (f.limitsOffScale()) {
-            out.append(" The scale follows the residuals, which lie well inside the limits: limits beyond it are named in "
-                    + "the key, not drawn.");
+            out.append(" The scale follows the residuals: a limit beyond it is named in the key, not drawn.");
         }
         if (f.cutOff() > 0 && cutReason != null) {
             out.append(' ').append(f.cutOff()).append(f.cutOff() == 1 ? " point is" : " points are")

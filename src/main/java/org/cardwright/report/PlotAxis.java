@@ -85,10 +85,10 @@ final class PlotAxis {
     }
 
     /**
-     * A logarithmic axis covering the positive values {@code min..max} in whole decades, its decades labelled with an
-     * SI prefix and {@code unit} ("100 nA", "1 mA"); with {@code unit} null, plain numbers ("0.1", "10"). Minor ticks
-     * at 2..9 times each decade; on an axis of at most {@link #LABELLED_MINOR_DECADES} decades the 2 and 5 ticks are
-     * labelled too.
+     * A logarithmic axis covering the positive values {@code min..max}, from and to 1, 2 or 5 times a power of ten,
+     * its decades labelled with an SI prefix and {@code unit} ("100 nA", "1 mA"); with {@code unit} null, plain numbers
+     * ("0.1", "10"). Minor ticks at 2..9 times each decade; on an axis of at most {@link #LABELLED_MINOR_DECADES}
+     * decades the 2 and 5 ticks are labelled too.
      */
     static PlotAxis log(double min, double max, String label, String unit) {
         double lo = Math.min(min, max);
@@ -96,25 +96,42 @@ final class PlotAxis {
         if (!(lo > 0) || !Double.isFinite(hi)) {
             throw new IllegalArgumentException("a log axis needs positive finite limits, got " + min + " and " + max);
         }
-        int first = (int) Math.floor(Math.log10(lo) + 1e-9);
-        int last = (int) Math.ceil(Math.log10(hi) - 1e-9);
-        if (last <= first) {
-            last = first + 1;
+        // the frame sits on 1, 2 or 5 times a power of ten just outside the data, so no decade is left empty
+        double bottom = snapDown(lo);
+        double top = snapUp(hi);
+        if (!(top > bottom)) {
+            top = snapUp(bottom * 1.5);
         }
-        int every = (last - first + MAX_DECADE_LABELS - 1) / MAX_DECADE_LABELS;
-        boolean labelMinor = last - first <= LABELLED_MINOR_DECADES;
+        int first = (int) Math.floor(Math.log10(bottom) + 1e-9);
+        int last = (int) Math.ceil(Math.log10(top) - 1e-9);
+        int every = (Math.max(1, last - first) + MAX_DECADE_LABELS - 1) / MAX_DECADE_LABELS;
+        boolean labelMinor = Math.log10(top / bottom) <= LABELLED_MINOR_DECADES + 1e-9;
         List<Tick> ticks = new ArrayList<>();
         for (int d = first; d <= last; d++) {
-            double decade = Math.pow(10, d);
-            boolean labelled = Math.floorMod(d - first, every) == 0;
-            ticks.add(new Tick(decade, labelled ? prefixed(1, d, unit) : "", true));
-            if (d < last) {
-                for (int m = 2; m <= 9; m++) {
-                    ticks.add(new Tick(m * decade, labelMinor && (m == 2 || m == 5) ? prefixed(m, d, unit) : "", false));
+            for (int m = 1; m <= 9; m++) {
+                double v = m * Math.pow(10, d);
+                if (v < bottom * (1 - 1e-9) || v > top * (1 + 1e-9)) {
+                    continue;
                 }
+                boolean labelled = m == 1 ? Math.floorMod(d - first, every) == 0 : labelMinor && (m == 2 || m == 5);
+                ticks.add(new Tick(v, labelled ? prefixed(m, d, unit) : "", m == 1));
             }
         }
-        return new PlotAxis(Scale.LOG, Math.pow(10, first), Math.pow(10, last), label, ticks);
+        return new PlotAxis(Scale.LOG, bottom, top, label, ticks);
+    }
+
+    /** The largest 1, 2 or 5 times a power of ten at or below {@code x} (positive). */
+    private static double snapDown(double x) {
+        double decade = Math.pow(10, Math.floor(Math.log10(x) + 1e-12));
+        double m = x / decade;
+        return (m >= 5 - 1e-9 ? 5 : m >= 2 - 1e-9 ? 2 : 1) * decade;
+    }
+
+    /** The smallest 1, 2 or 5 times a power of ten at or above {@code x} (positive). */
+    private static double snapUp(double x) {
+        double decade = Math.pow(10, Math.floor(Math.log10(x) + 1e-12));
+        double m = x / decade;
+        return (m <= 1 + 1e-9 ? 1 : m <= 2 + 1e-9 ? 2 : m <= 5 + 1e-9 ? 5 : 10) * decade;
     }
 
     /**
