@@ -62,6 +62,10 @@ final class FitCommand implements Callable<Integer> {
     @Option(names = "--json", paramLabel = "FILE", description = "Also write the result as JSON.")
     Path json;
 
+    @Option(names = "--html", paramLabel = "FILE",
+            description = "Also write the evidence page of the first card: its parameters with standard errors, and the card re-simulated at every point by the built-in engine, as verify --html writes it.")
+    Path html;
+
     @Option(names = "--digits", paramLabel = "N", defaultValue = "7", description = "Significant digits on the card (default: ${DEFAULT-VALUE}).")
     int digits;
 
@@ -103,10 +107,50 @@ final class FitCommand implements Callable<Integer> {
         };
     }
 
+    /**
+     * The evidence page of the first card written: verified against the same data by the built-in engine with the
+     * default limits, with the parameters' standard errors from its fit (the refit's, for a dialect that was refitted).
+     */
+    private void writePage(FitOutcome outcome) throws Exception {
+        FitOutcome.WrittenCard card = outcome.cards().get(0);
+        org.cardwright.fit.FitResult fit = card.refit().orElse(outcome.fit());
+        java.util.Map<org.cardwright.model.Param, Double> errors = new java.util.EnumMap<>(org.cardwright.model.Param.class);
+        for (org.cardwright.fit.FittedParameter p : fit.fitted()) {
+            if (p.origin() == org.cardwright.fit.FittedParameter.Origin.FITTED && Double.isFinite(p.standardError())) {
+                errors.put(p.param(), p.standardError());
+            }
+        }
+        org.cardwright.workflow.VerifyRequest request = new org.cardwright.workflow.VerifyRequest(card.file(), data,
+                "builtin", Optional.of(name), card.dialect(), reading.temperatureKelvin(),
+                org.cardwright.verify.Tolerance.DEFAULT, Optional.empty(), force, reading.capacitance(),
+                reading.bench(!noMeterCorrection));
+        org.cardwright.verify.JunctionVerification v = new org.cardwright.workflow.VerifyWorkflow().runAll(request, r -> "");
+        var parsed = new org.cardwright.card.CardReader().parse(card.text(),
+                org.cardwright.workflow.Inputs.displayName(card.file()), card.dialect(), Optional.of(name));
+        org.cardwright.report.PageFacts facts = new org.cardwright.report.PageFacts(
+                org.cardwright.report.PageFacts.command("cardwright", spec.commandLine().getParseResult().originalArgs()),
+                org.cardwright.report.PageFacts.hash(data),
+                org.cardwright.report.PageFacts.parametersOf(parsed.parameters(), errors));
+        org.cardwright.workflow.OutputFiles.writeAtomically(html, org.cardwright.report.HtmlReport.render(v,
+                org.cardwright.workflow.Inputs.displayName(card.file()), facts));
+    }
+
     @Override
     public Integer call() throws Exception {
         FitRequest request = Main.option(this::request);
+        if (html != null) {
+            org.cardwright.workflow.OutputPlan plan = new org.cardwright.workflow.OutputPlan().inputs("data file", data)
+                    .output("--html", html);
+            if (json != null) {
+                plan.output("--json", json);
+            }
+            plan.check();
+            org.cardwright.workflow.OutputFiles.checkWritable(List.of(html), force);
+        }
         FitOutcome outcome = new FitWorkflow().run(request, o -> FitJson.write(name, o));
+        if (html != null) {
+            writePage(outcome);
+        }
         spec.commandLine().getOut().print(FitText.render(name, outcome));
         spec.commandLine().getOut().flush();
         return ExitCodes.OK;

@@ -105,6 +105,19 @@ final class VerifyCommand implements Callable<Integer> {
         };
     }
 
+    /** The command as given, the data files' hashes and the card's parameters, for the evidence page. */
+    private org.cardwright.report.PageFacts pageFacts() throws Exception {
+        String source = Inputs.displayName(card);
+        String text = org.cardwright.card.CardReader.readText(card, source);
+        Dialect d = dialectOf(card, dialect);
+        var parsed = org.cardwright.card.ShuntedCard.isSubcircuit(text, source)
+                ? org.cardwright.card.ShuntedCard.read(text, source, d).card()
+                : new org.cardwright.card.CardReader().parse(text, source, d, Optional.ofNullable(model));
+        return new org.cardwright.report.PageFacts(
+                org.cardwright.report.PageFacts.command("cardwright", spec.commandLine().getParseResult().originalArgs()),
+                org.cardwright.report.PageFacts.hash(data), org.cardwright.report.PageFacts.parametersOf(parsed.parameters()));
+    }
+
     @Override
     public Integer call() throws Exception {
         simulatorTimeLimit.apply();
@@ -127,7 +140,7 @@ final class VerifyCommand implements Callable<Integer> {
                 reading.bench(true), verdictBasis(verdict)));
         JunctionVerification v = new VerifyWorkflow().runAll(request, r -> VerificationJson.write(r, Inputs.displayName(card)));
         if (html != null) {
-            OutputFiles.writeAtomically(html, HtmlReport.render(v, Inputs.displayName(card)));
+            OutputFiles.writeAtomically(html, HtmlReport.render(v, Inputs.displayName(card), pageFacts()));
         }
         spec.commandLine().getOut().print(VerificationText.render(v));
         spec.commandLine().getOut().flush();

@@ -27,6 +27,10 @@ final class PlotAxis {
     private static final double LINEAR_TICKS = 6;
     /** Most decade labels a log axis shows before it labels only every second (third, ...) decade [1]. */
     private static final int MAX_DECADE_LABELS = 9;
+    /** A log axis of at most this many decades also labels its 2 and 5 ticks, so a short axis has enough labels [1]. */
+    private static final int LABELLED_MINOR_DECADES = 2;
+    /** SI prefixes from femto to giga, as {@link Units} writes them. */
+    private static final String[] PREFIX = {"f", "p", "n", "u", "m", "", "k", "M", "G"};
     /**
      * Share of the data span added on each side of a linear axis before snapping, so no marker is cut by the frame:
      * 1 % of a plot's width is about 5 px, more than a marker's radius [1].
@@ -80,31 +84,74 @@ final class PlotAxis {
         return snapped(-e, e, label);
     }
 
-    /** A logarithmic axis covering the positive values {@code min..max} in whole decades. */
-    static PlotAxis log(double min, double max, String label) {
+    /**
+     * A logarithmic axis covering the positive values {@code min..max}, from and to 1, 2 or 5 times a power of ten,
+     * its decades labelled with an SI prefix and {@code unit} ("100 nA", "1 mA"); with {@code unit} null, plain numbers
+     * ("0.1", "10"). Minor ticks at 2..9 times each decade; on an axis of at most {@link #LABELLED_MINOR_DECADES}
+     * decades the 2 and 5 ticks are labelled too.
+     */
+    static PlotAxis log(double min, double max, String label, String unit) {
         double lo = Math.min(min, max);
         double hi = Math.max(min, max);
         if (!(lo > 0) || !Double.isFinite(hi)) {
             throw new IllegalArgumentException("a log axis needs positive finite limits, got " + min + " and " + max);
         }
-        int first = (int) Math.floor(Math.log10(lo) + 1e-9);
-        int last = (int) Math.ceil(Math.log10(hi) - 1e-9);
-        if (last <= first) {
-            last = first + 1;
+        // the frame sits on 1, 2 or 5 times a power of ten just outside the data, so no decade is left empty
+        double bottom = snapDown(lo);
+        double top = snapUp(hi);
+        if (!(top > bottom)) {
+            top = snapUp(bottom * 1.5);
         }
-        int every = (last - first + MAX_DECADE_LABELS - 1) / MAX_DECADE_LABELS;
+        int first = (int) Math.floor(Math.log10(bottom) + 1e-9);
+        int last = (int) Math.ceil(Math.log10(top) - 1e-9);
+        int every = (Math.max(1, last - first) + MAX_DECADE_LABELS - 1) / MAX_DECADE_LABELS;
+        boolean labelMinor = Math.log10(top / bottom) <= LABELLED_MINOR_DECADES + 1e-9;
         List<Tick> ticks = new ArrayList<>();
         for (int d = first; d <= last; d++) {
-            double decade = Math.pow(10, d);
-            boolean labelled = Math.floorMod(d - first, every) == 0;
-            ticks.add(new Tick(decade, labelled ? decadeLabel(d) : "", true));
-            if (d < last) {
-                for (int m = 2; m <= 9; m++) {
-                    ticks.add(new Tick(m * decade, "", false));
+            for (int m = 1; m <= 9; m++) {
+                double v = m * Math.pow(10, d);
+                if (v < bottom * (1 - 1e-9) || v > top * (1 + 1e-9)) {
+                    continue;
                 }
+                boolean labelled = m == 1 ? Math.floorMod(d - first, every) == 0 : labelMinor && (m == 2 || m == 5);
+                ticks.add(new Tick(v, labelled ? prefixed(m, d, unit) : "", m == 1));
             }
         }
-        return new PlotAxis(Scale.LOG, Math.pow(10, first), Math.pow(10, last), label, ticks);
+        return new PlotAxis(Scale.LOG, bottom, top, label, ticks);
+    }
+
+    /** The largest 1, 2 or 5 times a power of ten at or below {@code x} (positive). */
+    private static double snapDown(double x) {
+        double decade = Math.pow(10, Math.floor(Math.log10(x) + 1e-12));
+        double m = x / decade;
+        return (m >= 5 - 1e-9 ? 5 : m >= 2 - 1e-9 ? 2 : 1) * decade;
+    }
+
+    /** The smallest 1, 2 or 5 times a power of ten at or above {@code x} (positive). */
+    private static double snapUp(double x) {
+        double decade = Math.pow(10, Math.floor(Math.log10(x) + 1e-12));
+        double m = x / decade;
+        return (m <= 1 + 1e-9 ? 1 : m <= 2 + 1e-9 ? 2 : m <= 5 + 1e-9 ? 5 : 10) * decade;
+    }
+
+    /**
+     * {@code mantissa} times 10^exponent with an SI prefix and {@code unit}: "1 fA", "20 pF", "500 mV", "1 kV"; the
+     * same prefixes as the page's tables ({@link Units#engineering}, "u" for micro). With {@code unit} null a plain
+     * number: "0.02", "1", "500", and 1e-7 style beyond six decades either side.
+     */
+    static String prefixed(int mantissa, int exponent, String unit) {
+        if (unit == null) {
+            if (exponent < -6 || exponent > 6) {
+                return mantissa + "e" + exponent;
+            }
+            return new java.math.BigDecimal(mantissa).scaleByPowerOfTen(exponent).stripTrailingZeros().toPlainString();
+        }
+        int group = Math.floorDiv(exponent, 3);
+        if (group < -5 || group > 3) {
+            return mantissa + "e" + exponent + " " + unit;
+        }
+        long scaled = Math.round(mantissa * Math.pow(10, exponent - 3 * group));
+        return scaled + " " + PREFIX[group + 5] + unit;
     }
 
     private static PlotAxis snapped(double lo, double hi, String label) {
@@ -132,20 +179,6 @@ final class PlotAxis {
     private static String number(double value, int decimals) {
         String s = String.format(Locale.ROOT, "%." + decimals + "f", value);
         return s.matches("-0(\\.0*)?") ? s.substring(1) : s;
-    }
-
-    /**
-     * 10^exponent as a SPICE number with a scale suffix: 1f, 10f, 100f, 1p, ..., 1m, 10m, 100m, 1, 10, 100, 1k,
-     * ..., 1meg, ..., 1g, ..., 1t; outside f..t, 1e-18 style.
-     */
-    static String decadeLabel(int exponent) {
-        String[] suffix = {"f", "p", "n", "u", "m", "", "k", "meg", "g", "t"};
-        int group = Math.floorDiv(exponent, 3);
-        if (group < -5 || group > 4) {
-            return "1e" + exponent;
-        }
-        int mantissa = (int) Math.round(Math.pow(10, exponent - 3 * group));
-        return mantissa + suffix[group + 5];
     }
 
     /** Position of {@code value} along the axis, 0 at the low end and 1 at the high end [1]. */

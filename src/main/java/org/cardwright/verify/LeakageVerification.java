@@ -20,8 +20,10 @@ import org.cardwright.model.SweepTemperatures;
  *
  * @param perTemperature verdicts per temperature
  * @param notes          what the user must know
+ * @param points         every point with the card's current at its voltage, in the order given (for plots); may be
+ *                       empty
  */
-public record LeakageVerification(List<Verdict> perTemperature, List<String> notes) {
+public record LeakageVerification(List<Verdict> perTemperature, List<String> notes, List<Simulated> points) {
     /** RMS limit [decades]. */
     public static final double RMS_DECADES = 0.3;
     /** Single-point limit [decades]. */
@@ -30,6 +32,21 @@ public record LeakageVerification(List<Verdict> perTemperature, List<String> not
     public LeakageVerification {
         perTemperature = List.copyOf(perTemperature);
         notes = List.copyOf(notes);
+        points = List.copyOf(points);
+    }
+
+    /** Verdicts and notes without the points. */
+    public LeakageVerification(List<Verdict> perTemperature, List<String> notes) {
+        this(perTemperature, notes, List.of());
+    }
+
+    /**
+     * One measured point with the card's current at its voltage.
+     *
+     * @param point     the measured point
+     * @param simulated the card's current at the measured voltage and temperature [A]
+     */
+    public record Simulated(MeasuredPoint point, double simulated) {
     }
 
     /**
@@ -65,6 +82,10 @@ public record LeakageVerification(List<Verdict> perTemperature, List<String> not
             where.computeIfAbsent(sweepOf[i], k -> new ArrayList<>())
                     .add(points.get(i).source() + ":" + points.get(i).line());
         }
+        List<Simulated> simulated = new ArrayList<>();
+        for (int i = 0; i < points.size(); i++) {
+            simulated.add(new Simulated(points.get(i), sim.get(i).current()));
+        }
         List<Verdict> out = new ArrayList<>();
         for (Map.Entry<Double, List<double[]>> e : byT.entrySet()) {
             double sum = 0;
@@ -86,7 +107,7 @@ public record LeakageVerification(List<Verdict> perTemperature, List<String> not
         if (out.stream().anyMatch(v -> !v.pass())) {
             notes.add("measured leakage the card does not reproduce is usually surface or shunt leakage, which a level-1 card cannot carry");
         }
-        return new LeakageVerification(out, notes);
+        return new LeakageVerification(out, notes, simulated);
     }
 
     /** True when every temperature passes. */

@@ -15,8 +15,9 @@ import org.cardwright.model.SweepTemperatures;
  * trace is seldom better; common practice, no source).
  *
  * @param perTemperature verdicts per temperature
+ * @param records        every record with the card's recovery time, in the order given (for plots); may be empty
  */
-public record RecoveryVerification(List<Verdict> perTemperature) {
+public record RecoveryVerification(List<Verdict> perTemperature, List<Modelled> records) {
     /** RMS limit relative to the measured recovery time [1]. */
     public static final double RMS_FRACTION = 0.05;
     /** Single-record limit relative to the measured recovery time [1]. */
@@ -24,6 +25,21 @@ public record RecoveryVerification(List<Verdict> perTemperature) {
 
     public RecoveryVerification {
         perTemperature = List.copyOf(perTemperature);
+        records = List.copyOf(records);
+    }
+
+    /** Verdicts without the records. */
+    public RecoveryVerification(List<Verdict> perTemperature) {
+        this(perTemperature, List.of());
+    }
+
+    /**
+     * One record with the card's recovery time for it.
+     *
+     * @param record   the measured record
+     * @param modelled TT ln(1 + IF/|IR|) with the card's TT [s]
+     */
+    public record Modelled(Record record, double modelled) {
     }
 
     /**
@@ -58,6 +74,8 @@ public record RecoveryVerification(List<Verdict> perTemperature) {
         Map<Double, List<Record>> byT = SweepTemperatures.group(records, Record::temperature,
                 SweepTemperatures.DEFAULT_GAP);
         List<Verdict> out = new ArrayList<>();
+        List<Modelled> modelled = new ArrayList<>();
+        records.forEach(r -> modelled.add(new Modelled(r, tt * Math.log1p(r.forwardCurrent() / -r.reverseCurrent()))));
         for (Map.Entry<Double, List<Record>> e : byT.entrySet()) {
             double sum = 0;
             double sumRel = 0;
@@ -79,7 +97,7 @@ public record RecoveryVerification(List<Verdict> perTemperature) {
             out.add(new Verdict(e.getKey(), n, Math.sqrt(sum / n) * 1e9, max * 1e9, worst,
                     maxOk && Math.sqrt(sumRel / n) <= RMS_FRACTION));
         }
-        return new RecoveryVerification(out);
+        return new RecoveryVerification(out, modelled);
     }
 
     /** True when every temperature passes. */

@@ -89,8 +89,9 @@ class HtmlReportTest {
     void everyPlotIsWellFormedSvgAndTheWholePageParsesAsXml() throws Exception {
         String page = HtmlReport.render(verification(), "cards/HR1.ngspice.lib");
         List<Element> svgs = svgs(page);
-        // forward, breakdown and C-V: a curve and a residual plot each; recovery and leakage have tables only
-        assertEquals(6, svgs.size(), "plots on the page");
+        // forward and breakdown: a curve and a residual plot each; C-V: linear, log-log and residuals; recovery and
+        // leakage: a curve each
+        assertEquals(9, svgs.size(), "plots on the page");
         // the page as a whole is also well-formed (XHTML-compatible syntax), so any XML tool can read it
         parse(page);
     }
@@ -104,7 +105,11 @@ class HtmlReportTest {
                 "breakdown-curve", List.of(BREAKDOWN_25.length),
                 "breakdown-residuals", List.of(BREAKDOWN_25.length),
                 "capacitance-curve", List.of(CV_25.length, CV_85.length),
-                "capacitance-residuals", List.of(CV_25.length, CV_85.length));
+                "capacitance-residuals", List.of(CV_25.length, CV_85.length),
+                // log-log: only the points at reverse bias (three at 25 degC, two at 85 degC)
+                "capacitance-loglog", List.of(3, 2),
+                "recovery-curve", List.of(1),
+                "leakage-curve", List.of(1));
         for (Element svg : svgs) {
             String id = svg.getAttribute("id");
             List<Element> series = byClass(svg, "g", "series");
@@ -114,7 +119,7 @@ class HtmlReportTest {
                 Element g = series.get(i);
                 int n = counts.get(i);
                 assertEquals(1, g.getElementsByTagName("polyline").getLength(), id + " " + g.getAttribute("data-series"));
-                assertEquals(n, g.getElementsByTagName("circle").getLength(), id + " " + g.getAttribute("data-series"));
+                assertEquals(n, markers(g).size(), id + " " + g.getAttribute("data-series"));
                 String points = ((Element) g.getElementsByTagName("polyline").item(0)).getAttribute("points");
                 assertEquals(n, points.trim().split("\\s+").length, id + ": line vertices");
             }
@@ -122,6 +127,9 @@ class HtmlReportTest {
             List<String> keys = series.stream().map(g -> g.getAttribute("data-series")).toList();
             assertEquals(counts.size() == 2 ? List.of("25.0", "85.0") : List.of("25.0"), keys, id);
             assertEquals(series.size(), series.stream().map(g -> g.getAttribute("stroke")).distinct().count(), id);
+            // and each in its own marker shape, so the temperatures stay apart in greyscale
+            assertEquals(series.size(), series.stream().map(g -> markerShape(markers(g).get(0))).distinct().count(),
+                    id + ": one marker shape per temperature");
         }
     }
 
@@ -129,14 +137,15 @@ class HtmlReportTest {
     void markersFollowTheData() throws Exception {
         Element curve = svg(HtmlReport.render(verification(), "c.lib"), "forward-curve");
         // 25 degC: current rises with each point, so on a log axis drawn upwards every marker sits higher (smaller y)
-        List<Element> circles = elements(byClass(curve, "g", "series").get(0), "circle");
+        // the coldest temperature's markers are circles, whose path starts at the left edge, level with the centre
+        List<Element> circles = markers(byClass(curve, "g", "series").get(0));
         for (int i = 1; i < circles.size(); i++) {
-            assertTrue(y(circles.get(i), "cy") < y(circles.get(i - 1), "cy"), "marker " + i + " above marker " + (i - 1));
+            assertTrue(markerY(circles.get(i)) < markerY(circles.get(i - 1)), "marker " + i + " above marker " + (i - 1));
         }
         // one decade a point: equal vertical steps on a log axis (within the 0.1 px rounding, twice)
-        double step = y(circles.get(0), "cy") - y(circles.get(1), "cy");
+        double step = markerY(circles.get(0)) - markerY(circles.get(1));
         for (int i = 2; i < circles.size(); i++) {
-            assertEquals(step, y(circles.get(i - 1), "cy") - y(circles.get(i), "cy"), 0.2, "decade step " + i);
+            assertEquals(step, markerY(circles.get(i - 1)) - markerY(circles.get(i)), 0.2, "decade step " + i);
         }
         // each marker names the file and line it came from
         assertTrue(circles.get(0).getTextContent().startsWith("fwd-25.csv:1,"), circles.get(0).getTextContent());
@@ -147,13 +156,30 @@ class HtmlReportTest {
         String page = HtmlReport.render(verification(), "c.lib");
         Verification forward = verification().forward().orElseThrow();
         assertLimits(svg(page, "forward-residuals"), forward.tolerance().rms(), forward.tolerance().max());
-        Verification breakdown = verification().breakdown().orElseThrow();
-        assertLimits(svg(page, "breakdown-residuals"), breakdown.tolerance().rms(), breakdown.tolerance().max());
-        assertLimits(svg(page, "capacitance-residuals"), CapacitanceTolerance.DEFAULT.rmsPercent(),
-                CapacitanceTolerance.DEFAULT.maxPercent());
         // the legend names the limits in the plot's unit
         assertTrue(svg(page, "forward-residuals").getTextContent().contains("RMS limit \u00b12.00 mV"));
         assertTrue(svg(page, "capacitance-residuals").getTextContent().contains("point limit \u00b13.00 %"));
+    }
+
+    @Test
+    void residualAxesScaleToTheResidualsNotToTheLimits() throws Exception {
+        String page = HtmlReport.render(verification(), "c.lib");
+        // breakdown residuals of 5, 3 and 2 mV against limits of 30 and 60 mV; C-V residuals of 0.4 % against 1 % / 3 %
+        for (String id : List.of("breakdown-residuals", "capacitance-residuals")) {
+            Element svg = svg(page, id);
+            double zero = y(byClass(svg, "line", "zero").get(0), "y1");
+            List<Element> ticks = elements(byClass(svg, "g", "ticks").get(0), "text");
+            double top = ticks.stream().filter(t -> Double.parseDouble(t.getAttribute("y")) < zero)
+                    .mapToDouble(t -> Double.parseDouble(t.getTextContent())).max().orElseThrow();
+            double largest = id.startsWith("breakdown") ? 5 : 100 * CV_OFFSET;
+            double rmsLimit = id.startsWith("breakdown") ? 30 : CapacitanceTolerance.DEFAULT.rmsPercent();
+            assertTrue(top >= largest * 0.99 && top < rmsLimit, id + ": top tick " + top + " between the largest residual "
+                    + largest + " and the RMS limit " + rmsLimit);
+            assertEquals(0, byClass(svg, "line", "limit rms").stream().filter(l -> !inLegend(l)).count(),
+                    id + ": a limit beyond the scale is not drawn");
+            assertTrue(svg.getTextContent().contains("above this scale"), id + ": the key says where the limit is");
+        }
+        assertTrue(page.contains("a limit beyond it is named in the key"), "the caption says so");
     }
 
     @Test
@@ -169,30 +195,44 @@ class HtmlReportTest {
                 Optional.empty(), Optional.empty(), List.of()), "c.lib");
         Element curve = svg(page, "breakdown-curve");
         Element g = byClass(curve, "g", "series").get(0);
-        assertEquals(BREAKDOWN_25.length, g.getElementsByTagName("circle").getLength(), "measured points all drawn");
+        assertEquals(BREAKDOWN_25.length, markers(g).size(), "measured points all drawn");
         assertEquals(0, g.getElementsByTagName("polyline").getLength(), "no line through off-scale card values");
         Element residuals = svg(page, "breakdown-residuals");
-        assertEquals(0, byClass(residuals, "g", "series").get(0).getElementsByTagName("circle").getLength());
+        assertEquals(0, markers(byClass(residuals, "g", "series").get(0)).size());
         assertEquals(2, page.split(Pattern.quote(BREAKDOWN_25.length + " of the card's values are off the scale"), -1).length - 1,
                 "both captions count the values left out");
         assertTrue(page.contains("class=\"verdict fail\""));
     }
 
     @Test
-    void logAxesTickAtDecadesWithSpiceSuffixes() throws Exception {
-        // SPICE scale suffixes f p n u m k meg g t (fact of the trade: SPICE reads M as milli, so mega is meg)
-        assertEquals("1n", PlotAxis.decadeLabel(-9));
-        assertEquals("10n", PlotAxis.decadeLabel(-8));
-        assertEquals("100u", PlotAxis.decadeLabel(-4));
-        assertEquals("1", PlotAxis.decadeLabel(0));
-        assertEquals("10k", PlotAxis.decadeLabel(4));
-        assertEquals("1meg", PlotAxis.decadeLabel(6));
-        assertEquals("1f", PlotAxis.decadeLabel(-15));
+    void logAxesTickAtDecadesWithUnitPrefixes() throws Exception {
+        // SI prefixes with the unit, as a reader of a plot expects (SI brochure), not SPICE suffixes; u for micro as in
+        // the page's tables
+        assertEquals("1 nA", PlotAxis.prefixed(1, -9, "A"));
+        assertEquals("10 nA", PlotAxis.prefixed(1, -8, "A"));
+        assertEquals("100 uA", PlotAxis.prefixed(1, -4, "A"));
+        assertEquals("1 V", PlotAxis.prefixed(1, 0, "V"));
+        assertEquals("20 pF", PlotAxis.prefixed(2, -11, "F"));
+        assertEquals("10 kV", PlotAxis.prefixed(1, 4, "V"));
+        assertEquals("1 fA", PlotAxis.prefixed(1, -15, "A"));
+        assertEquals("0.5", PlotAxis.prefixed(5, -1, null));
+        assertEquals("100", PlotAxis.prefixed(1, 2, null));
+        // a short log axis labels its 2 and 5 ticks too; minor ticks at 2..9 times each decade
+        PlotAxis shortAxis = PlotAxis.log(12e-12, 80e-12, "C", "F");
+        assertEquals(List.of("10 pF", "20 pF", "50 pF", "100 pF"), shortAxis.ticks().stream().map(PlotAxis.Tick::label)
+                .filter(l -> !l.isEmpty()).toList());
+        assertEquals(8, shortAxis.ticks().stream().filter(t -> !t.major()).count(), "minor ticks 20..90 pF");
+        // the frame sits on 1-2-5 values just outside the data, so a narrow range does not sit in an empty decade
+        PlotAxis tight = PlotAxis.log(70e-12, 160e-12, "C", "F");
+        assertEquals(50e-12, tight.low(), 1e-24);
+        assertEquals(200e-12, tight.high(), 1e-24);
+        assertEquals(List.of("50 pF", "100 pF", "200 pF"), tight.ticks().stream().map(PlotAxis.Tick::label)
+                .filter(l -> !l.isEmpty()).toList());
         Element residuals = svg(HtmlReport.render(verification(), "c.lib"), "forward-residuals");
         List<String> labels = elements(byClass(residuals, "g", "ticks").get(0), "text").stream()
                 .map(Element::getTextContent).toList();
         // forward currents 100 nA .. 100 mA: decades 100n .. 100m along x, linear mV ticks up the side
-        for (String decade : List.of("100n", "1u", "10u", "100u", "1m", "10m", "100m")) {
+        for (String decade : List.of("100 nA", "1 uA", "10 uA", "100 uA", "1 mA", "10 mA", "100 mA")) {
             assertTrue(labels.contains(decade), decade + " in " + labels);
         }
         assertTrue(labels.contains("0"), "zero residual tick in " + labels);
@@ -284,6 +324,17 @@ class HtmlReportTest {
         assertTrue(written.startsWith("<!DOCTYPE html>"), "an HTML page");
         assertTrue(written.contains("<h1>Card HR1</h1>") && written.contains("class=\"verdict pass\""), "header");
         assertEquals(2, svgs(written).size(), "forward curve and residuals");
+        // the page states what it was made from: the command as run, the data file's SHA-256 (FIPS 180-4, here from
+        // the JDK's own digest over the file's bytes) and the card's parameters
+        String digest = java.util.HexFormat.of().formatHex(java.security.MessageDigest.getInstance("SHA-256")
+                .digest(Files.readAllBytes(data)));
+        assertTrue(between(written, "<section id=\"data-files\">", "</section>").contains(digest), "data file hash");
+        assertTrue(written.contains("<pre class=\"command\">cardwright verify " + card + " " + data + " --html " + html
+                + "</pre>"), "the exact command");
+        String parameters = between(written, "<section id=\"parameters\">", "</section>");
+        for (String p : List.of(">IS<", ">2.00000e-15<", ">N<", ">1.05000<", ">RS<", ">EG<", ">XTI<")) {
+            assertTrue(parameters.contains(p), p + " in " + parameters);
+        }
 
         Run again = run("verify", card.toString(), data.toString(), "--html", html.toString());
         assertEquals(6, again.code, "exit code 6 (output refused): " + again.err);
@@ -293,7 +344,8 @@ class HtmlReportTest {
         Files.writeString(html, "stale", StandardCharsets.UTF_8);
         Run forced = run("verify", card.toString(), data.toString(), "--html", html.toString(), "--force");
         assertEquals(0, forced.code, forced.err);
-        assertEquals(written, Files.readString(html, StandardCharsets.UTF_8), "replaced, and byte-identical to the first");
+        assertEquals(written.replace(" --html " + html + "</pre>", " --html " + html + " --force</pre>"),
+                Files.readString(html, StandardCharsets.UTF_8), "replaced, and byte-identical to the first but for --force");
 
         Run same = run("verify", card.toString(), data.toString(), "--html", html.toString(), "--json", html.toString(),
                 "--force");
@@ -386,6 +438,23 @@ class HtmlReportTest {
         }
     }
 
+    /** The marker paths of a series group. */
+    private static List<Element> markers(Element g) {
+        return byClass(g, "path", "marker");
+    }
+
+    /** The vertical position of a circle marker: its path starts "M x,cy". */
+    private static double markerY(Element marker) {
+        Matcher m = Pattern.compile("^M[-0-9.]+,([-0-9.]+)").matcher(marker.getAttribute("d"));
+        assertTrue(m.find(), marker.getAttribute("d"));
+        return Double.parseDouble(m.group(1));
+    }
+
+    /** A marker's shape as the sequence of its path commands ("MaaZ" for a circle, "MLLLZ" for a square, ...). */
+    private static String markerShape(Element marker) {
+        return marker.getAttribute("d").replaceAll("[^A-Za-z]", "");
+    }
+
     private static boolean inLegend(Element e) {
         for (org.w3c.dom.Node n = e.getParentNode(); n instanceof Element p; n = p.getParentNode()) {
             if (p.getAttribute("class").equals("legend")) {
@@ -399,10 +468,10 @@ class HtmlReportTest {
         return Double.parseDouble(e.getAttribute(attribute));
     }
 
-    /** Every {@code <svg>...</svg>} fragment of the page, each parsed on its own. */
+    /** Every plot's {@code <svg>...</svg>} fragment of the page (not the table's key swatches), each parsed on its own. */
     private static List<Element> svgs(String page) throws Exception {
         List<Element> out = new ArrayList<>();
-        Matcher m = Pattern.compile("<svg\\b.*?</svg>", Pattern.DOTALL).matcher(page);
+        Matcher m = Pattern.compile("<svg\\b[^>]*class=\"plot .*?</svg>", Pattern.DOTALL).matcher(page);
         while (m.find()) {
             out.add(parse(m.group()).getDocumentElement());
         }
@@ -444,7 +513,7 @@ class HtmlReportTest {
     /** Table rows of {@code html} whose first cell ends with the temperature {@code celsius}. */
     private static List<String> rows(String html, String celsius) {
         List<String> out = new ArrayList<>();
-        Matcher m = Pattern.compile("<tr><td class=\"text\">(<span[^>]*></span>)?" + Pattern.quote(celsius) + "</td>.*?</tr>")
+        Matcher m = Pattern.compile("<tr><td class=\"text temp\">(<svg class=\"swatch\".*?</svg>)?" + Pattern.quote(celsius) + "</td>.*?</tr>")
                 .matcher(html);
         while (m.find()) {
             out.add(m.group());
