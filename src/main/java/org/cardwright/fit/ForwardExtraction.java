@@ -203,7 +203,7 @@ public final class ForwardExtraction {
 
         // ---- stage 2: global fit of the base model ------------------------------------------------------
         List<ResidualBlock> blocks = List.of(new ForwardBlock(points, settings.options()));
-        Screen[] screened = new Screen[1];
+        ScreenOnce screened = new ScreenOnce();
         Optimiser.Run best;
         try {
             best = run(blocks, DiodeParameters.of(start), free);
@@ -360,26 +360,38 @@ public final class ForwardExtraction {
      * converged.
      */
     private Optimiser.Run multiStart(Optimiser.Run first, List<ResidualBlock> blocks, Map<Param, Double> trial,
-                                     List<Param> free, List<FitPoint> reference, Screen[] screened) {
-        if (screened[0] == null) {
-            screened[0] = screenStarts(trial, free, reference);
+                                     List<Param> free, List<FitPoint> reference, ScreenOnce screened) {
+        if (screened.trial == null) {
+            // the screen is made once per stage, from the first call's start (it is made lazily, but as then)
+            screened.trial = new EnumMap<>(trial);
+            screened.free = new ArrayList<>(free);
         }
-        Screen screen = screened[0];
-        if (screen.best() == null) {
-            return first;
-        }
+        double refRss = Double.NaN;
+        double refFloor = reference.size() * RESIDUAL_FLOOR_SQUARED;
         if (first != null) {
-            // the global run from the start given is already in the best basin when it fits the reference sweep
-            // about as well as the best screened start does there: another basin shows as a multiple of the sum of
-            // squares, the same basin within a factor of 2 (the global run also serves the other temperatures)
             double[] r = new ForwardBlock(reference, settings.options()).residuals(first.parameters());
-            double refRss = 0;
+            refRss = 0;
             for (double x : r) {
                 refRss += x * x;
             }
-            if (refRss <= 2 * screen.rss() + r.length * RESIDUAL_FLOOR_SQUARED) {
+            // at the residual floor on the reference sweep the test below passes whatever the screened starts
+            // reach (their sum of squares is not negative), so they need not be run: the same result, sooner
+            if (refRss <= refFloor) {
                 return first;
             }
+        }
+        if (screened.screen == null) {
+            screened.screen = screenStarts(screened.trial, screened.free, reference);
+        }
+        Screen screen = screened.screen;
+        if (screen.best() == null) {
+            return first;
+        }
+        // the global run from the start given is already in the best basin when it fits the reference sweep
+        // about as well as the best screened start does there: another basin shows as a multiple of the sum of
+        // squares, the same basin within a factor of 2 (the global run also serves the other temperatures)
+        if (first != null && refRss <= 2 * screen.rss() + refFloor) {
+            return first;
         }
         DiodeParameters pick = screen.best();
         EnumMap<Param, Double> alt = new EnumMap<>(Param.class);
@@ -527,6 +539,13 @@ public final class ForwardExtraction {
     private static final double SCREENING_TOLERANCE = 1e-6;
 
     /** The best start after screening (null when none converged) and its sum of squares on the reference sweep. */
+    /** The screened starts of one stage, made at most once, from the first multi-start call's start. */
+    private static final class ScreenOnce {
+        private Map<Param, Double> trial;
+        private List<Param> free;
+        private Screen screen;
+    }
+
     private record Screen(DiodeParameters best, double rss) {
     }
 

@@ -67,6 +67,11 @@ final class ShuntTerm {
     private static final double FINAL_TOLERANCE = 1e-13;
     /** Starts for G as fractions of the smallest forward point's I/V (an upper bound of G) [1]. */
     private static final double[] START_FRACTIONS = {0.9, 0.5, 0.2};
+    /**
+     * The closed-form screen skips the trials only when the leakage data bound G this many times below the least
+     * conductance the decision accepts: far beyond a meter's reading noise, so that noise cannot hide a resistor [1].
+     */
+    static final double LEAKAGE_MARGIN = 2;
     /** Joint rounds at most; each after the first starts from the previous one's G. */
     private static final int ROUNDS = 3;
     /** G has settled when a round moves it by less than this, relative [1]. */
@@ -130,6 +135,14 @@ final class ShuntTerm {
         }
         if (!(ceiling > 0) || !Double.isFinite(ceiling)) {
             return no(plain, Double.NaN, "no forward point at a positive voltage to start from");
+        }
+        // closed-form screen before any fit: the leakage data bound G from above (see leakageCeiling); when that bound
+        // is far below the least conductance the decision could accept, no trial can end with the resistor in
+        if (!forced) {
+            String quiet = quietLeakage(points, leakage);
+            if (quiet != null) {
+                return no(plain, Double.NaN, quiet);
+            }
         }
         // several principled starts, each taken one round, the best by the fit's own cost then refined: the
         // leakage's slope; the smallest forward point's I/V (an upper bound of G, met where the resistor carries
@@ -235,6 +248,39 @@ final class ShuntTerm {
             rss += x * x;
         }
         return bic(rss, points.size(), j.run().layout().size() + 1);
+    }
+
+    /**
+     * The closed-form screen (docs/fitting.md, section 2.5): in reverse bias the junction's own current flows the same
+     * way as the resistor's, so every leakage point bounds G from above by |I|/|V|; the largest of these ratios is a
+     * bound with the points' noise on the generous side. The decision needs G of at least {@link #CURRENT_SHARE} of
+     * the smallest forward point's I/V ({@link #outside}); when the bound lies below that by more than
+     * {@link #LEAKAGE_MARGIN}, the trials are skipped and the reason is returned; null when the leakage data leave
+     * room for such a resistor, or there are none to judge by.
+     */
+    private static String quietLeakage(List<FitPoint> points, List<ReversePoint> leakage) {
+        double bound = 0;
+        int used = 0;
+        for (ReversePoint r : leakage) {
+            if (r.voltage() < 0 && r.current() < 0) {
+                bound = Math.max(bound, r.current() / r.voltage());
+                used++;
+            }
+        }
+        if (used < 2) {
+            return null;
+        }
+        FitPoint low = points.stream().min(Comparator.comparingDouble(FitPoint::current)).orElseThrow();
+        if (!(low.voltage() > 0)) {
+            return null;
+        }
+        double least = CURRENT_SHARE * low.current() / low.voltage();
+        if (LEAKAGE_MARGIN * bound >= least) {
+            return null;
+        }
+        return String.format(Locale.ROOT,
+                "not tried: the leakage data allow at most %s S (largest |I|/|V| of %d points), below the %s S it would need to carry %.0f %% of the smallest measured current (%s A)",
+                num(bound), used, num(least), 100 * CURRENT_SHARE, num(low.current()));
     }
 
     /** Why a resistor of conductance {@code g} does not act inside the data, or null when it does. */
