@@ -1,7 +1,6 @@
 package org.cardwright.fit;
 
 import java.util.ArrayList;
-import java.util.Comparator;
 import java.util.List;
 import java.util.Locale;
 import java.util.function.Function;
@@ -42,8 +41,8 @@ import org.cardwright.model.TemperatureLaws;
  *       the joint fit follows; rounds are kept while the criterion falls.</li>
  *   <li>The shunt goes in when the BIC on the forward points (the same form and floor as the other terms,
  *       with one parameter more) falls by more than the threshold against the plain forward stage, and the
- *       resistor carries at least {@value #CURRENT_SHARE} of the current at the smallest measured forward
- *       point: like every optional term it must act where the data are.</li>
+ *       resistor carries at least {@value #CURRENT_SHARE} of the current at some measured forward point (at any
+ *       temperature): like every optional term it must act where the data are.</li>
  * </ol>
  */
 final class ShuntTerm {
@@ -285,14 +284,23 @@ final class ShuntTerm {
 
     /** Why a resistor of conductance {@code g} does not act inside the data, or null when it does. */
     private static String outside(double g, List<FitPoint> points) {
-        FitPoint low = points.stream().min(Comparator.comparingDouble(FitPoint::current)).orElseThrow();
-        double share = g * low.voltage() / low.current();
-        if (share >= CURRENT_SHARE) {
+        // the largest share over every point: at several temperatures the same smallest current may be carried
+        // mostly by the resistor when cold and mostly by the junction when hot; it acts where it carries enough
+        FitPoint best = null;
+        double share = 0;
+        for (FitPoint pt : points) {
+            double s = g * pt.voltage() / pt.current();
+            if (best == null || s > share) {
+                best = pt;
+                share = s;
+            }
+        }
+        if (best == null || share >= CURRENT_SHARE) {
             return null;
         }
         return String.format(Locale.ROOT,
-                "the fitted resistor (%s ohm) would carry only %.1f %% of the smallest measured current (%s A): too little to determine it",
-                num(1 / g), 100 * share, num(low.current()));
+                "the fitted resistor (%s ohm) would carry at most %.1f %% of a measured current (%s A at %s degC): too little to determine it",
+                num(1 / g), 100 * share, num(best.current()), num(best.temperature() - 273.15));
     }
 
     private static List<ResidualBlock> shuntBlocks(List<FitPoint> points, List<ReversePoint> leakage, FitSettings settings,

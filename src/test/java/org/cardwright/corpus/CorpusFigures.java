@@ -21,11 +21,13 @@ import org.cardwright.data.ReadOptions;
 import org.cardwright.fit.CapacitanceOptions;
 import org.cardwright.fit.DeviceKind;
 import org.cardwright.fit.FittedParameter;
+import org.cardwright.fit.ShuntResistance;
 import org.cardwright.model.DiodeAtTemperature;
 import org.cardwright.model.DiodeParameters;
 import org.cardwright.model.DiodeSolver;
 import org.cardwright.model.JunctionCapacitance;
 import org.cardwright.model.Param;
+import org.cardwright.model.ShuntedJunction;
 import org.cardwright.model.SimulatorOptions;
 import org.cardwright.model.TemperatureLaws;
 import org.cardwright.verify.JunctionVerification;
@@ -59,12 +61,14 @@ final class CorpusFigures {
      * The figures of one part and variant. NaN where the data do not show the quantity.
      *
      * @param refused       the fit's one-line refusal, or null
-     * @param forwardMv     worst |V_fit - V_true| over the measured forward points [mV]
+     * @param forwardMv     worst |V_fit - V_true| over the measured forward points, each side with its own shunt
+     *                      resistor where it has one (what was written against what generated the data) [mV]
      * @param breakdownPct  worst |V_fit - V_true| / |V_true| over the measured breakdown points [%]
      * @param capacitancePct worst |C_fit - C_true| / C_true over the measured biases [%]
      * @param ttPct         |TT_fit - TT| / TT [%] where the C-V data show TT
      * @param shuntPct      |R_fit - R| / R [%] of the parallel resistor written beside the card, where there is one
-     * @param card          the fitted ngspice card, or null when refused
+     * @param card          the fitted ngspice file a user simulates (the subcircuit of card and resistor when the fit
+     *                      carries a shunt, else the card), or null when refused
      * @param outcome       the fit, or null when refused
      */
     record Figures(String refused, double forwardMv, double breakdownPct, double capacitancePct, double ttPct,
@@ -127,12 +131,14 @@ final class CorpusFigures {
         SimulatorOptions opt = SimulatorOptions.NGSPICE_DEFAULTS;
         Inputs exact = Inputs.read(files(part, false), ReadOptions.defaults());
 
+        double fittedShunt = outcome.fit().shunt().map(ShuntResistance::conductance).orElse(0.0);
         double fwd = Double.NaN;
         for (Inputs.Located l : exact.forward()) {
             double t = l.point().temperature();
             double i = l.point().current();
             double vTrue = truthVoltage(TemperatureLaws.at(truth, t, opt), i, part.shunt());
-            double vFit = DiodeSolver.voltageAtCurrent(TemperatureLaws.at(fit, t, opt), i);
+            // what was written: the card, with the resistor of the subcircuit beside it when the fit carries one
+            double vFit = ShuntedJunction.voltageAtCurrent(TemperatureLaws.at(fit, t, opt), i, fittedShunt);
             fwd = max(fwd, Math.abs(vFit - vTrue) * 1e3);
         }
         double bd = Double.NaN;
@@ -164,7 +170,11 @@ final class CorpusFigures {
             double r = writtenShunt(out, request.cardPath(Dialect.NGSPICE));
             shunt = Double.isNaN(r) ? Double.POSITIVE_INFINITY : 100 * Math.abs(r - part.shunt()) / part.shunt();
         }
-        return new Figures(null, fwd, bd, cap, tt, shunt, request.cardPath(Dialect.NGSPICE), outcome);
+        // the file a user simulates: the subcircuit (card and resistor) when the fit carries a shunt
+        Path simulated = outcome.cards().stream().filter(c -> c.dialect() == Dialect.NGSPICE).findFirst()
+                .flatMap(FitOutcome.WrittenCard::shunted).map(FitOutcome.ShuntedFile::file)
+                .orElse(request.cardPath(Dialect.NGSPICE));
+        return new Figures(null, fwd, bd, cap, tt, shunt, simulated, outcome);
     }
 
     private static double max(double a, double b) {

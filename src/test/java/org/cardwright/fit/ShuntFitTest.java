@@ -14,9 +14,10 @@ import org.junit.jupiter.api.Test;
 
 /**
  * Issue 9, item 7: a resistor between the terminals is found, fitted with the junction, and not invented where
- * there is none. The family ({@link ShuntedParts}) spans 10 kOhm to 10 MOhm, with and without RS, one and two
- * temperatures, with recombination; its data are made by the built-in ngspice 39 equations. (The ngspice-made
- * case, the written subcircuit and verify are in workflow/ShuntedCardWorkflowTest.)
+ * there is none. The family ({@link ShuntedParts}) spans 10 kOhm to 10 MOhm, with and without RS, one to three
+ * temperatures (the same sweep at each, the resistor visible only when cold; a wandering logger), with recombination
+ * and high injection, with reverse leakage beside the forward data; its data are made by the built-in ngspice 39
+ * equations. (The ngspice-made case, the written subcircuit and verify are in workflow/ShuntedCardWorkflowTest.)
  */
 class ShuntFitTest {
     /** Issue 9 acceptance: shunt within 2 % from noisy data. */

@@ -18,7 +18,9 @@ import org.cardwright.model.TemperatureLaws;
  *
  * <p>The resistors span 10 kOhm to 10 MOhm; each part's forward sweep starts where its resistor carries most
  * of the current (the shunt is visible), and runs to a current where the series resistance shows, 12 points a
- * decade. Reverse leakage is taken at forced voltages from -0.5 V to -10 V.
+ * decade (the same currents at every temperature, set where the resistor shows at the first). Reverse leakage is
+ * taken at forced voltages from -0.5 V to -10 V. A wandering part logs each row at its own temperature, within
+ * {@value #WANDER} K of the set point, as a chamber logger does.
  */
 final class ShuntedParts {
     /**
@@ -32,17 +34,29 @@ final class ShuntedParts {
     static final double CURRENT_NOISE = 1e-3;
     /** Forward points per decade of current, a source-measure unit's log sweep. */
     static final int PER_DECADE = 12;
+    /** A chamber logger's reading wanders within this much of the set point, row by row [K]. */
+    static final double WANDER = 0.15;
 
     /** One invented part. */
     record Part(String name, DiodeParameters junction, double shunt, double[] celsius, double lowCurrent,
-                double highCurrent) {
+                double highCurrent, boolean wanders) {
         boolean shunted() {
             return shunt > 0;
         }
 
         /** The part without its resistor, over the same currents. */
         Part withoutShunt() {
-            return new Part(name + "-plain", junction, 0, celsius, lowCurrent, highCurrent);
+            return new Part(name + "-plain", junction, 0, celsius, lowCurrent, highCurrent, wanders);
+        }
+
+        /** The same part swept up to {@code current} [A]. */
+        Part upTo(double current) {
+            return new Part(name, junction, shunt, celsius, lowCurrent, current, wanders);
+        }
+
+        /** The same part with each row's logged temperature wandering about its set point. */
+        Part wandering() {
+            return new Part(name, junction, shunt, celsius, lowCurrent, highCurrent, true);
         }
     }
 
@@ -69,6 +83,14 @@ final class ShuntedParts {
                 Param.NR, 2.2), 10e3, new double[] {27, 85}));
         // a large, cell-like junction without RS, 1 MOhm
         out.add(part("cell-1M", params(Param.IS, 3e-12, Param.N, 1.35), 1e6, new double[] {25}));
+        // a small junction with recombination beside the resistor, two temperatures, the logger wandering
+        out.add(part("sig-isr-150k", params(Param.IS, 1e-15, Param.N, 1.0, Param.RS, 1.2, Param.ISR, 5e-12,
+                Param.NR, 2.0), 150e3, new double[] {25, 85}).wandering());
+        // a leaky high-N power junction with high injection up to 150 degC: the same sweep at every temperature,
+        // so the resistor dominates the lowest currents when cold and carries only a few per cent when hot
+        // (swept to 1 A, where the high injection shows)
+        out.add(part("power-2M", params(Param.IS, 1e-10, Param.N, 1.6, Param.RS, 0.05, Param.IKF, 1.5), 2e6,
+                new double[] {25, 100, 150}).upTo(1.0));
         return out;
     }
 
@@ -89,7 +111,7 @@ final class ShuntedParts {
             }
         }
         double low = ShuntedJunction.currentAtVoltage(d, lo, 1 / shunt);
-        return new Part(name, junction, shunt, celsius, low, 0.1);
+        return new Part(name, junction, shunt, celsius, low, 0.1, false);
     }
 
     /** Forward points of {@code part}, {@value #PER_DECADE} a decade, at each temperature. */
@@ -98,10 +120,10 @@ final class ShuntedParts {
         List<FitPoint> out = new ArrayList<>();
         int line = 1;
         for (double c : part.celsius()) {
-            double t = c + 273.15;
-            DiodeAtTemperature d = TemperatureLaws.at(part.junction(), t, SimulatorOptions.NGSPICE_DEFAULTS);
             int steps = (int) Math.round(PER_DECADE * Math.log10(part.highCurrent() / part.lowCurrent()));
             for (int k = 0; k <= steps; k++) {
+                double t = c + 273.15 + (part.wanders() ? WANDER * (2 * rnd.nextDouble() - 1) : 0);
+                DiodeAtTemperature d = TemperatureLaws.at(part.junction(), t, SimulatorOptions.NGSPICE_DEFAULTS);
                 double i = part.lowCurrent() * Math.pow(part.highCurrent() / part.lowCurrent(), k / (double) steps);
                 double v = ShuntedJunction.voltageAtCurrent(d, i, part.shunted() ? 1 / part.shunt() : 0);
                 if (noisy) {
@@ -120,9 +142,9 @@ final class ShuntedParts {
         List<ReversePoint> out = new ArrayList<>();
         int line = 1000;
         for (double c : part.celsius()) {
-            double t = c + 273.15;
-            DiodeAtTemperature d = TemperatureLaws.at(part.junction(), t, SimulatorOptions.NGSPICE_DEFAULTS);
             for (double v : new double[] {-0.5, -1, -2, -3, -5, -7, -10}) {
+                double t = c + 273.15 + (part.wanders() ? WANDER * (2 * rnd.nextDouble() - 1) : 0);
+                DiodeAtTemperature d = TemperatureLaws.at(part.junction(), t, SimulatorOptions.NGSPICE_DEFAULTS);
                 double i = ShuntedJunction.currentAtVoltage(d, v, part.shunted() ? 1 / part.shunt() : 0);
                 double vm = v;
                 if (noisy) {
