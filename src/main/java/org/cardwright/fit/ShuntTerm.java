@@ -253,7 +253,7 @@ final class ShuntTerm {
      * The closed-form screen (docs/fitting.md, section 2.5): in reverse bias the junction's own current flows the same
      * way as the resistor's, so every leakage point bounds G from above by |I|/|V|; the largest of these ratios is a
      * bound with the points' noise on the generous side. The decision needs G of at least {@link #CURRENT_SHARE} of
-     * the smallest forward point's I/V ({@link #outside}); when the bound lies below that by more than
+     * the smallest I/V of the forward points ({@link #outside}); when the bound lies below that by more than
      * {@link #LEAKAGE_MARGIN}, the trials are skipped and the reason is returned; null when the leakage data leave
      * room for such a resistor, or there are none to judge by.
      */
@@ -269,8 +269,15 @@ final class ShuntTerm {
         if (used < 2) {
             return null;
         }
-        FitPoint low = points.stream().min(Comparator.comparingDouble(FitPoint::current)).orElseThrow();
-        if (!(low.voltage() > 0)) {
+        // the decision needs the resistor to carry CURRENT_SHARE of the current at some forward point, at any
+        // temperature ({@link #outside}): the least conductance that does is set by the smallest I/V of all
+        FitPoint low = null;
+        for (FitPoint pt : points) {
+            if (pt.voltage() > 0 && (low == null || pt.current() / pt.voltage() < low.current() / low.voltage())) {
+                low = pt;
+            }
+        }
+        if (low == null) {
             return null;
         }
         double least = CURRENT_SHARE * low.current() / low.voltage();
@@ -278,8 +285,8 @@ final class ShuntTerm {
             return null;
         }
         return String.format(Locale.ROOT,
-                "not tried: the leakage data allow at most %s S (largest |I|/|V| of %d points), below the %s S it would need to carry %.0f %% of the smallest measured current (%s A)",
-                num(bound), used, num(least), 100 * CURRENT_SHARE, num(low.current()));
+                "not tried: the leakage data allow at most %s S (largest |I|/|V| of %d points), below the %s S it would need to carry %.0f %% of the current at any forward point (at most %s A at %s V)",
+                num(bound), used, num(least), 100 * CURRENT_SHARE, num(low.current()), num(low.voltage()));
     }
 
     /** Why a resistor of conductance {@code g} does not act inside the data, or null when it does. */
