@@ -594,6 +594,7 @@ public final class ForwardExtraction {
             }
             try {
                 Optimiser.Run r = Optimiser.run(one, DiodeParameters.of(s), local, this::bounds, SCREENING_TOLERANCE);
+                r = inOrder(r, one, local);
                 if (r.rss() < bestRss) {
                     bestRss = r.rss();
                     best = r.parameters();
@@ -603,6 +604,34 @@ public final class ForwardExtraction {
             }
         }
         return new Screen(best, bestRss);
+    }
+
+    /**
+     * A screened run whose two exponential terms traded places (NR below N: the recombination term carries the
+     * high currents) is refined once more from the swapped values (IS with ISR, N with NR); the swapped run
+     * replaces it when it converges with the terms in order, even at a larger sum of squares. The swap is not an
+     * identity (IKF and the recombination factor f(VJ, M) act on one term only, and VJ and M are fitted only
+     * later, from C-V data, see {@link #recombinationFactor}), hence the refinement. A traded pair always fails the
+     * recombination term's own test (it must carry the smallest currents), so keeping it would drop the term for
+     * certain; the ordered pair is still judged by BIC against the card without it.
+     */
+    private Optimiser.Run inOrder(Optimiser.Run r, List<ResidualBlock> one, List<Param> local) {
+        DiodeParameters p = r.parameters();
+        if (!p.isGiven(Param.ISR) || !p.isGiven(Param.NR) || p.get(Param.NR) >= p.get(Param.N)
+                || !local.containsAll(List.of(Param.IS, Param.N, Param.ISR, Param.NR))) {
+            return r;
+        }
+        DiodeParameters swapped = p.with(Param.IS, p.get(Param.ISR)).with(Param.ISR, p.get(Param.IS))
+                .with(Param.N, p.get(Param.NR)).with(Param.NR, p.get(Param.N));
+        try {
+            Optimiser.Run s = Optimiser.run(one, swapped, local, this::bounds, SCREENING_TOLERANCE);
+            if (s.parameters().isGiven(Param.ISR) && s.parameters().get(Param.NR) >= s.parameters().get(Param.N)) {
+                return s;
+            }
+        } catch (RuntimeException e) {
+            // the swapped start did not converge: the traded run stays
+        }
+        return r;
     }
 
     private static void putIfFree(Map<Param, Double> start, List<Param> free, Param p, double value) {

@@ -161,6 +161,19 @@ public final class JunctionExtraction {
                 }
             }
             params = run.parameters();
+            // the readings scatter more than their stated sigma (a jittery meter on a near-vertical knee): the
+            // breakdown points are weighted by their own scatter in the joint fit (sigma scaled by the Birge ratio
+            // sqrt(chi2/dof), R. T. Birge, Phys. Rev. 40 (1932) 207-227), so that they cannot pull the parameters
+            // shared with the forward data (RS) by more than their real uncertainty allows
+            int dof = split.breakdown().size() - stageFree.size();
+            double birge = dof > 0 ? Math.sqrt(run.rss() / dof) : 1;
+            if (birge > BIRGE_LIMIT) {
+                List<ReversePoint> scaled = new ArrayList<>();
+                for (ReversePoint q : split.breakdown()) {
+                    scaled.add(new ReversePoint(q.voltage(), q.current(), q.temperature(), q.sigma() * birge, q.source(), q.line()));
+                }
+                block = new BreakdownBlock(scaled, settings.options());
+            }
             blocks.add(block);
             free.addAll(stageFree);
             decisions.add(new TermDecision("breakdown", List.of(Param.BV, Param.IBV, Param.NBV), true, Double.NaN,
@@ -238,6 +251,8 @@ public final class JunctionExtraction {
     private record IbvDecision(Optimiser.Run run, String note) {
     }
 
+    /** Breakdown readings scattering by more than this multiple of their stated sigma are reweighted [1]. */
+    private static final double BIRGE_LIMIT = 1.5;
     /** Decades on either side of the chosen IBV from which the free-IBV trial starts (1 decade apart). */
     private static final int IBV_START_DECADES = 3;
 
