@@ -40,16 +40,11 @@ final class Optimiser {
         return run(blocks, start, free, bounds, TOLERANCE);
     }
 
-    /** Relative change of cost and parameters at which a fit stops [1]. */
-    static final double TOLERANCE = 1e-13;
-
     /**
-     * The same with another stopping tolerance: a looser one finds the basin of a start at a fraction of the cost,
-     * for comparing starts (the chosen one is then fitted to {@link #TOLERANCE}).
+     * {@code start} with every free parameter brought inside its bounds (a log-scaled one that is not positive
+     * goes to its lower bound): start values outside the bounds are moved before a fit starts.
      */
-    static Run run(List<ResidualBlock> blocks, DiodeParameters start, List<Param> free,
-                   Function<Param, double[]> bounds, double tolerance) {
-        // start values outside the bounds are brought inside before the fit starts
+    static DiodeParameters clampedStart(DiodeParameters start, List<Param> free, Function<Param, double[]> bounds) {
         DiodeParameters clamped = start;
         for (Param p : free) {
             double[] b = bounds.apply(p);
@@ -62,6 +57,19 @@ final class Optimiser {
                 clamped = clamped.with(p, c);
             }
         }
+        return clamped;
+    }
+
+    /** Relative change of cost and parameters at which a fit stops [1]. */
+    static final double TOLERANCE = 1e-13;
+
+    /**
+     * The same with another stopping tolerance: a looser one finds the basin of a start at a fraction of the cost,
+     * for comparing starts (the chosen one is then fitted to {@link #TOLERANCE}).
+     */
+    static Run run(List<ResidualBlock> blocks, DiodeParameters start, List<Param> free,
+                   Function<Param, double[]> bounds, double tolerance) {
+        DiodeParameters clamped = clampedStart(start, free, bounds);
         FreeParameters layout = new FreeParameters(clamped, free, FreeParameters.boundsOf(free, bounds));
         JointProblem model = new JointProblem(blocks, layout);
         double[] x0 = layout.toInternal(clamped);

@@ -386,18 +386,7 @@ final class ShuntTerm {
      */
     static Joint fit(List<ResidualBlock> blocks, DiodeParameters start, List<Param> free,
                      Function<Param, double[]> bounds, double g0, double maxResistance, double tolerance) {
-        DiodeParameters clamped = start;
-        for (Param q : free) {
-            double[] b = bounds.apply(q);
-            double v = start.get(q);
-            double c = Math.min(b[1], Math.max(b[0], v));
-            if (q.fitScale() == Param.Scale.LOG && c <= 0) {
-                c = b[0];
-            }
-            if (c != v) {
-                clamped = clamped.with(q, c);
-            }
-        }
+        DiodeParameters clamped = Optimiser.clampedStart(start, free, bounds);
         FreeParameters layout = new FreeParameters(clamped, free, FreeParameters.boundsOf(free, bounds));
         int k = layout.size();
         double lo = Math.log(BOUNDS[0]);
