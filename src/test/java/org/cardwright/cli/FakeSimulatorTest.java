@@ -40,8 +40,13 @@ class FakeSimulatorTest {
             "#!/bin/sh",
             "# fake ngspice for cardwright tests",
             "if [ \"$1\" = \"-v\" ]; then echo '** ngspice-39 : fake simulator for tests'; exit 0; fi",
-            "n=$(grep -c '^op$' circuit.cir)",
-            "row() { i=0; while [ $i -lt \"$1\" ]; do echo \"$2\"; i=$((i+1)); done; }",
+            "n=$(grep -c '^D' circuit.cir)",
+            "# raw V I EXTRA: a raw file (text) of n points' v(aK) and i(@dK[id]), with EXTRA values more (or fewer)",
+            "raw() { echo 'Title: fake'; echo \"No. Variables: $((2*n))\"; echo 'No. Points: 1'; echo 'Variables:';",
+            "  i=0; while [ $i -lt \"$n\" ]; do k=$((i+1)); printf '\\t%d\\tv(a%d)\\tvoltage\\n\\t%d\\ti(@d%d[id])\\tcurrent\\n' $((2*i)) $k $((2*i+1)) $k; i=$((i+1)); done;",
+            "  echo 'Values:'; m=$((2*n+$3)); j=0;",
+            "  while [ $j -lt $m ]; do if [ $j -eq 0 ]; then printf ' 0\\t%s\\n' \"$1\"; elif [ $((j%2)) -eq 0 ]; then printf '\\t%s\\n' \"$1\";",
+            "  else printf '\\t%s\\n' \"$2\"; fi; j=$((j+1)); done; }",
             "");
     private static final String GNUCAP_HEAD = String.join("\n",
             "#!/bin/sh",
@@ -54,7 +59,6 @@ class FakeSimulatorTest {
     }
 
     private static List<Fault> faults() {
-        String good = "0 0.65 1e-3 0";
         return List.of(
                 new Fault("hangs", false, "echo $$ >> \"$PIDS\"\nsleep 600\n", "did not finish within 2 s"),
                 new Fault("ignores-sigterm", false,
@@ -64,18 +68,18 @@ class FakeSimulatorTest {
                         "did not finish within 2 s"),
                 new Fault("setsid-grandchild-left-behind", false,
                         "setsid sh -c 'echo $$ >> \"$PIDS\"; exec sleep 600' </dev/null >/dev/null 2>&1 &\nsleep 1\n"
-                                + "echo 'fake output' > points.dat\nexit 0\n", "columns"),
-                new Fault("garbage", false, "echo 'this is not a table of numbers' > points.dat\n", "columns"),
-                new Fault("binary", false, "printf '\\001\\002\\377 \\033[31m x y\\n' > points.dat\n", "not a finite number"),
-                new Fault("nan", false, "row \"$n\" '0 nan nan nan' > points.dat\n", "'nan', not a finite number"),
-                new Fault("inf", false, "row \"$n\" '0 inf 1e-3 0' > points.dat\n", "'inf', not a finite number"),
-                new Fault("overflow", false, "row \"$n\" '0 1e999 1e-3 0' > points.dat\n", "'1e999', not a finite number"),
-                new Fault("cut-off", false, "row \"$n\" '0 0.6e 1e-3 0' > points.dat\n", "'0.6e', not a finite number"),
-                new Fault("too-many", false, "row $((n+1)) '" + good + "' > points.dat\n", "more rows than the"),
-                new Fault("too-few", false, "row $((n-1)) '" + good + "' > points.dat\n", "operating points"),
-                new Fault("too-many-columns", false, "row \"$n\" '0 0.65 1e-3 0 7' > points.dat\n", "5 columns, expected 4"),
+                                + "echo 'fake output' > points.raw\nexit 0\n", "no variable count"),
+                new Fault("garbage", false, "echo 'this is not a table of numbers' > points.raw\n", "no variable count"),
+                new Fault("binary", false, "raw \"$(printf '\\001\\002\\377')\" 1e-3 0 > points.raw\n", "not a finite number"),
+                new Fault("nan", false, "raw nan nan 0 > points.raw\n", "'nan', not a finite number"),
+                new Fault("inf", false, "raw inf 1e-3 0 > points.raw\n", "'inf', not a finite number"),
+                new Fault("overflow", false, "raw 1e999 1e-3 0 > points.raw\n", "'1e999', not a finite number"),
+                new Fault("cut-off", false, "raw 0.6e 1e-3 0 > points.raw\n", "'0.6e', not a finite number"),
+                new Fault("too-many", false, "raw 0.65 1e-3 1 > points.raw\n", "unexpected value line"),
+                new Fault("too-few", false, "raw 0.65 1e-3 -1 > points.raw\n", "values of its"),
+                new Fault("too-many-columns", false, "raw '0.65 7' 1e-3 0 > points.raw\n", "unexpected value line"),
                 new Fault("no-output", false, "exit 0\n", "wrote no results"),
-                new Fault("runaway-output", false, "yes '" + good + "' | head -n 200000 > points.dat\n", "bytes of results"),
+                new Fault("runaway-output", false, "raw 0.65 1e-3 0 > points.raw\nyes '\t0.65' | head -n 200000 >> points.raw\n", "bytes of results"),
                 new Fault("exits-1", false, "echo 'Error: fake failure' >&2\nexit 1\n", "exited with code 1"),
                 new Fault("gnucap-hangs", true, "echo $$ >> \"$PIDS\"\nsleep 600\n", "did not finish within 2 s"),
                 new Fault("gnucap-setsid-grandchild", true,
