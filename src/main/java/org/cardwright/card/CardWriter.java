@@ -30,7 +30,9 @@ import org.cardwright.model.DiodeParameters;
 import org.cardwright.model.Param;
 
 /**
- * Writes a {@link ModelCard} in a simulator dialect through that dialect's FreeMarker template.
+ * Writes a {@link ModelCard} in a simulator dialect through that dialect's FreeMarker template: a user's template
+ * when the template folder holds one of that name, else the bundled layout, written directly by {@link BuiltinLayout}
+ * (the same bytes as the bundled template; FreeMarker is then never configured).
  *
  * <p>Every number is formatted here, once, by {@link SpiceNumbers}; a template receives strings only:
  * {@code name}, {@code dialect} (the simulator), {@code provenance} (a list of lines) and {@code parameters}
@@ -80,8 +82,11 @@ public final class CardWriter {
     /** Most characters of FreeMarker's own message in ours (it may quote a bit of the template). */
     private static final int MESSAGE_CHARS = 200;
 
-    private final Configuration configuration;
+    /** FreeMarker, set up on the first user template (or on any template when {@link #templatesOnly}); else null. */
+    private Configuration configuration;
     private final Optional<Path> templateDirectory;
+    /** True when every card goes through FreeMarker, the bundled templates too (to test the plain writer). */
+    private final boolean templatesOnly;
     private final java.util.Set<Template> interruptible = java.util.Collections.newSetFromMap(new java.util.IdentityHashMap<>());
 
     /**
@@ -89,8 +94,43 @@ public final class CardWriter {
      * @throws IllegalArgumentException when the folder is given but is not a readable directory
      */
     public CardWriter(Optional<Path> templateDirectory) {
+        this(templateDirectory, false);
+    }
+
+    private CardWriter(Optional<Path> templateDirectory, boolean templatesOnly) {
         this.templateDirectory = Objects.requireNonNull(templateDirectory, "templateDirectory");
-        configuration = new Configuration(Configuration.VERSION_2_3_34);
+        this.templatesOnly = templatesOnly;
+        if (templateDirectory.isPresent()) {
+            Path folder = templateDirectory.get();
+            if (!Files.isDirectory(folder)) {
+                throw new IllegalArgumentException("template folder " + folder + " is not a directory");
+            }
+            try {
+                folder.toRealPath();
+            } catch (IOException e) {
+                throw new IllegalArgumentException("template folder " + folder + " cannot be read: " + e.getMessage(), e);
+            }
+        }
+    }
+
+    /**
+     * A writer that renders the bundled templates through FreeMarker as well, instead of {@link BuiltinLayout}: the
+     * reference the plain writer is tested against (same bytes for every dialect).
+     */
+    static CardWriter templatesOnly(Optional<Path> templateDirectory) {
+        return new CardWriter(templateDirectory, true);
+    }
+
+    /** FreeMarker's configuration, made on first use (a run with the bundled templates never needs it). */
+    private synchronized Configuration configuration() {
+        if (configuration == null) {
+            configuration = newConfiguration(templateDirectory);
+        }
+        return configuration;
+    }
+
+    private static Configuration newConfiguration(Optional<Path> templateDirectory) {
+        Configuration configuration = new Configuration(Configuration.VERSION_2_3_34);
         configuration.setTemplateLoader(loader(templateDirectory));
         configuration.setDefaultEncoding("UTF-8");
         configuration.setOutputEncoding("UTF-8");
@@ -107,6 +147,7 @@ public final class CardWriter {
         configuration.setAPIBuiltinEnabled(false);
         configuration.setObjectWrapper(new StringsOnlyWrapper());
         configuration.setTemplateUpdateDelayMilliseconds(Long.MAX_VALUE);
+        return configuration;
     }
 
     private static TemplateLoader loader(Optional<Path> templateDirectory) {
@@ -162,7 +203,9 @@ public final class CardWriter {
         model.put("dialect", dialect.simulator());
         model.put("provenance", card.provenance());
         model.put("parameters", lines);
-        String text = run(dialect.templateFileName(), model);
+        String text = userTemplate(dialect.templateFileName()) || templatesOnly
+                ? run(dialect.templateFileName(), model)
+                : BuiltinLayout.render(dialect, card.name(), card.provenance(), lines);
         checkReadBack(templateLabel(dialect.templateFileName()), text, card.name(), dialect, lines);
         return new Rendered(text, dropped);
     }
@@ -224,6 +267,15 @@ public final class CardWriter {
         }
     }
 
+    /**
+     * True when the user's template folder holds a file (or link) of this name, which then replaces the bundled
+     * template (exactly when {@link FolderTemplateLoader} finds it; it refuses links out and special files).
+     */
+    private boolean userTemplate(String templateName) {
+        return templateDirectory.isPresent() && Files.exists(templateDirectory.get().resolve(templateName).normalize(),
+                java.nio.file.LinkOption.NOFOLLOW_LINKS);
+    }
+
     /** The template file as a user finds it: its path in the template folder, or "bundled NAME". */
     private String templateLabel(String templateName) {
         if (templateDirectory.isPresent() && Files.isRegularFile(templateDirectory.get().resolve(templateName))) {
@@ -236,7 +288,7 @@ public final class CardWriter {
         String label = templateLabel(templateName);
         Template template;
         try {
-            template = configuration.getTemplate(templateName);
+            template = configuration().getTemplate(templateName);
         } catch (ParseException e) {
             throw new CardTemplateException(label + ":" + e.getLineNumber() + ": template syntax error: "
                     + Excerpts.of(firstLine(e.getEditorMessage()), MESSAGE_CHARS), e);

@@ -181,4 +181,41 @@ class CardWriterTest {
             }
         }
     }
+
+    /**
+     * The bundled layouts are written without the template engine (BuiltinLayout); they must give exactly the bytes
+     * that the bundled templates give through FreeMarker, for every dialect, with and without provenance (empty
+     * provenance lines too), every parameter given or none, and every number of digits.
+     */
+    @Test
+    void theBundledLayoutsWrittenDirectlyAreTheBundledTemplatesByteForByte() {
+        CardWriter direct = new CardWriter(Optional.empty());
+        CardWriter engine = CardWriter.templatesOnly(Optional.empty());
+        List<ModelCard> cards = new java.util.ArrayList<>(RandomCards.generate(20, 20261203L));
+        cards.add(switchingDiode());
+        cards.add(new ModelCard("dnone", DiodeParameters.of(Map.of()), List.of()));
+        cards.add(new ModelCard("D_Mixed.Case-1", switchingDiode().parameters(), List.of("", "  indented", "x")));
+        int compared = 0;
+        for (ModelCard card : cards) {
+            for (Dialect d : Dialect.values()) {
+                for (int digits : new int[] {SpiceNumbers.MIN_SIGNIFICANT_DIGITS, DIGITS, SpiceNumbers.MAX_SIGNIFICANT_DIGITS}) {
+                    CardWriter.Rendered a = direct.render(card, d, digits);
+                    CardWriter.Rendered b = engine.render(card, d, digits);
+                    assertEquals(b.text(), a.text(), card.name() + " " + d);
+                    assertEquals(b.dropped(), a.dropped(), card.name() + " " + d);
+                    compared++;
+                }
+            }
+        }
+        assertEquals(cards.size() * Dialect.values().length * 3, compared);
+    }
+
+    /** A folder without a template of the dialect's name leaves that dialect to the bundled layout. */
+    @Test
+    void aTemplateFolderWithoutTheDialectsTemplateGivesTheBundledBytes() throws Exception {
+        Files.writeString(folder.resolve("gnucap.ftl"), "<#list parameters as p>${p.keyword}</#list>\n", StandardCharsets.UTF_8);
+        String bundled = new CardWriter(Optional.empty()).render(switchingDiode(), Dialect.NGSPICE, DIGITS).text();
+        String withFolder = new CardWriter(Optional.of(folder)).render(switchingDiode(), Dialect.NGSPICE, DIGITS).text();
+        assertEquals(bundled, withFolder);
+    }
 }
