@@ -118,7 +118,7 @@ public final class MakeLibrary {
     private static void write(Path csv, String model, DiodeParameters truth, List<Bias> biases, long seed) throws IOException {
         Random random = new Random(seed);
         List<OperatingPoint> ops = new BuiltinEngine(SimulatorOptions.NGSPICE_DEFAULTS)
-                .dc(new CardUnderTest(model, truth, ".model " + model + " D()"), biases);
+                .dc(new CardUnderTest(model, truth, List.of()), biases);
         StringBuilder sb = new StringBuilder();
         sb.append("# Invented benchmark data, not a measurement: the invented part ").append(model)
                 .append(", simulated with cardwright's built-in engine, Gaussian voltage noise 0.1 mV, seed ").append(seed).append(".\n");
