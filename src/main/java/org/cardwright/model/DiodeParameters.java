@@ -22,6 +22,16 @@ public final class DiodeParameters {
         }
     }
 
+    /**
+     * A set from a map whose every entry is valid already (a copy of a valid set with one entry changed and checked,
+     * or one removed): {@link #with} runs in every residual evaluation of a fit, once per free parameter, and
+     * checking the whole set again each time made it quadratic in the parameters.
+     */
+    private DiodeParameters(EnumMap<Param, Double> given, boolean checked) {
+        this.given = given;
+        assert checked;
+    }
+
     /** A parameter set with nothing given: every value is the ngspice default. */
     public static DiodeParameters defaults() {
         return new DiodeParameters(new EnumMap<>(Param.class));
@@ -99,16 +109,17 @@ public final class DiodeParameters {
 
     /** A copy with {@code p} set to {@code value} [SI]. */
     public DiodeParameters with(Param p, double value) {
+        validate(p, value);
         EnumMap<Param, Double> copy = new EnumMap<>(given);
         copy.put(p, value);
-        return new DiodeParameters(copy);
+        return new DiodeParameters(copy, true);
     }
 
     /** A copy with {@code p} no longer given (its default, or its term switched off). */
     public DiodeParameters without(Param p) {
         EnumMap<Param, Double> copy = new EnumMap<>(given);
         copy.remove(p);
-        return new DiodeParameters(copy);
+        return new DiodeParameters(copy, true);
     }
 
     /** Nominal temperature TNOM [K]. */
