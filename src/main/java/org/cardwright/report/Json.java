@@ -42,8 +42,17 @@ public final class Json {
             sb.append(Double.isFinite(d) ? Double.toString(d) : "null");
         } else if (v instanceof Float f) {
             write(sb, f.doubleValue(), indent);
+        } else if (v instanceof java.math.BigDecimal bd) {
+            // exact, never cut to a whole number (a JSON number may carry an exponent: 1.5E-7)
+            sb.append(bd.toString());
+        } else if (v instanceof java.math.BigInteger bi) {
+            sb.append(bi.toString());
+        } else if (v instanceof Long || v instanceof Integer || v instanceof Short || v instanceof Byte
+                || v instanceof java.util.concurrent.atomic.AtomicLong || v instanceof java.util.concurrent.atomic.AtomicInteger) {
+            sb.append(((Number) v).longValue());
         } else if (v instanceof Number n) {
-            sb.append(n.longValue());
+            // any other kind of number: its double value, never truncated
+            write(sb, n.doubleValue(), indent);
         } else if (v instanceof Map<?, ?> m) {
             if (m.isEmpty()) {
                 sb.append("{}");
