@@ -14,7 +14,7 @@ import org.cardwright.sim.process.SimulatorProcess;
  * uses wherever the circuit temperature would be used for that diode), all solved by one {@code op}. The points do
  * not touch each other (each has its own nodes), so the one solution is each point's own; ngspice starts once, parses
  * once and writes one result file ({@code write}, raw format as text), so the run time grows with the number of
- * points only by the solve of a larger sparse system (600 to 6000 points: 0.05 to 0.25 s of ngspice's CPU on the
+ * points only by the solve of a larger sparse system (600 to 6000 points: 0.02 to 0.3 s of ngspice's CPU on the
  * development machine, against 0.4 to 4 s for an {@code op} per point in a control loop). The terminal voltage
  * (forced current) and the device current ({@code @D[id]}) are read strictly by name ({@link RawFile}). Convergence
  * options are tight (RELTOL 1e-7, VNTOL 1e-10 V, ABSTOL 1e-20 A) so that the simulator's tolerance stays far
