@@ -59,7 +59,11 @@ public final class JunctionExtraction {
         ShuntResistance shuntResult = null;
 
         if (!data.forward().isEmpty()) {
-            ForwardExtraction.Stage st = forward.stage(data.forward(), !data.capacitance().isEmpty());
+            // VJ and M of the recombination factor are the depletion VJ and M: with C-V data the forward stage
+            // starts from the C-V data's values rather than the defaults (the joint fit then refines them)
+            Map<Param, Double> factor = data.capacitance().isEmpty() ? Map.of()
+                    : new CapacitanceExtraction(settings, capacitanceOptions).depletionStart(data.capacitance());
+            ForwardExtraction.Stage st = forward.stage(data.forward(), !data.capacitance().isEmpty(), factor);
             if (settings.selfHeating() == FitSettings.SelfHeatingRemedy.EXCLUDE && st.run().parameters().isGiven(Param.RTH0)) {
                 // the remedy the user chose: leave out the heated points and fit the rest without RTH0
                 DiodeParameters heated = st.run().parameters();
