@@ -658,7 +658,7 @@ public final class ForwardExtraction {
      * kind's usual range ({@link DeviceKind#typicalEmission}), or a recombination term less steep than the main
      * term (NR below N), which means the two exponential terms have traded places.
      */
-    private void plausibility(DiodeParameters p, List<String> warnings) {
+    void plausibility(DiodeParameters p, List<String> warnings) {
         double[] range = settings.kind().typicalEmission();
         for (Param q : List.of(Param.N, Param.NR)) {
             if (!p.isGiven(q) || (q == Param.NR && !p.isGiven(Param.ISR))) {

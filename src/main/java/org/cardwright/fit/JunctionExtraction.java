@@ -51,6 +51,7 @@ public final class JunctionExtraction {
         List<ResidualBlock> blocks = new ArrayList<>();
         List<TermDecision> decisions = new ArrayList<>();
         List<String> warnings = new ArrayList<>();
+        List<String> stagePlausibility = new ArrayList<>();
         Set<Param> free = new LinkedHashSet<>();
         Map<Param, Double> start = new EnumMap<>(Param.class);
         DiodeParameters params;
@@ -95,6 +96,8 @@ public final class JunctionExtraction {
                         r.points(), r.degreesOfFreedom(), r.evaluations(), r.iterations(), r.stopReason(), r.residuals(),
                         r.otherResiduals(), r.terms(), all, r.shunt());
             }
+            // the stage's plausibility warnings judge its own parameters; the final ones are judged again below
+            forward.plausibility(st.run().parameters(), stagePlausibility);
             // a resistor between the terminals (surface leakage, a cell's shunt) is decided like the optional terms
             shunt = ShuntTerm.consider(settings, forward, st, data.forward(), ReverseAnalysis.split(data.reverse()).leakage());
             st = shunt.stage();
@@ -102,6 +105,7 @@ public final class JunctionExtraction {
             decisions.addAll(st.decisions());
             decisions.add(shunt.decision());
             warnings.addAll(st.warnings());
+            warnings.removeAll(stagePlausibility);
             start.putAll(st.start());
             free.addAll(st.run().layout().free());
             params = st.run().parameters();
@@ -245,6 +249,10 @@ public final class JunctionExtraction {
                         "your rule %s had no effect: none of the data given determine %s, so it was not fitted",
                         r.text(), r.param()));
             }
+        }
+        if (!data.forward().isEmpty()) {
+            // judged on the parameters written (after the shunt is taken out and the joint fit), not the stage's
+            forward.plausibility(joint.parameters(), warnings);
         }
         selfHeatingNote(data.forward(), joint.parameters(), warnings);
         FitResult result = ResultAssembly.assemble(settings, blocks, joint, data.forward(), decisions, warnings, start, forward::bounds);
