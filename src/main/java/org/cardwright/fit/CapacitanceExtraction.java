@@ -212,6 +212,37 @@ public final class CapacitanceExtraction {
         return summarise(block, best, byT, decisions, warnings, initial);
     }
 
+    /**
+     * VJ and M at TNOM from the C-V data alone, in closed form ({@link CapacitanceStart}: the reverse-bias points
+     * of the sweep nearest TNOM, carried to TNOM through the TLEVC 0 laws), for the forward stage to start from
+     * before the joint fit: they are the VJ and M of the recombination factor too, and a junction whose forward
+     * voltage exceeds the default VJ of 1 V (a wide-gap junction) is otherwise fitted with a factor of the wrong
+     * shape. Empty when the data cannot give them (too few reverse voltages, a reading not above the stray) or a
+     * user rule sets VJ or M.
+     */
+    Map<Param, Double> depletionStart(List<CapacitancePoint> points) {
+        if (settings.rule(Param.VJ) != null || settings.rule(Param.M) != null) {
+            return Map.of();
+        }
+        try {
+            double stray = options.strayCapacitance();
+            double tnom = settings.nominalTemperature();
+            List<CapacitancePoint> reference = referenceSweep(checkInput(points, stray), tnom);
+            CapacitanceStart.Depletion dep = CapacitanceStart.reverse(reference, stray);
+            double m = clampInto(Param.M, dep.gradingCoefficient());
+            double[] nominal = CapacitanceStart.toNominal(dep.junctionCapacitance(), dep.junctionPotential(), m,
+                    reference.get(0).temperature(), tnom);
+            double vj = clampInto(Param.VJ, nominal[1]);
+            if (!Double.isFinite(vj) || !Double.isFinite(m)) {
+                return Map.of();
+            }
+            return Map.of(Param.VJ, vj, Param.M, m);
+        } catch (FitInputException | IllegalArgumentException | ArithmeticException e) {
+            // the C-V stage itself reports what is wrong with the data
+            return Map.of();
+        }
+    }
+
     // ---------------------------------------------------------------------------------------------------
 
     private Map<Double, List<CapacitancePoint>> checkInput(List<CapacitancePoint> points, double stray)

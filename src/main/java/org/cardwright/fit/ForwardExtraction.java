@@ -94,6 +94,14 @@ public final class ForwardExtraction {
      *                           factor come from them rather than from the forward data alone
      */
     Stage stage(List<FitPoint> points, boolean capacitanceFollows) throws FitInputException {
+        return stage(points, capacitanceFollows, Map.of());
+    }
+
+    /**
+     * Runs the forward stages with some parameters held at values known from other data ({@code held}: VJ and M
+     * of the recombination factor from the C-V data); a user rule for the same parameter wins.
+     */
+    Stage stage(List<FitPoint> points, boolean capacitanceFollows, Map<Param, Double> held) throws FitInputException {
         Map<Double, List<FitPoint>> sweeps = checkInput(points);
         double tnom = settings.nominalTemperature();
         List<String> warnings = new ArrayList<>();
@@ -152,6 +160,11 @@ public final class ForwardExtraction {
                 start.put(r.param(), r.value());
             }
         }
+        held.forEach((p, v) -> {
+            if (settings.rule(p) == null) {
+                start.put(p, v);
+            }
+        });
         // terms the user forced on start from their closed-form values
         List<Param> free = new ArrayList<>();
         for (Param p : List.of(Param.IS, Param.N, Param.RS)) {
@@ -645,7 +658,7 @@ public final class ForwardExtraction {
      * kind's usual range ({@link DeviceKind#typicalEmission}), or a recombination term less steep than the main
      * term (NR below N), which means the two exponential terms have traded places.
      */
-    private void plausibility(DiodeParameters p, List<String> warnings) {
+    void plausibility(DiodeParameters p, List<String> warnings) {
         double[] range = settings.kind().typicalEmission();
         for (Param q : List.of(Param.N, Param.NR)) {
             if (!p.isGiven(q) || (q == Param.NR && !p.isGiven(Param.ISR))) {

@@ -51,6 +51,7 @@ public final class JunctionExtraction {
         List<ResidualBlock> blocks = new ArrayList<>();
         List<TermDecision> decisions = new ArrayList<>();
         List<String> warnings = new ArrayList<>();
+        List<String> stagePlausibility = new ArrayList<>();
         Set<Param> free = new LinkedHashSet<>();
         Map<Param, Double> start = new EnumMap<>(Param.class);
         DiodeParameters params;
@@ -59,7 +60,11 @@ public final class JunctionExtraction {
         ShuntResistance shuntResult = null;
 
         if (!data.forward().isEmpty()) {
-            ForwardExtraction.Stage st = forward.stage(data.forward(), !data.capacitance().isEmpty());
+            // VJ and M of the recombination factor are the depletion VJ and M: with C-V data the forward stage
+            // starts from the C-V data's values rather than the defaults (the joint fit then refines them)
+            Map<Param, Double> factor = data.capacitance().isEmpty() ? Map.of()
+                    : new CapacitanceExtraction(settings, capacitanceOptions).depletionStart(data.capacitance());
+            ForwardExtraction.Stage st = forward.stage(data.forward(), !data.capacitance().isEmpty(), factor);
             if (settings.selfHeating() == FitSettings.SelfHeatingRemedy.EXCLUDE && st.run().parameters().isGiven(Param.RTH0)) {
                 // the remedy the user chose: leave out the heated points and fit the rest without RTH0
                 DiodeParameters heated = st.run().parameters();
@@ -91,6 +96,8 @@ public final class JunctionExtraction {
                         r.points(), r.degreesOfFreedom(), r.evaluations(), r.iterations(), r.stopReason(), r.residuals(),
                         r.otherResiduals(), r.terms(), all, r.shunt());
             }
+            // the stage's plausibility warnings judge its own parameters; the final ones are judged again below
+            forward.plausibility(st.run().parameters(), stagePlausibility);
             // a resistor between the terminals (surface leakage, a cell's shunt) is decided like the optional terms
             shunt = ShuntTerm.consider(settings, forward, st, data.forward(), ReverseAnalysis.split(data.reverse()).leakage());
             st = shunt.stage();
@@ -98,6 +105,7 @@ public final class JunctionExtraction {
             decisions.addAll(st.decisions());
             decisions.add(shunt.decision());
             warnings.addAll(st.warnings());
+            warnings.removeAll(stagePlausibility);
             start.putAll(st.start());
             free.addAll(st.run().layout().free());
             params = st.run().parameters();
@@ -241,6 +249,10 @@ public final class JunctionExtraction {
                         "your rule %s had no effect: none of the data given determine %s, so it was not fitted",
                         r.text(), r.param()));
             }
+        }
+        if (!data.forward().isEmpty()) {
+            // judged on the parameters written (after the shunt is taken out and the joint fit), not the stage's
+            forward.plausibility(joint.parameters(), warnings);
         }
         selfHeatingNote(data.forward(), joint.parameters(), warnings);
         FitResult result = ResultAssembly.assemble(settings, blocks, joint, data.forward(), decisions, warnings, start, forward::bounds);
