@@ -30,6 +30,13 @@ public final class CardComparer {
      * more than NBV Vt ln(1.01), about 0.5 mV at room temperature [1].
      */
     static final double LEAKAGE_NOTE_FRACTION = 0.01;
+    /**
+     * Leakage below the knee beyond this many times the reference current leaves the knee undefined at that current:
+     * between the leakage probe at {@link #LEAKAGE_FRACTION_OF_BV} of BV and the knee, the SPICE reverse law
+     * IS (1 - (3 N Vt/(e |V|))^3) still rises by about IS (3 N Vt/(e BV))^3, some 1e-5 IS for a 3 V junction at
+     * room temperature, which then reaches the reference current itself [1].
+     */
+    static final double UNDEFINED_KNEE_RATIO = 1e4;
     /** Breakdown reference current when neither card has IBV [A]: IBV's ngspice default. */
     private static final double DEFAULT_BREAKDOWN_CURRENT = Param.IBV.defaultValue();
 
@@ -220,7 +227,12 @@ public final class CardComparer {
             double il = -leak.get(k).current();
             leakage[k] = Double.isFinite(il) && il > 0 ? il : 0;
             knee.add(Bias.current(-(iref + leakage[k]), temperatures.get(k)));
-            if (leakage[k] > LEAKAGE_NOTE_FRACTION * iref) {
+            if (leakage[k] > UNDEFINED_KNEE_RATIO * iref) {
+                notes.add(String.format(Locale.ROOT, "breakdown: at %.1f degC card %s leaks %.3g times the reference current "
+                                + "%s A below the knee; at that current no breakdown voltage is defined (give a larger "
+                                + "--breakdown-at)", temperatures.get(k) - org.cardwright.model.Ngspice39.CELSIUS_TO_KELVIN,
+                        which, leakage[k] / iref, SpiceNumbers.format(iref, 4)));
+            } else if (leakage[k] > LEAKAGE_NOTE_FRACTION * iref) {
                 notes.add(String.format(Locale.ROOT, "breakdown: at %.1f degC card %s's reverse current below the knee (%s A "
                                 + "at %s V) is %.3g times the reference current %s A; its breakdown voltage is taken where the "
                                 + "reverse current exceeds that leakage by the reference current",
