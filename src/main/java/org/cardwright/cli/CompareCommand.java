@@ -48,20 +48,20 @@ final class CompareCommand implements Callable<Integer> {
     @Option(names = "--model-b", paramLabel = "NAME", description = "The model name CARD_B must carry (a card file holds one .model).")
     String modelB;
 
-    @Option(names = "--dialect-a", paramLabel = "D", converter = DialectConverter.class,
-            completionCandidates = DialectConverter.Names.class,
+    @Option(names = "--dialect-a", paramLabel = "D", converter = OptionConverters.DialectName.class,
+            completionCandidates = OptionConverters.DialectNames.class,
             description = "Dialect of CARD_A: ${COMPLETION-CANDIDATES} (default: from a NAME.DIALECT.lib file name, else ngspice).")
     Dialect dialectA;
 
-    @Option(names = "--dialect-b", paramLabel = "D", converter = DialectConverter.class,
-            completionCandidates = DialectConverter.Names.class,
+    @Option(names = "--dialect-b", paramLabel = "D", converter = OptionConverters.DialectName.class,
+            completionCandidates = OptionConverters.DialectNames.class,
             description = "Dialect of CARD_B: ${COMPLETION-CANDIDATES} (default: from a NAME.DIALECT.lib file name, else ngspice).")
     Dialect dialectB;
 
     @picocli.CommandLine.Mixin
     SimulatorTimeLimit simulatorTimeLimit = new SimulatorTimeLimit();
 
-    @Option(names = "--engine", paramLabel = "E", defaultValue = "builtin",
+    @Option(names = "--engine", paramLabel = "E", defaultValue = "builtin", converter = OptionConverters.Engine.class,
             description = "Who simulates: ${COMPLETION-CANDIDATES} (default: ${DEFAULT-VALUE}).")
     EngineChoice engine;
 

@@ -113,6 +113,23 @@ class CompareBiasConventionTest {
         assertEquals(ib / ia, ratio, 1e-3 * ratio, "the column is B over A, below 1 here\n" + r.out());
     }
 
+    @Test
+    void engineAndDialectAreEnumTypedOptionsWithTheirNamesInAnyCase() throws Exception {
+        Path a = card("e-a.lib", TIGHT);
+        CliRun ok = CliRun.of("compare", a.toString(), a.toString(), "--temp", "25", "--engine", "BuiltIn", "--dialect-a", "SPICE3");
+        assertEquals(0, ok.exitCode(), ok.describe());
+        CliRun engine = CliRun.of("compare", a.toString(), a.toString(), "--engine", "gnu");
+        assertEquals(ExitCodes.USAGE, engine.exitCode(), engine.describe());
+        assertTrue(engine.err().contains("'gnu'") && engine.err().contains("builtin, ngspice, gnucap"), engine.err());
+        CliRun dialect = CliRun.of("compare", a.toString(), a.toString(), "--dialect-b", "pspice");
+        assertEquals(ExitCodes.USAGE, dialect.exitCode(), dialect.describe());
+        assertTrue(dialect.err().contains("'pspice'") && dialect.err().contains("ngspice, spice3, gnucap, xyce"), dialect.err());
+        // the defaults live in workflow/CompareWorkflow and the help states them
+        CliRun help = CliRun.of("compare", "--help");
+        assertTrue(help.out().contains("(default: 0,1,5,10)") && help.out().contains("(default: 1,5,20)")
+                && help.out().contains("positive magnitude"), help.out());
+    }
+
     /**
      * The leaky card's breakdown voltage from the ngspice 39 level-1 equations as written in the reference notes
      * (IS(T); the breakdown knee loop of section 3 with RELTOL 1e-3; the cubic reverse region and the breakdown branch
