@@ -56,23 +56,23 @@ public record CardComparison(String nameA, String nameB, String engine, List<Par
      * @param voltage     reverse voltage, positive [V]
      * @param a           card A's reverse current, positive [A]
      * @param b           card B's reverse current, positive [A]
-     * @param flagged     true when the ratio exceeds the limit
+     * @param flagged     true when either current exceeds the other by more than the limit's factor
      */
     public record LeakageRow(double temperature, double voltage, double a, double b, boolean flagged) {
-        /** The larger over the smaller current [1]. */
+        /** Card B's current divided by card A's [1]. */
         public double ratio() {
-            return Math.max(a, b) / Math.min(a, b);
+            return b / a;
         }
     }
 
     /**
      * @param temperature device temperature [K]
-     * @param bias        DC bias, anode to cathode [V]
+     * @param reverseVoltage reverse DC voltage, a positive magnitude (0 at zero bias) [V]
      * @param a           card A's capacitance [F]
      * @param b           card B's capacitance [F]
      * @param flagged     true when the relative difference exceeds the limit
      */
-    public record CapacitanceRow(double temperature, double bias, double a, double b, boolean flagged) {
+    public record CapacitanceRow(double temperature, double reverseVoltage, double a, double b, boolean flagged) {
         /** (B - A)/A, with A taken as at least 1 fF so that two cards without capacitance compare as equal [1]. */
         public double relative() {
             return (b - a) / Math.max(Math.abs(a), 1e-15);
@@ -82,7 +82,8 @@ public record CardComparison(String nameA, String nameB, String engine, List<Par
     /**
      * @param temperature device temperature [K]
      * @param current     the reverse reference current, positive [A]
-     * @param a           card A's reverse voltage at that current, positive; NaN when A has no BV [V]
+     * @param a           card A's reverse voltage where its reverse current exceeds its leakage below the knee by
+     *                    {@code current}, positive; NaN when A has no BV [V]
      * @param b           card B's, likewise [V]
      * @param flagged     true when only one card breaks down or the relative difference exceeds the limit
      */

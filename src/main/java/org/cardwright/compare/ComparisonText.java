@@ -1,6 +1,7 @@
 package org.cardwright.compare;
 
 import java.util.Locale;
+import org.cardwright.card.SpiceNumbers;
 import org.cardwright.model.Ngspice39;
 
 /** The comparison as terminal tables; flagged rows end with {@code <- beyond limit}. */
@@ -32,28 +33,30 @@ public final class ComparisonText {
         }
 
         if (!c.leakage().isEmpty()) {
-            sb.append(String.format(Locale.ROOT, "%nLeakage: reverse current at each reverse voltage; limit: a factor of %s%n",
+            sb.append(String.format(Locale.ROOT, "%nLeakage: reverse current at each reverse voltage VR; B/A is B's current "
+                            + "divided by A's; limit: either a factor of %s above the other%n",
                     trim(plan.limits().leakageFactor())));
-            sb.append(String.format(Locale.ROOT, "  %8s %8s %12s %12s %8s%n", "T [degC]", "VR [V]", "A [A]", "B [A]", "ratio"));
+            sb.append(String.format(Locale.ROOT, "  %8s %8s %12s %12s %10s%n", "T [degC]", "VR [V]", "A [A]", "B [A]", "B/A"));
             for (CardComparison.LeakageRow r : c.leakage()) {
-                sb.append(String.format(Locale.ROOT, "  %8s %8s %12.4e %12.4e %8.3f%s%n", celsius(r.temperature()),
+                sb.append(String.format(Locale.ROOT, "  %8s %8s %12.4e %12.4e %10.4g%s%n", celsius(r.temperature()),
                         trim(r.voltage()), r.a(), r.b(), r.ratio(), r.flagged() ? FLAG : ""));
             }
         }
 
         if (!c.capacitance().isEmpty()) {
-            sb.append(String.format(Locale.ROOT, "%nCapacitance at %s Hz (parallel, RS included); limit %s %%%n",
+            sb.append(String.format(Locale.ROOT, "%nCapacitance at each reverse voltage VR, at %s Hz (parallel, RS included); limit %s %%%n",
                     current(plan.frequency()), trim(plan.limits().capacitanceRelative() * 100)));
-            sb.append(String.format(Locale.ROOT, "  %8s %8s %12s %12s %9s%n", "T [degC]", "V [V]", "A [pF]", "B [pF]", "B-A [%]"));
+            sb.append(String.format(Locale.ROOT, "  %8s %8s %12s %12s %9s%n", "T [degC]", "VR [V]", "A [pF]", "B [pF]", "B-A [%]"));
             for (CardComparison.CapacitanceRow r : c.capacitance()) {
                 sb.append(String.format(Locale.ROOT, "  %8s %8s %12.5f %12.5f %9.3f%s%n", celsius(r.temperature()),
-                        trim(r.bias()), r.a() * 1e12, r.b() * 1e12, r.relative() * 100, r.flagged() ? FLAG : ""));
+                        trim(r.reverseVoltage()), r.a() * 1e12, r.b() * 1e12, r.relative() * 100, r.flagged() ? FLAG : ""));
             }
         }
 
         if (!c.breakdown().isEmpty()) {
-            sb.append(String.format(Locale.ROOT, "%nBreakdown: reverse voltage at %s A; limit %s %%%n",
-                    current(c.breakdown().get(0).current()), trim(plan.limits().breakdownRelative() * 100)));
+            sb.append(String.format(Locale.ROOT, "%nBreakdown: reverse voltage where each card's reverse current exceeds its own "
+                            + "leakage below the knee by %s A; limit %s %%%n",
+                    SpiceNumbers.format(c.breakdown().get(0).current(), 4), trim(plan.limits().breakdownRelative() * 100)));
             sb.append(String.format(Locale.ROOT, "  %8s %12s %12s %9s%n", "T [degC]", "A [V]", "B [V]", "B-A [%]"));
             for (CardComparison.BreakdownRow r : c.breakdown()) {
                 sb.append(String.format(Locale.ROOT, "  %8s %12s %12s %9s%s%n", celsius(r.temperature()), volts(r.a()),

@@ -172,8 +172,8 @@ public final class CapacitanceExtraction {
                 f.add(term.param);
                 Optimiser.Run r;
                 try {
-                    r = run(blocks, best.parameters().with(term.param, v0), f);
-                } catch (FitFailedException | IllegalArgumentException | ArithmeticException e) {
+                    r = run(blocks, Optimiser.with(best.parameters(), term.param, v0), f);
+                } catch (FitFailedException e) {
                     // a trial term the data cannot carry (no convergence, parameters leaving the model's domain)
                     lastDelta.put(term, Double.NaN);
                     continue;

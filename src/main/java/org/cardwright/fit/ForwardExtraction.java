@@ -219,8 +219,8 @@ public final class ForwardExtraction {
         ScreenOnce screened = new ScreenOnce();
         Optimiser.Run best;
         try {
-            best = run(blocks, DiodeParameters.of(start), free);
-        } catch (FitFailedException | IllegalArgumentException | ArithmeticException e) {
+            best = run(blocks, Optimiser.parameters(start), free);
+        } catch (FitFailedException e) {
             if (!free.contains(Param.ISR) && !free.contains(Param.NR)) {
                 throw e;
             }
@@ -265,8 +265,8 @@ public final class ForwardExtraction {
                 trialFree.addAll(term.params());
                 Optimiser.Run r;
                 try {
-                    r = run(blocks, DiodeParameters.of(trial), trialFree);
-                } catch (FitFailedException | IllegalArgumentException | ArithmeticException e) {
+                    r = run(blocks, Optimiser.parameters(trial), trialFree);
+                } catch (FitFailedException e) {
                     // a trial term the data cannot carry (no convergence, parameters leaving the model's domain)
                     r = null;
                 }
@@ -326,7 +326,7 @@ public final class ForwardExtraction {
                 Optimiser.Run r;
                 try {
                     r = run(blocks, reduced, without);
-                } catch (FitFailedException | IllegalArgumentException | ArithmeticException e) {
+                } catch (FitFailedException e) {
                     // a trial term the data cannot carry (no convergence, parameters leaving the model's domain)
                     continue;
                 }
@@ -416,8 +416,8 @@ public final class ForwardExtraction {
         }
         Optimiser.Run second;
         try {
-            second = run(blocks, DiodeParameters.of(alt), free);
-        } catch (FitFailedException | IllegalArgumentException | ArithmeticException e) {
+            second = run(blocks, Optimiser.parameters(alt), free);
+        } catch (FitFailedException e) {
             return first;
         }
         return first == null || second.rss() < first.rss() ? second : first;
@@ -464,7 +464,7 @@ public final class ForwardExtraction {
         Optimiser.Run r;
         try {
             r = run(blocks, p, f);
-        } catch (FitFailedException | IllegalArgumentException | ArithmeticException e) {
+        } catch (FitFailedException e) {
             decisions.add(new TermDecision(RECOMBINATION_FACTOR, params, false, Double.NaN,
                     held + "; a fit with them free did not converge"));
             return best;
@@ -537,7 +537,7 @@ public final class ForwardExtraction {
             for (int a = 0; a < m; a++) {
                 removable += hr[a] * z[a];
             }
-        } catch (FitFailedException | IllegalArgumentException | ArithmeticException e) {
+        } catch (org.apache.commons.math3.linear.SingularMatrixException e) {
             removable = best.rss();
         }
         double rss = best.rss();
@@ -606,13 +606,13 @@ public final class ForwardExtraction {
                 continue;
             }
             try {
-                Optimiser.Run r = Optimiser.run(one, DiodeParameters.of(s), local, this::bounds, SCREENING_TOLERANCE);
+                Optimiser.Run r = Optimiser.run(one, Optimiser.parameters(s), local, this::bounds, SCREENING_TOLERANCE);
                 r = inOrder(r, one, local);
                 if (r.rss() < bestRss) {
                     bestRss = r.rss();
                     best = r.parameters();
                 }
-            } catch (FitFailedException | IllegalArgumentException | ArithmeticException e) {
+            } catch (FitFailedException e) {
                 // a start that does not converge is simply not a candidate
             }
         }
@@ -641,7 +641,7 @@ public final class ForwardExtraction {
             if (s.parameters().isGiven(Param.ISR) && s.parameters().get(Param.NR) >= s.parameters().get(Param.N)) {
                 return s;
             }
-        } catch (RuntimeException e) {
+        } catch (FitFailedException e) {
             // the swapped start did not converge: the traded run stays
         }
         return r;

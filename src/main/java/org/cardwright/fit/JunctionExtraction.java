@@ -287,12 +287,12 @@ public final class JunctionExtraction {
         Optimiser.Run best = null;
         for (int k = -IBV_START_DECADES; k <= IBV_START_DECADES; k++) {
             try {
-                Optimiser.Run r = Optimiser.run(List.of(block), held.parameters().with(Param.IBV, chosen * Math.pow(10, k)),
+                Optimiser.Run r = Optimiser.run(List.of(block), Optimiser.with(held.parameters(), Param.IBV, chosen * Math.pow(10, k)),
                         f, forward::bounds);
                 if (best == null || r.rss() < best.rss()) {
                     best = r;
                 }
-            } catch (FitFailedException | IllegalArgumentException | ArithmeticException e) {
+            } catch (FitFailedException e) {
                 // a start that does not converge is not a candidate
             }
         }

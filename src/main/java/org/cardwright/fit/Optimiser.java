@@ -69,6 +69,38 @@ final class Optimiser {
      */
     static Run run(List<ResidualBlock> blocks, DiodeParameters start, List<Param> free,
                    Function<Param, double[]> bounds, double tolerance) {
+        return guarded(() -> unguarded(blocks, start, free, bounds, tolerance));
+    }
+
+    /**
+     * The one place where the model's own domain checks (a parameter or voltage no longer finite, a value the model
+     * refuses) and Commons Math's numerical failures (a singular matrix, an overflow), thrown as
+     * {@link IllegalArgumentException} or {@link ArithmeticException} while a fit evaluates the model, become a
+     * {@link FitFailedException}. The stages catch only that, so a programming error elsewhere in a stage is never
+     * read as "could not be fitted".
+     */
+    static <T> T guarded(java.util.function.Supplier<T> numerics) {
+        try {
+            return numerics.get();
+        } catch (FitFailedException e) {
+            throw e;
+        } catch (IllegalArgumentException | ArithmeticException e) {
+            throw new FitFailedException("the fit broke down: " + e.getMessage());
+        }
+    }
+
+    /** Start values from a map, as a fit failure when the model refuses them (see {@link #guarded}). */
+    static DiodeParameters parameters(java.util.Map<Param, Double> values) {
+        return guarded(() -> DiodeParameters.of(values));
+    }
+
+    /** {@code p} with one value changed, as a fit failure when the model refuses it (see {@link #guarded}). */
+    static DiodeParameters with(DiodeParameters p, Param q, double value) {
+        return guarded(() -> p.with(q, value));
+    }
+
+    private static Run unguarded(List<ResidualBlock> blocks, DiodeParameters start, List<Param> free,
+                                 Function<Param, double[]> bounds, double tolerance) {
         DiodeParameters clamped = clampedStart(start, free, bounds);
         FreeParameters layout = new FreeParameters(clamped, free, FreeParameters.boundsOf(free, bounds));
         JointProblem model = new JointProblem(blocks, layout);

@@ -160,12 +160,14 @@ final class ShuntTerm {
         Joint screen = null;
         for (double start : starts) {
             try {
-                Joint j = fit(shuntBlocks(points, leakage, settings, start), p0, plain.run().layout().free(),
-                        forward::bounds, start, forced ? BOUNDS[1] : SCREEN_REACH / ceiling, SCREEN_TOLERANCE);
+                DiodeParameters p0Now = p0;
+                double reach = forced ? BOUNDS[1] : SCREEN_REACH / ceiling;
+                Joint j = Optimiser.guarded(() -> fit(shuntBlocks(points, leakage, settings, start), p0Now, plain.run().layout().free(),
+                        forward::bounds, start, reach, SCREEN_TOLERANCE));
                 if (screen == null || j.run().rss() < screen.run().rss()) {
                     screen = j;
                 }
-            } catch (FitFailedException | IllegalArgumentException | ArithmeticException e) {
+            } catch (FitFailedException e) {
                 // this start does not converge; the others may
             }
         }
@@ -192,9 +194,10 @@ final class ShuntTerm {
             ForwardExtraction.Stage c = correctedStage(forward, points, g, plain);
             Joint j;
             try {
-                j = fit(shuntBlocks(points, leakage, settings, g), c.run().parameters(), c.run().layout().free(),
-                        forward::bounds, g);
-            } catch (FitFailedException | IllegalArgumentException | ArithmeticException e) {
+                double gNow = g;
+                j = Optimiser.guarded(() -> fit(shuntBlocks(points, leakage, settings, gNow), c.run().parameters(), c.run().layout().free(),
+                        forward::bounds, gNow));
+            } catch (FitFailedException e) {
                 break;
             }
             if (!(forwardBic(j, points, settings) < forwardBic(joint, points, settings))) {
@@ -340,7 +343,7 @@ final class ShuntTerm {
         try {
             ForwardExtraction.Stage s = forward.stage(kept);
             return s.run().parameters().isGiven(Param.RTH0) ? plain : s;
-        } catch (FitInputException | FitFailedException | IllegalArgumentException | ArithmeticException e) {
+        } catch (FitInputException | FitFailedException e) {
             return plain;
         }
     }

@@ -30,7 +30,8 @@ public final class HtmlReport {
     private static final String RECOVERY_ID = "recovery";
     private static final String LEAKAGE_ID = "leakage";
 
-    private static final String STYLE = String.join("\n",
+    /** The page's style sheet, shared with the comparison page. */
+    static final String STYLE = String.join("\n",
             "body{margin:0;background:#eceae4;color:#23272b;font:15px/1.5 system-ui,sans-serif}",
             "main{max-width:1000px;margin:0 auto;padding:26px 32px 36px;background:#fdfdfb;"
                     + "border-left:1px solid #d6d3c9;border-right:1px solid #d6d3c9}",

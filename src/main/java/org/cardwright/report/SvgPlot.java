@@ -93,11 +93,22 @@ final class SvgPlot {
      * @param shape   marker shape
      * @param markers measured points
      * @param line    points joined in the given order, each {x, y}; a point with NaN breaks the line; may be empty
+     * @param style   an extra CSS class of the series' group (e.g. a dashed second card); empty for none. A series with
+     *                an empty name has no legend entry (a second line of a temperature already in the legend).
      */
-    record Series(String name, String key, String colour, Shape shape, List<Marker> markers, List<double[]> line) {
+    record Series(String name, String key, String colour, Shape shape, List<Marker> markers, List<double[]> line,
+                  String style) {
         Series {
             markers = List.copyOf(markers);
             line = List.copyOf(line);
+            if (!style.matches("[a-z-]*")) {
+                throw new IllegalArgumentException("a series style is a CSS class name, got '" + style + "'");
+            }
+        }
+
+        /** A series in the plain style. */
+        Series(String name, String key, String colour, Shape shape, List<Marker> markers, List<double[]> line) {
+            this(name, key, colour, shape, markers, line, "");
         }
     }
 
@@ -231,7 +242,7 @@ final class SvgPlot {
         }
         sb.append("</g>\n");
         for (Series s : series) {
-            sb.append("<g class=\"series\" data-series=\"").append(Markup.escape(s.key())).append("\" stroke=\"")
+            sb.append("<g class=\"series").append(s.style().isEmpty() ? "" : " " + s.style()).append("\" data-series=\"").append(Markup.escape(s.key())).append("\" stroke=\"")
                     .append(s.colour()).append("\">\n").append(clip);
             // a point the axes cannot place (NaN, or not positive on a log axis) breaks the line in two
             StringBuilder points = new StringBuilder();
@@ -264,6 +275,9 @@ final class SvgPlot {
         sb.append("<g class=\"legend\">");
         double row = TOP + 10;
         for (Series s : series) {
+            if (s.name().isEmpty()) {
+                continue;
+            }
             sb.append("<g stroke=\"").append(s.colour()).append("\">");
             if (!s.line().isEmpty()) {
                 sb.append(line(left, row, left + 22, row, null));

@@ -195,9 +195,7 @@ public final class FitWorkflow {
      * The points of every kind, with their uncertainties, for the extraction.
      *
      * <p>A stated or derived uncertainty of a point becomes the uncertainty of its voltage residual at the
-     * measured current, r = V - Vmodel(I): sigma_r^2 = sigma_V^2 + (s sigma_I/I)^2 - 2 rho sigma_V s sigma_I/I,
-     * where s = dV/d(ln I) is the local slope of the measured sweep (first-order propagation, JCGM 100:2008
-     * "Guide to the expression of uncertainty in measurement", section 5; citation recalled). Without a stated
+     * measured current, propagated in fit/ ({@link org.cardwright.fit.PointUncertainty}). Without a stated
      * voltage uncertainty the default below stands in.
      */
     public static ExtractionData extractionData(Inputs inputs) {
@@ -230,45 +228,22 @@ public final class FitWorkflow {
         return new ExtractionData(forward, reverse, cv, recovery);
     }
 
-    /** sigma of the voltage residual at the measured current (see {@link #extractionData}) [V]. */
+    /** sigma of the voltage residual at the measured current, propagated by {@link org.cardwright.fit.PointUncertainty} [V]. */
     static double residualSigma(IvPoint p, double slope, double defaultVoltageSigma) {
-        double sv = p.hasVoltageSigma() ? p.voltageSigma() : defaultVoltageSigma;
-        if (!p.hasCurrentSigma() || !Double.isFinite(slope)) {
-            return sv;
-        }
-        double si = Math.abs(slope) * p.currentSigma() / Math.abs(p.current());
-        double var = sv * sv + si * si - 2 * p.voltageCurrentCorrelation() * sv * si * Math.signum(slope);
-        return Math.sqrt(Math.max(var, 0.01 * sv * sv));
+        return org.cardwright.fit.PointUncertainty.residualSigma(p.hasVoltageSigma() ? p.voltageSigma() : Double.NaN,
+                p.current(), p.hasCurrentSigma() ? p.currentSigma() : Double.NaN, p.voltageCurrentCorrelation(), slope,
+                defaultVoltageSigma);
     }
 
-    /**
-     * Local dV/d(ln |I|) of each point within its file and sweep, by differences to its neighbours in
-     * current [V]; NaN where a sweep has fewer than two points.
-     */
+    /** Local dV/d(ln |I|) of each point within its file and sweep ({@link org.cardwright.fit.PointUncertainty#slopes}) [V]. */
     static double[] slopes(List<Inputs.Located> pts) {
-        double[] out = new double[pts.size()];
-        java.util.Arrays.fill(out, Double.NaN);
-        java.util.Map<String, List<Integer>> groups = new java.util.HashMap<>();
-        String[] keys = Inputs.sweepKeys(pts);
+        double[] currents = new double[pts.size()];
+        double[] voltages = new double[pts.size()];
         for (int i = 0; i < pts.size(); i++) {
-            groups.computeIfAbsent(keys[i], k -> new ArrayList<>()).add(i);
+            currents[i] = pts.get(i).point().current();
+            voltages[i] = pts.get(i).point().voltage();
         }
-        for (List<Integer> g : groups.values()) {
-            g.sort(java.util.Comparator.comparingDouble(i -> Math.abs(pts.get(i).point().current())));
-            for (int k = 0; k < g.size(); k++) {
-                int a = g.get(Math.max(0, k - 1));
-                int b = g.get(Math.min(g.size() - 1, k + 1));
-                if (a == b) {
-                    continue;
-                }
-                double dl = Math.log(Math.abs(pts.get(b).point().current() / pts.get(a).point().current()));
-                double dv = pts.get(b).point().voltage() - pts.get(a).point().voltage();
-                if (dl != 0) {
-                    out[g.get(k)] = dv / dl;
-                }
-            }
-        }
-        return out;
+        return org.cardwright.fit.PointUncertainty.slopes(currents, voltages, Inputs.sweepKeys(pts));
     }
 
     private static double defaultOf(DiodeParameters p, Param q) {

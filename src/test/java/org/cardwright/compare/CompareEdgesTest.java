@@ -17,7 +17,7 @@ class CompareEdgesTest {
     void cardsWithoutCapacitanceAndWithDefaultsCompareAsEqual() throws Exception {
         ParsedCard a = new CardReader().parse(".model A D(IS=1e-14 TT=5n TNOM=27)\n", "a.lib", Dialect.NGSPICE);
         ParsedCard b = new CardReader().parse(".model B D(IS=1e-14)\n", "b.lib", Dialect.NGSPICE);
-        ComparisonPlan plan = new ComparisonPlan(List.of(300.15), 1e-9, 1e-1, List.of(1.0), List.of(0.0, -1.0, -5.0),
+        ComparisonPlan plan = new ComparisonPlan(List.of(300.15), 1e-9, 1e-1, List.of(1.0), List.of(0.0, 1.0, 5.0),
                 ComparisonPlan.DEFAULT_FREQUENCY, new ComparisonLimits(5e-3, 2, 0.1, 0.02));
         CardComparison c = new CardComparer(new BuiltinEngine(SimulatorOptions.NGSPICE_DEFAULTS),
                 new BuiltinCapacitance(SimulatorOptions.NGSPICE_DEFAULTS)).compare(a, "a.lib", b, "b.lib", plan);

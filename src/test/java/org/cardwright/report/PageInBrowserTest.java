@@ -59,8 +59,15 @@ class PageInBrowserTest {
             + "var p=document.createElement('pre');p.id='probe';p.textContent=out.join(';');document.body.appendChild(p);"
             + "})();</script>";
 
-    /** A kind of page; {@code card} null for the page {@code fit --html} writes for the card it fits. */
-    private record Kind(String name, String card, List<String> data, List<String> plots, List<String> sections) {
+    /**
+     * A kind of page; {@code card} null for the page {@code fit --html} writes for the card it fits; {@code cardB}
+     * given for the page {@code compare --html} writes (both cards overlaid on the data).
+     */
+    private record Kind(String name, String card, List<String> data, List<String> plots, List<String> sections,
+                        String cardB) {
+        Kind(String name, String card, List<String> data, List<String> plots, List<String> sections) {
+            this(name, card, data, plots, sections, null);
+        }
     }
 
     @Test
@@ -88,11 +95,21 @@ class PageInBrowserTest {
                         List.of("forward-curve", "forward-residuals", "leakage-curve"), List.of("forward", "leakage")),
                 new Kind("fit", null,
                         List.of("ks1-forward-minus40C.csv", "ks1-forward-25C.csv", "ks1-forward-85C.csv", "ks1-forward-125C.csv"),
-                        List.of("forward-curve", "forward-residuals"), List.of("forward")));
+                        List.of("forward-curve", "forward-residuals"), List.of("forward")),
+                new Kind("compare", demo + "ksz6-generating-card.lib",
+                        List.of("ksz6-forward-minus20C.csv", "ksz6-forward-25C.csv", "ksz6-forward-85C.csv",
+                                "ksz6-reverse-minus20C.csv", "ksz6-reverse-25C.csv", "ksz6-reverse-85C.csv",
+                                "ksz6-cv-25C.csv", "ksz6-cv-85C.csv", "ksz6-recovery-25C.csv"),
+                        List.of("forward-curve", "forward-residuals", "breakdown-curve", "breakdown-residuals",
+                                "capacitance-curve", "capacitance-residuals", "recovery-curve", "leakage-curve"),
+                        List.of("forward", "breakdown", "capacitance", "recovery", "leakage"),
+                        "fixtures/compare/ksz6-variant.lib"));
         List<String> problems = new ArrayList<>();
         for (Kind kind : kinds) {
             Path page = work.resolve(kind.name() + ".html");
             List<String> args = new ArrayList<>(kind.card() == null ? List.of("fit")
+                    : kind.cardB() != null ? List.of("compare", project.resolve(kind.card()).toString(),
+                            project.resolve(kind.cardB()).toString(), "--data")
                     : List.of("verify", project.resolve(kind.card()).toString()));
             kind.data().forEach(f -> args.add(project.resolve(demo + f).toString()));
             if (kind.card() == null) {
@@ -100,7 +117,7 @@ class PageInBrowserTest {
             }
             args.addAll(List.of("--html", page.toString()));
             int code = run(args);
-            assertTrue(code == 0 || code == 1, kind.name() + ": verify exits 0 or 1 (a verdict), got " + code);
+            assertTrue(code == 0 || code == 1, kind.name() + ": the command exits 0 or 1 (a verdict), got " + code);
             String html = Files.readString(page, StandardCharsets.UTF_8);
             Files.copy(page, screens.resolve(kind.name() + ".html"), java.nio.file.StandardCopyOption.REPLACE_EXISTING);
             Path probe = work.resolve(kind.name() + ".probe.html");
@@ -156,6 +173,20 @@ class PageInBrowserTest {
             assertTrue(files.contains(digest), where + ": SHA-256 of " + f);
         }
         String command = between(dom, "<section id=\"command\">", "</section>", where);
+        if (kind.cardB() != null) {
+            // the overlay: every curve carries card A (solid) and card B (dashed) for every temperature it plots
+            for (String plot : kind.plots()) {
+                String svg = between(dom, "id=\"" + plot + "\"", "</svg>", where);
+                assertEquals(count(svg, "class=\"series\""), count(svg, "class=\"series card-b\""),
+                        where + ": " + plot + " has a card B line for each card A line");
+                assertTrue(count(svg, "class=\"series card-b\"") > 0, where + ": " + plot + " has card B's lines");
+            }
+            assertTrue(between(dom, "<section id=\"side-by-side\">", "</section>", where).contains("B/A"),
+                    where + ": the side-by-side tables");
+            assertTrue(command.contains("cardwright compare ") && command.contains(kind.cardB()) && command.contains("--html "),
+                    where + ": the command, " + command);
+            return;
+        }
         assertTrue(command.contains(kind.card() == null ? "cardwright fit " : "cardwright verify ")
                 && command.contains(kind.card() == null ? "--name KS1" : kind.card()) && command.contains("--html "),
                 where + ": the command, " + command);
