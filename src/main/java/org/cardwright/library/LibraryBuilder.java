@@ -247,8 +247,19 @@ public final class LibraryBuilder {
         if (!edited.isEmpty()) {
             msg.append("; replaced hand-edited ").append(String.join(" ", edited));
         }
+        // every card, every data kind: what it reproduces and what not (the rule check uses)
+        for (PartFitter.Card c : fitted.cards()) {
+            c.checked().ifPresent(v -> {
+                String failing = KindVerdicts.failing(v);
+                msg.append("; ").append(c.dialect().shortName()).append(": ")
+                        .append(failing.isEmpty() ? "every kind passes (worst RMS: " : "FAILS " + failing + " (worst RMS: ")
+                        .append(KindVerdicts.of(v).stream().map(k -> k.kind() + " " + KindVerdicts.number(k.rms()) + " " + k.unit())
+                                .collect(java.util.stream.Collectors.joining(", ")))
+                        .append(')');
+            });
+        }
         return new PartOutcome(name, part.model(), PartOutcome.Status.BUILT, msg.toString(), written, unchanged,
-                seconds(start), fitted.notes());
+                seconds(start), fitted.notes(), fitted.warnings());
     }
 
     /** True when every card has exactly one recorded hash (no build was interrupted) and it is the card's. */

@@ -23,8 +23,10 @@ import org.cardwright.workflow.VerifyWorkflow;
 /**
  * Checks a library for CI: every card of every part is re-simulated at every measured point of every data kind its
  * part has ({@link VerifyWorkflow#runAll}: forward I-V against the part's forward tolerances, breakdown, C-V,
- * recovery and leakage against verify's limits), each kind judged as verify judges it (by default against the data's
- * own uncertainty, {@link VerdictBasis}). A card fails when any kind fails. A card whose dialect the engine does not
+ * recovery and leakage against verify's limits), each kind judged as verify judges it: against the data's own
+ * uncertainty ({@link VerdictBasis#NOISE}), except for a part whose device file sets its own limits (has a
+ * {@code tolerance} block), which is judged by those fixed limits; {@link #verdict} sets one basis for every
+ * part. A card fails when any kind fails. A card whose dialect the engine does not
  * speak ({@link Engines#speaks}) is not run and reported not checkable. A card whose part's recipe no longer matches
  * the build record is reported stale: it was built from other inputs than those in the tree.
  */
@@ -32,7 +34,7 @@ public final class LibraryCheck {
     private final String engine;
     private final boolean allowStale;
     private boolean allowOutsideRoot;
-    private VerdictBasis verdict = VerdictBasis.NOISE;
+    private Optional<VerdictBasis> verdict = Optional.empty();
 
     /**
      * @param engine     engine name for the re-simulation (builtin, ngspice)
@@ -53,10 +55,20 @@ public final class LibraryCheck {
         this.allowOutsideRoot = allowOutsideRoot;
     }
 
-    /** Judges each kind by {@code basis} from now on (the default: the data's own uncertainty); returns this check. */
-    public LibraryCheck verdict(VerdictBasis basis) {
+    /**
+     * Judges every part's kinds by {@code basis} from now on (empty: each part by its own rule, see the class comment);
+     * returns this check.
+     */
+    public LibraryCheck verdict(Optional<VerdictBasis> basis) {
         this.verdict = java.util.Objects.requireNonNull(basis, "basis");
         return this;
+    }
+
+    /** The basis a part is judged by: the one asked for, else its device file's limits when it sets any, else the noise. */
+    static VerdictBasis basis(DeviceFile part, Optional<VerdictBasis> asked) {
+        // DeviceFileReader gives a part without a tolerance block the DEFAULT instance itself: a block, even one that
+        // repeats the defaults, is the team's choice of fixed engineering limits
+        return asked.orElse(part.tolerances() == PartTolerances.DEFAULT ? VerdictBasis.NOISE : VerdictBasis.FIXED);
     }
 
     /** Checks every card under {@code root}, one part after the other; {@code progress} receives one line per card. */
@@ -158,7 +170,7 @@ public final class LibraryCheck {
             VerifyRequest request = new VerifyRequest(card, inputs.paths(), engine, Optional.of(part.model()), d,
                     inputs.temperature(), part.tolerances().forward(), Optional.empty(), false,
                     org.cardwright.fit.CapacitanceOptions.DEFAULT, org.cardwright.workflow.FitRequest.BenchOptions.DEFAULT,
-                    verdict);
+                    basis(part, verdict));
             all = new VerifyWorkflow().runAll(request, x -> "");
         } catch (DataFileException | SimulationException | OutputException | CardFormatException | IOException
                  | IllegalArgumentException e) {
