@@ -118,6 +118,19 @@ public final class FitWorkflow {
                                 Double.NEGATIVE_INFINITY, Double.POSITIVE_INFINITY));
                     }
                 }
+                // nor may the refit bring in a term the full fit weighed and rejected (TRS1 "not warranted", say):
+                // the card would then carry what the data were judged not to support
+                for (org.cardwright.fit.TermDecision t : full.terms()) {
+                    if (t.included()) {
+                        continue;
+                    }
+                    for (Param p : t.params()) {
+                        if (!full.parameters().isGiven(p) && p != Param.TNOM) {
+                            rules.add(new ParameterRule(p, ParameterRule.Kind.OFF, Double.NaN,
+                                    Double.NEGATIVE_INFINITY, Double.POSITIVE_INFINITY));
+                        }
+                    }
+                }
                 // the card is fitted with the equations of the simulator that will read it
                 FitSettings target = settings.withRules(rules).withOptions(
                         new org.cardwright.model.SimulatorOptions(settings.options().gmin(), settings.options().reltol(), d.flavour()))

@@ -23,6 +23,7 @@ class CheckEveryKindTest {
     private static final List<String> KINDS = List.of("forward", "breakdown", "C-V", "recovery", "leakage");
 
     private static Path root;
+    private static CliRun build;
 
     @BeforeAll
     static void buildTheLibrary() throws Exception {
@@ -39,8 +40,28 @@ class CheckEveryKindTest {
         Files.writeString(root.resolve("z/Z6.device.yaml"), "# invented test part (the demo zener's data)\n"
                 + "model: Z6\nkind: zener\ndata:\n" + entries + "dialects: [ngspice, spice3, gnucap, xyce]\n",
                 StandardCharsets.UTF_8);
-        CliRun build = CliRun.of("build", root.toString());
+        build = CliRun.of("build", root.toString());
         assertEquals(ExitCodes.OK, build.exitCode(), build.describe());
+    }
+
+    @Test
+    void buildAndTheCardHeaderStateEveryKindAndTheFitsWarnings() throws Exception {
+        String line = build.out().lines().filter(l -> l.contains("z/Z6.device.yaml (Z6): built")).findFirst().orElseThrow();
+        assertTrue(line.contains("; ngspice: every kind passes (worst RMS: forward "), line);
+        assertTrue(line.matches(".*; spice3: FAILS [a-z, -]*breakdown.*"), line);
+        for (String kind : KINDS) {
+            assertTrue(line.contains(kind + " "), kind + " in " + line);
+        }
+        // the fit's warnings reach the user for every part, without --notes
+        assertTrue(build.out().lines().anyMatch(l -> l.startsWith("warning: z/Z6.device.yaml: ")), build.out());
+        String card = Files.readString(root.resolve("z/Z6.spice3.lib"), StandardCharsets.UTF_8);
+        assertTrue(card.contains("* verdict: breakdown FAIL at "), card);
+        for (String kind : KINDS) {
+            assertTrue(card.contains("* verdict: " + kind + " "), kind + " in\n" + card);
+        }
+        // what leaving out ISR, NR, NBV, TCV costs, kind by kind
+        assertTrue(card.lines().anyMatch(l -> l.startsWith("* spice3 cannot carry ") && l.contains("breakdown ")
+                && l.contains("with every term")), card);
     }
 
     @Test
@@ -60,7 +81,7 @@ class CheckEveryKindTest {
         String ngspice = r.out().lines().filter(l -> l.startsWith("z/Z6.ngspice.lib: ")).findFirst().orElseThrow();
         assertTrue(ngspice.startsWith("z/Z6.ngspice.lib: pass: "), ngspice);
         // the table has a row per card and kind
-        long rows = r.out().lines().filter(l -> l.matches(".*\\s(forward|breakdown|C-V|recovery|leakage)\\s+(pass|FAIL)\\s.*")).count();
+        long rows = r.out().lines().filter(l -> l.matches(".*\\s(forward|breakdown|C-V|recovery|leakage)\\s+(pass|FAIL)\\s+-?[0-9]+\\s.*")).count();
         assertEquals(4 * KINDS.size(), rows, r.out());
     }
 
