@@ -31,7 +31,7 @@ public final class CheckReport {
         int width = Math.max(4, checks.stream().mapToInt(c -> c.card().length()).max().orElse(4));
         String row = "%-" + width + "s  %-13s  %-9s  %-7s  %8s  %9s  %9s  %-4s  %s%n";
         sb.append(String.format(Locale.ROOT, row, "card", "result", "kind", "verdict", "T [degC]", "RMS", "max", "unit",
-                "limits RMS/max; against the data's uncertainty"));
+                "fixed limits RMS/max; the residuals against the data's uncertainty"));
         for (CardCheck c : checks) {
             String result = c.status().name().toLowerCase(Locale.ROOT).replace('_', ' ');
             List<KindVerdicts.Kind> kinds = c.all().map(KindVerdicts::of).orElse(List.of());

@@ -179,7 +179,8 @@ public final class LibraryCheck {
         }
         boolean edited = state.isPresent() && !state.get().wrote(card.getFileName().toString(), Hashes.sha256(card));
         Optional<Verification> v = all.forward();
-        String worst = KindVerdicts.summary(all);
+        String worst = KindVerdicts.summary(all) + (basis(part, verdict) == VerdictBasis.NOISE
+                ? "; judged against the data's own uncertainty" : "; judged by the fixed limits");
         if (!all.pass()) {
             return new CardCheck(name, part.model(), cardName, CardCheck.Status.FAIL,
                     "does not reproduce its " + KindVerdicts.failing(all) + " data: " + worst
