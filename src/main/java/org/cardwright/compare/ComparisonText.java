@@ -1,7 +1,6 @@
 package org.cardwright.compare;
 
 import java.util.Locale;
-import org.cardwright.model.Ngspice39;
 
 /** The comparison as terminal tables; flagged rows end with {@code <- beyond limit}. */
 public final class ComparisonText {
@@ -77,7 +76,7 @@ public final class ComparisonText {
     }
 
     private static String celsius(double kelvin) {
-        return String.format(Locale.ROOT, "%.1f", kelvin - Ngspice39.CELSIUS_TO_KELVIN);
+        return org.cardwright.model.Celsius.oneDecimal(kelvin);
     }
 
     private static String current(double a) {

@@ -1,5 +1,6 @@
 package org.cardwright.library;
 
+import org.cardwright.data.Sha256;
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -177,7 +178,7 @@ public final class LibraryCheck {
             return new CardCheck(name, part.model(), cardName, CardCheck.Status.ERROR,
                     inputs.displayName(String.valueOf(e.getMessage())), Optional.empty(), seconds(t0));
         }
-        boolean edited = state.isPresent() && !state.get().wrote(card.getFileName().toString(), Hashes.sha256(card));
+        boolean edited = state.isPresent() && !state.get().wrote(card.getFileName().toString(), Sha256.hex(card));
         Optional<Verification> v = all.forward();
         String worst = KindVerdicts.summary(all) + (basis(part, verdict) == VerdictBasis.NOISE
                 ? "; judged against the data's own uncertainty" : "; judged by the fixed limits");

@@ -1,5 +1,6 @@
 package org.cardwright.library;
 
+import org.cardwright.data.Sha256;
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -115,10 +116,10 @@ final class PartFitter {
             List<Card> cards = new ArrayList<>();
             for (FitOutcome.WrittenCard w : outcome.cards()) {
                 FitResult forCard = w.refit().orElse(outcome.fit());
-                List<String> lines = extraLines;
+                List<String> lines = new ArrayList<>(extraLines);
+                lines.addAll(FitWorkflow.introducedTerms(outcome.fit(), forCard, w.dialect()));
                 if (w.shunted().isPresent()) {
                     // the plain card is the junction alone; its header says so and what that costs, as fit's does
-                    lines = new ArrayList<>(extraLines);
                     w.text().lines().filter(l -> l.startsWith("* junction alone: ")).map(l -> l.substring(2)).forEach(lines::add);
                 }
                 Card plain = checkedRender(part, root, recipe, part.rules(), w.dialect(), forCard.parameters(),
@@ -255,7 +256,7 @@ final class PartFitter {
             if (!s.kind().readable()) {
                 sb.append("; not read by this version");
             }
-            sb.append(") sha256 ").append(Hashes.sha256(s.resolve(part.folder())));
+            sb.append(") sha256 ").append(Sha256.hex(s.resolve(part.folder())));
             lines.add(sb.toString());
         }
         if (!rules.isEmpty()) {

@@ -118,19 +118,6 @@ public final class FitWorkflow {
                                 Double.NEGATIVE_INFINITY, Double.POSITIVE_INFINITY));
                     }
                 }
-                // nor may the refit bring in a term the full fit weighed and rejected (TRS1 "not warranted", say):
-                // the card would then carry what the data were judged not to support
-                for (org.cardwright.fit.TermDecision t : full.terms()) {
-                    if (t.included()) {
-                        continue;
-                    }
-                    for (Param p : t.params()) {
-                        if (!full.parameters().isGiven(p) && p != Param.TNOM) {
-                            rules.add(new ParameterRule(p, ParameterRule.Kind.OFF, Double.NaN,
-                                    Double.NEGATIVE_INFINITY, Double.POSITIVE_INFINITY));
-                        }
-                    }
-                }
                 // the card is fitted with the equations of the simulator that will read it
                 FitSettings target = settings.withRules(rules).withOptions(
                         new org.cardwright.model.SimulatorOptions(settings.options().gmin(), settings.options().reltol(), d.flavour()))
@@ -140,6 +127,7 @@ public final class FitWorkflow {
                 refit = Optional.of(forCard);
             }
             List<String> provenance = provenance(request, inputs, full, forCard, d, leftOut);
+            provenance.addAll(provenance.size() - 1, introducedTerms(full, forCard, d));
             if (forCard.shunt().isPresent()) {
                 // the plain card is the junction alone: say so, and what leaving the resistor out costs
                 provenance.add(provenance.size() - 1, ShuntOutput.costLine(request, d, forCard, data));
@@ -252,6 +240,33 @@ public final class FitWorkflow {
         double si = Math.abs(slope) * p.currentSigma() / Math.abs(p.current());
         double var = sv * sv + si * si - 2 * p.voltageCurrentCorrelation() * sv * si * Math.signum(slope);
         return Math.sqrt(Math.max(var, 0.01 * sv * sv));
+    }
+
+    /**
+     * Lines that name every term a dialect's refit brings onto its card although the full fit weighed and rejected
+     * it (TRS1 "not warranted", say), with the refit's own reason: with the dialect's equations the term may follow
+     * the data where the ngspice equations did not need it, but the card must say so. Empty when there is none.
+     */
+    public static List<String> introducedTerms(FitResult full, FitResult refit, Dialect d) {
+        List<String> out = new ArrayList<>();
+        for (org.cardwright.fit.TermDecision t : full.terms()) {
+            if (t.included()) {
+                continue;
+            }
+            List<Param> brought = t.params().stream()
+                    .filter(p -> p != Param.TNOM && !full.parameters().isGiven(p) && refit.parameters().isGiven(p)
+                            && d.carries(p))
+                    .toList();
+            if (brought.isEmpty()) {
+                continue;
+            }
+            String why = refit.terms().stream().filter(r -> r.included() && r.term().equals(t.term()))
+                    .map(org.cardwright.fit.TermDecision::reason).findFirst().orElse("");
+            out.add(d.shortName() + " refit brings in " + brought.stream().map(d::keyword).collect(Collectors.joining(" "))
+                    + " (" + t.term() + "), which the full fit rejected (" + t.reason() + ")"
+                    + (why.isEmpty() ? "" : "; with " + d.flavour().label() + "'s equations: " + why));
+        }
+        return out;
     }
 
     /**
@@ -371,7 +386,7 @@ public final class FitWorkflow {
     }
 
     private static String temperatures(FitResult r) {
-        return r.residuals().stream().map(s -> String.format(Locale.ROOT, "%.1f", s.temperature() - org.cardwright.model.Ngspice39.CELSIUS_TO_KELVIN))
+        return r.residuals().stream().map(s -> org.cardwright.model.Celsius.oneDecimal(s.temperature()))
                 .collect(Collectors.joining(", "));
     }
 }
