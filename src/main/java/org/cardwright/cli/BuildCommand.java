@@ -59,6 +59,9 @@ final class BuildCommand implements Callable<Integer> {
         } finally {
             progress.close();
         }
+        for (PartOutcome p : parts) {
+            p.warnings().forEach(w -> out.println("warning: " + p.device() + ": " + w));
+        }
         if (notes) {
             for (PartOutcome p : parts) {
                 p.notes().forEach(n -> out.println("note: " + p.device() + ": " + n));

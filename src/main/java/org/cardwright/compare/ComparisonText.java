@@ -80,7 +80,7 @@ public final class ComparisonText {
     }
 
     private static String celsius(double kelvin) {
-        return String.format(Locale.ROOT, "%.1f", kelvin - Ngspice39.CELSIUS_TO_KELVIN);
+        return org.cardwright.model.Celsius.oneDecimal(kelvin);
     }
 
     private static String current(double a) {

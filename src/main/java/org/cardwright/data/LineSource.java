@@ -15,7 +15,6 @@ import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
 import java.nio.file.attribute.BasicFileAttributes;
 import java.security.MessageDigest;
-import java.security.NoSuchAlgorithmException;
 import java.util.HexFormat;
 import java.util.Locale;
 
@@ -230,15 +229,11 @@ final class LineSource implements Closeable {
     }
 
     private static MessageDigest newDigest() {
-        try {
-            return MessageDigest.getInstance("SHA-256");
-        } catch (NoSuchAlgorithmException e) {
-            throw new IllegalStateException("every Java platform must provide SHA-256", e);
-        }
+        return Sha256.digest();
     }
 
     /** SHA-256 of the bytes, lower-case hex. */
     static String sha256(byte[] bytes) {
-        return HexFormat.of().formatHex(newDigest().digest(bytes));
+        return Sha256.hex(bytes);
     }
 }

@@ -16,49 +16,43 @@ import org.cardwright.verify.TemperatureVerdict;
  * one {@code testcase} per card with {@code classname}, {@code name}, {@code time}; {@code failure} or
  * {@code error} children with {@code message} and {@code type}). One test case per card: the class name is the
  * device file's path with dots, the name is the card's file name. FAIL, STALE and MISSING are failures; ERROR is
- * an error.
+ * an error; NOT_CHECKABLE (the engine does not speak the card's dialect) is skipped.
  */
 public final class CheckReport {
     private CheckReport() {
     }
 
-    /** The summary table, one row per card, and a closing count. */
+    /**
+     * The summary table: one row per card and data kind (the kind's worst temperature), then a closing count. A card
+     * that was not run has one row with its result alone.
+     */
     public static String table(List<CardCheck> checks) {
         StringBuilder sb = new StringBuilder();
         int width = Math.max(4, checks.stream().mapToInt(c -> c.card().length()).max().orElse(4));
-        sb.append(String.format(Locale.ROOT, "%-" + width + "s  %-7s  %8s  %8s  %8s  %s%n", "card", "result", "T [degC]",
-                "RMS [mV]", "max [mV]", "limits RMS/max [mV]"));
+        String row = "%-" + width + "s  %-13s  %-9s  %-7s  %8s  %9s  %9s  %-4s  %s%n";
+        sb.append(String.format(Locale.ROOT, row, "card", "result", "kind", "verdict", "T [degC]", "RMS", "max", "unit",
+                "fixed limits RMS/max; the residuals against the data's uncertainty"));
         for (CardCheck c : checks) {
-            String t = "";
-            String rms = "";
-            String max = "";
-            String limits = "";
-            if (c.verification().isPresent()) {
-                TemperatureVerdict w = worstVerdict(c);
-                if (w != null) {
-                    t = DeviceFile.celsiusText(w.temperature());
-                    rms = PartFitter.mv(w.rms());
-                    max = PartFitter.mv(w.max());
-                }
-                limits = PartFitter.mv(c.verification().get().tolerance().rms()) + "/"
-                        + PartFitter.mv(c.verification().get().tolerance().max());
+            String result = c.status().name().toLowerCase(Locale.ROOT).replace('_', ' ');
+            List<KindVerdicts.Kind> kinds = c.all().map(KindVerdicts::of).orElse(List.of());
+            if (kinds.isEmpty()) {
+                sb.append(String.format(Locale.ROOT, row, c.card(), result, "", "", "", "", "", "", ""));
             }
-            sb.append(String.format(Locale.ROOT, "%-" + width + "s  %-7s  %8s  %8s  %8s  %s%n", c.card(),
-                    c.status().name().toLowerCase(Locale.ROOT), t, rms, max, limits));
+            for (int i = 0; i < kinds.size(); i++) {
+                KindVerdicts.Kind k = kinds.get(i);
+                String first = i == 0 ? c.card() : "";
+                String limits = k.limits() + (k.noise().isEmpty() ? "" : "; " + k.noise());
+                sb.append(String.format(Locale.ROOT, row, first, i == 0 ? result : "",
+                        k.kind(), k.pass() ? "pass" : "FAIL", DeviceFile.celsiusText(k.temperature()),
+                        KindVerdicts.number(k.rms()), KindVerdicts.number(k.max()), k.unit(), limits));
+            }
         }
         long passed = checks.stream().filter(CardCheck::passed).count();
-        sb.append(String.format(Locale.ROOT, "%d cards: %d passed, %d not%n", checks.size(), passed, checks.size() - passed));
+        long notCheckable = checks.stream().filter(CardCheck::notCheckable).count();
+        sb.append(String.format(Locale.ROOT, "%d cards: %d passed, %d not%s%n", checks.size(), passed,
+                checks.size() - passed - notCheckable,
+                notCheckable == 0 ? "" : ", " + notCheckable + " not checkable with this engine"));
         return sb.toString();
-    }
-
-    private static TemperatureVerdict worstVerdict(CardCheck c) {
-        TemperatureVerdict w = null;
-        for (TemperatureVerdict t : c.verification().get().perTemperature()) {
-            if (w == null || (!t.pass() && w.pass()) || (t.pass() == w.pass() && t.rms() > w.rms())) {
-                w = t;
-            }
-        }
-        return w;
     }
 
     /** The JUnit XML report; {@code suiteName} names the check, e.g. {@code cardwright check models}. */
@@ -66,6 +60,7 @@ public final class CheckReport {
         long failures = checks.stream().filter(c -> c.status() == CardCheck.Status.FAIL
                 || c.status() == CardCheck.Status.STALE || c.status() == CardCheck.Status.MISSING).count();
         long errors = checks.stream().filter(c -> c.status() == CardCheck.Status.ERROR).count();
+        long skipped = checks.stream().filter(CardCheck::notCheckable).count();
         double total = checks.stream().mapToDouble(CardCheck::seconds).sum();
         StringWriter out = new StringWriter();
         try {
@@ -77,7 +72,7 @@ public final class CheckReport {
             x.writeAttribute("tests", Integer.toString(checks.size()));
             x.writeAttribute("failures", Long.toString(failures));
             x.writeAttribute("errors", Long.toString(errors));
-            x.writeAttribute("skipped", "0");
+            x.writeAttribute("skipped", Long.toString(skipped));
             x.writeAttribute("time", seconds(total));
             x.writeCharacters("\n");
             for (CardCheck c : checks) {
@@ -86,7 +81,13 @@ public final class CheckReport {
                 x.writeAttribute("classname", className(c.device()));
                 x.writeAttribute("name", fileName(c.card()));
                 x.writeAttribute("time", seconds(c.seconds()));
-                if (c.status() != CardCheck.Status.PASS) {
+                if (c.notCheckable()) {
+                    x.writeCharacters("\n    ");
+                    x.writeStartElement("skipped");
+                    x.writeAttribute("message", c.message());
+                    x.writeEndElement();
+                    x.writeCharacters("\n  ");
+                } else if (c.status() != CardCheck.Status.PASS) {
                     x.writeCharacters("\n    ");
                     x.writeStartElement(c.status() == CardCheck.Status.ERROR ? "error" : "failure");
                     x.writeAttribute("message", c.message());
@@ -114,9 +115,10 @@ public final class CheckReport {
 
     private static String details(CardCheck c) {
         StringBuilder sb = new StringBuilder(c.card()).append(": ").append(c.message()).append('\n');
+        c.all().ifPresent(all -> KindVerdicts.of(all).forEach(k -> sb.append(k.text()).append('\n')));
         c.verification().ifPresent(v -> {
             for (TemperatureVerdict t : v.perTemperature()) {
-                sb.append(String.format(Locale.ROOT, "%s degC: %d points, RMS %s mV, max %s mV at %s, %s%n",
+                sb.append(String.format(Locale.ROOT, "forward at %s degC: %d points, RMS %s mV, max %s mV at %s, %s%n",
                         DeviceFile.celsiusText(t.temperature()), t.points(), PartFitter.mv(t.rms()), PartFitter.mv(t.max()),
                         t.worstSource(), t.pass() ? "pass" : "FAIL"));
             }

@@ -2,7 +2,6 @@ package org.cardwright.library;
 
 import java.nio.file.Path;
 import java.util.List;
-import java.util.Locale;
 import java.util.Map;
 import java.util.Objects;
 import java.util.Optional;
@@ -11,7 +10,6 @@ import org.cardwright.card.Dialect;
 import org.cardwright.card.ModelCard;
 import org.cardwright.fit.DeviceKind;
 import org.cardwright.fit.ParameterRule;
-import org.cardwright.model.Ngspice39;
 
 /**
  * One part of a model library, as its device file describes it.
@@ -112,9 +110,6 @@ public record DeviceFile(Path path, String model, DeviceKind kind, List<DataSour
 
     /** Kelvin as degrees C for canonical text: shortest exact decimal of the Celsius value. */
     static String celsiusText(double kelvin) {
-        double c = kelvin - Ngspice39.CELSIUS_TO_KELVIN;
-        double rounded = Math.round(c * 1e9) / 1e9;
-        return new java.math.BigDecimal(Double.toString(rounded)).stripTrailingZeros().toPlainString()
-                .toLowerCase(Locale.ROOT);
+        return org.cardwright.model.Celsius.shortest(kelvin);
     }
 }

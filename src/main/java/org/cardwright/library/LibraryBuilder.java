@@ -1,5 +1,6 @@
 package org.cardwright.library;
 
+import org.cardwright.data.Sha256;
 import java.io.IOException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
@@ -154,7 +155,7 @@ public final class LibraryBuilder {
                     missing = true;
                     continue;
                 }
-                String hash = Hashes.sha256(card);
+                String hash = Sha256.hex(card);
                 if (state.isEmpty() || !state.get().wrote(card.getFileName().toString(), hash)) {
                     edited.add(LibraryPaths.display(root, card));
                 }
@@ -195,12 +196,12 @@ public final class LibraryBuilder {
         List<String> unchanged = new ArrayList<>();
         for (PartFitter.Card c : fitted.cards()) {
             String file = c.file().getFileName().toString();
-            String hash = Hashes.sha256(c.text());
+            String hash = Sha256.hex(c.text());
             finalCards.put(file, Set.of(hash));
             Set<String> pending = new LinkedHashSet<>();
             pending.add(hash);
             if (Files.exists(c.file())) {
-                String onDisk = Hashes.sha256(c.file());
+                String onDisk = Sha256.hex(c.file());
                 if (onDisk.equals(hash)) {
                     unchanged.add(LibraryPaths.display(root, c.file()));
                 } else {
@@ -247,8 +248,19 @@ public final class LibraryBuilder {
         if (!edited.isEmpty()) {
             msg.append("; replaced hand-edited ").append(String.join(" ", edited));
         }
+        // every card, every data kind: what it reproduces and what not (the rule check uses)
+        for (PartFitter.Card c : fitted.cards()) {
+            c.checked().ifPresent(v -> {
+                String failing = KindVerdicts.failing(v);
+                msg.append("; ").append(c.dialect().shortName()).append(": ")
+                        .append(failing.isEmpty() ? "every kind passes (worst RMS: " : "FAILS " + failing + " (worst RMS: ")
+                        .append(KindVerdicts.of(v).stream().map(k -> k.kind() + " " + KindVerdicts.number(k.rms()) + " " + k.unit())
+                                .collect(java.util.stream.Collectors.joining(", ")))
+                        .append(')');
+            });
+        }
         return new PartOutcome(name, part.model(), PartOutcome.Status.BUILT, msg.toString(), written, unchanged,
-                seconds(start), fitted.notes());
+                seconds(start), fitted.notes(), fitted.warnings());
     }
 
     /** True when every card has exactly one recorded hash (no build was interrupted) and it is the card's. */
@@ -256,7 +268,7 @@ public final class LibraryBuilder {
         for (Dialect d : part.dialects()) {
             Path card = part.cardPath(d);
             Set<String> hashes = state.cards().getOrDefault(card.getFileName().toString(), Set.of());
-            if (hashes.size() != 1 || !hashes.contains(Hashes.sha256(card))) {
+            if (hashes.size() != 1 || !hashes.contains(Sha256.hex(card))) {
                 return false;
             }
         }

@@ -1,5 +1,6 @@
 package org.cardwright.library;
 
+import org.cardwright.data.Sha256;
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -12,21 +13,29 @@ import org.cardwright.card.CardFormatException;
 import org.cardwright.card.Dialect;
 import org.cardwright.data.DataFileException;
 import org.cardwright.sim.process.SimulationException;
-import org.cardwright.verify.TemperatureVerdict;
+import org.cardwright.verify.JunctionVerification;
+import org.cardwright.verify.VerdictBasis;
 import org.cardwright.verify.Verification;
+import org.cardwright.workflow.Engines;
 import org.cardwright.workflow.OutputException;
 import org.cardwright.workflow.VerifyRequest;
 import org.cardwright.workflow.VerifyWorkflow;
 
 /**
- * Checks a library for CI: every card of every part is re-simulated at its part's measured points
- * ({@link VerifyWorkflow}) and held to the part's forward tolerances. A card whose part's recipe no longer matches
+ * Checks a library for CI: every card of every part is re-simulated at every measured point of every data kind its
+ * part has ({@link VerifyWorkflow#runAll}: forward I-V against the part's forward tolerances, breakdown, C-V,
+ * recovery and leakage against verify's limits), each kind judged as verify judges it: against the data's own
+ * uncertainty ({@link VerdictBasis#NOISE}), except for a part whose device file sets its own limits (has a
+ * {@code tolerance} block), which is judged by those fixed limits; {@link #verdict} sets one basis for every
+ * part. A card fails when any kind fails. A card whose dialect the engine does not
+ * speak ({@link Engines#speaks}) is not run and reported not checkable. A card whose part's recipe no longer matches
  * the build record is reported stale: it was built from other inputs than those in the tree.
  */
 public final class LibraryCheck {
     private final String engine;
     private final boolean allowStale;
     private boolean allowOutsideRoot;
+    private Optional<VerdictBasis> verdict = Optional.empty();
 
     /**
      * @param engine     engine name for the re-simulation (builtin, ngspice)
@@ -45,6 +54,22 @@ public final class LibraryCheck {
     public LibraryCheck(String engine, boolean allowStale, boolean allowOutsideRoot) {
         this(engine, allowStale);
         this.allowOutsideRoot = allowOutsideRoot;
+    }
+
+    /**
+     * Judges every part's kinds by {@code basis} from now on (empty: each part by its own rule, see the class comment);
+     * returns this check.
+     */
+    public LibraryCheck verdict(Optional<VerdictBasis> basis) {
+        this.verdict = java.util.Objects.requireNonNull(basis, "basis");
+        return this;
+    }
+
+    /** The basis a part is judged by: the one asked for, else its device file's limits when it sets any, else the noise. */
+    static VerdictBasis basis(DeviceFile part, Optional<VerdictBasis> asked) {
+        // DeviceFileReader gives a part without a tolerance block the DEFAULT instance itself: a block, even one that
+        // repeats the defaults, is the team's choice of fixed engineering limits
+        return asked.orElse(part.tolerances() == PartTolerances.DEFAULT ? VerdictBasis.NOISE : VerdictBasis.FIXED);
     }
 
     /** Checks every card under {@code root}, one part after the other; {@code progress} receives one line per card. */
@@ -122,6 +147,14 @@ public final class LibraryCheck {
                             "no card; run cardwright build", Optional.empty(), seconds(t0)));
                     continue;
                 }
+                if (!Engines.speaks(engine, d)) {
+                    out.add(new CardCheck(name, part.model(), cardName, CardCheck.Status.NOT_CHECKABLE,
+                            "with " + engine + ": " + engine + " does not read " + d.shortName()
+                                    + " cards as " + d.simulator() + " does; check it with --engine builtin"
+                                    + (d == Dialect.GNUCAP ? " or --engine gnucap" : ""),
+                            Optional.empty(), seconds(t0)));
+                    continue;
+                }
                 out.add(checkCard(part, d, card, cardName, name, inputs, stale, state, t0));
             }
         } catch (IOException e) {
@@ -133,48 +166,37 @@ public final class LibraryCheck {
 
     private CardCheck checkCard(DeviceFile part, Dialect d, Path card, String cardName, String name,
                                 StagedInputs inputs, boolean stale, Optional<BuildState> state, long t0) throws IOException {
-        Verification v;
+        JunctionVerification all;
         try {
             VerifyRequest request = new VerifyRequest(card, inputs.paths(), engine, Optional.of(part.model()), d,
-                    inputs.temperature(), part.tolerances().forward(), Optional.empty(), false);
-            v = new VerifyWorkflow().run(request, x -> "");
+                    inputs.temperature(), part.tolerances().forward(), Optional.empty(), false,
+                    org.cardwright.fit.CapacitanceOptions.DEFAULT, org.cardwright.workflow.FitRequest.BenchOptions.DEFAULT,
+                    basis(part, verdict));
+            all = new VerifyWorkflow().runAll(request, x -> "");
         } catch (DataFileException | SimulationException | OutputException | CardFormatException | IOException
                  | IllegalArgumentException e) {
             return new CardCheck(name, part.model(), cardName, CardCheck.Status.ERROR,
                     inputs.displayName(String.valueOf(e.getMessage())), Optional.empty(), seconds(t0));
         }
-        boolean edited = state.isPresent() && !state.get().wrote(card.getFileName().toString(), Hashes.sha256(card));
-        String worst = worst(v);
-        if (!v.pass()) {
+        boolean edited = state.isPresent() && !state.get().wrote(card.getFileName().toString(), Sha256.hex(card));
+        Optional<Verification> v = all.forward();
+        String worst = KindVerdicts.summary(all) + (basis(part, verdict) == VerdictBasis.NOISE
+                ? "; judged against the data's own uncertainty" : "; judged by the fixed limits");
+        if (!all.pass()) {
             return new CardCheck(name, part.model(), cardName, CardCheck.Status.FAIL,
-                    "does not reproduce its data: " + worst + (edited ? " (the card was edited by hand)" : ""),
-                    Optional.of(v), seconds(t0));
+                    "does not reproduce its " + KindVerdicts.failing(all) + " data: " + worst
+                            + (edited ? " (the card was edited by hand)" : ""),
+                    v, seconds(t0), Optional.of(all));
         }
         if (stale && !allowStale) {
             return new CardCheck(name, part.model(), cardName, CardCheck.Status.STALE,
                     "reproduces its data (" + worst + ") but " + (state.isEmpty() ? "has no build record"
                             : "the device file, data or templates changed since it was built") + "; run cardwright build",
-                    Optional.of(v), seconds(t0));
+                    v, seconds(t0), Optional.of(all));
         }
         return new CardCheck(name, part.model(), cardName, CardCheck.Status.PASS,
                 worst + (edited ? "; edited by hand since it was built" : "") + (stale ? "; stale (allowed)" : ""),
-                Optional.of(v), seconds(t0));
-    }
-
-    /** The worst temperature of a verification, in words. */
-    static String worst(Verification v) {
-        TemperatureVerdict w = null;
-        for (TemperatureVerdict t : v.perTemperature()) {
-            if (w == null || (!t.pass() && w.pass()) || (t.pass() == w.pass() && t.rms() > w.rms())) {
-                w = t;
-            }
-        }
-        if (w == null) {
-            return "no points";
-        }
-        return String.format(Locale.ROOT, "worst at %s degC: RMS %s mV, max %s mV (limits %s, %s mV)",
-                DeviceFile.celsiusText(w.temperature()), PartFitter.mv(w.rms()), PartFitter.mv(w.max()),
-                PartFitter.mv(v.tolerance().rms()), PartFitter.mv(v.tolerance().max()));
+                v, seconds(t0), Optional.of(all));
     }
 
     private static double seconds(long start) {

@@ -1,5 +1,6 @@
 package org.cardwright.library;
 
+import org.cardwright.data.Sha256;
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -67,10 +68,12 @@ final class PartFitter {
      * @param parameters the parameters it carries [SI]
      * @param residuals  its residuals per temperature
      * @param leftOut    fitted parameters the dialect cannot carry
-     * @param leftOutCost worst RMS of the full fit, when terms were left out [V]; NaN otherwise
+     * @param leftOutCost what leaving them out costs, kind by kind ({@link FitResult#costAgainst}); "" when none
+     * @param checked    the card re-simulated at every point of every data kind (built-in engine, the verdict rule of
+     *                   check), when it was
      */
     record Card(Dialect dialect, Path file, String text, DiodeParameters parameters, List<Residual> residuals,
-                List<Param> leftOut, double leftOutCost) {
+                List<Param> leftOut, String leftOutCost, Optional<org.cardwright.verify.JunctionVerification> checked) {
     }
 
     /**
@@ -80,8 +83,12 @@ final class PartFitter {
      * @param full   the full fit
      * @param points points fitted, every data kind
      * @param notes  what the fit set aside or changed, names relative to the library root
+     * @param warnings the fit's warnings (non-identifiable parameters, correlations, no breakdown reached, ...)
      */
-    record Fitted(List<Card> cards, FitResult full, int points, List<String> notes) {
+    record Fitted(List<Card> cards, FitResult full, int points, List<String> notes, List<String> warnings) {
+        Fitted(List<Card> cards, FitResult full, int points, List<String> notes) {
+            this(cards, full, points, notes, full.warnings());
+        }
     }
 
     /** Fits {@code part} with extra rules (after the device file's, so they win); {@code extraLines} go on the cards. */
@@ -109,36 +116,86 @@ final class PartFitter {
             List<Card> cards = new ArrayList<>();
             for (FitOutcome.WrittenCard w : outcome.cards()) {
                 FitResult forCard = w.refit().orElse(outcome.fit());
-                List<String> lines = extraLines;
+                List<String> lines = new ArrayList<>(extraLines);
+                lines.addAll(FitWorkflow.introducedTerms(outcome.fit(), forCard, w.dialect()));
                 if (w.shunted().isPresent()) {
                     // the plain card is the junction alone; its header says so and what that costs, as fit's does
-                    lines = new ArrayList<>(extraLines);
                     w.text().lines().filter(l -> l.startsWith("* junction alone: ")).map(l -> l.substring(2)).forEach(lines::add);
                 }
-                Card plain = render(part, recipe, part.rules(), w.dialect(), forCard.parameters(), outcome.fit().points(),
-                        Residual.of(forCard), w.leftOut(), w.leftOut().isEmpty() ? Double.NaN : outcome.fit().worstRms(),
-                        lines);
+                Card plain = checkedRender(part, root, recipe, part.rules(), w.dialect(), forCard.parameters(),
+                        outcome.fit().points(), Residual.of(forCard), w.leftOut(),
+                        w.leftOut().isEmpty() ? "" : forCard.costAgainst(outcome.fit()), lines);
                 cards.add(plain);
                 if (w.shunted().isPresent() && forCard.shunt().isPresent()) {
                     cards.add(shunted(part, plain, forCard.shunt().get()));
                 }
             }
             List<String> notes = outcome.inputs().notes().stream().map(inputs::displayName).toList();
-            return new Fitted(List.copyOf(cards), outcome.fit(), outcome.fit().points(), notes);
+            List<String> warnings = outcome.fit().warnings().stream().map(inputs::displayName).toList();
+            return new Fitted(List.copyOf(cards), outcome.fit(), outcome.fit().points(), notes, warnings);
         } finally {
             deleteTree(scratch);
         }
     }
 
-    /** Renders one card of {@code part} with its provenance. */
+    /** Renders one card of {@code part} with its provenance (no check of every data kind in its header). */
     static Card render(DeviceFile part, Recipe recipe, List<ParameterRule> rules, Dialect dialect, DiodeParameters parameters,
-                       int points, List<Residual> residuals, List<Param> leftOut, double leftOutCost, List<String> extraLines)
+                       int points, List<Residual> residuals, List<Param> leftOut, String leftOutCost, List<String> extraLines)
             throws IOException {
+        return render(part, recipe, rules, dialect, parameters, points, residuals, leftOut, leftOutCost, extraLines,
+                Optional.empty());
+    }
+
+    private static Card render(DeviceFile part, Recipe recipe, List<ParameterRule> rules, Dialect dialect,
+                               DiodeParameters parameters, int points, List<Residual> residuals, List<Param> leftOut,
+                               String leftOutCost, List<String> extraLines,
+                               Optional<org.cardwright.verify.JunctionVerification> checked) throws IOException {
+        List<String> lines = new ArrayList<>(extraLines);
+        checked.ifPresent(v -> KindVerdicts.of(v).forEach(k -> lines.add("verdict: " + k.text())));
         ModelCard card = new ModelCard(part.model(), parameters,
-                provenance(part, recipe, rules, dialect, points, residuals, leftOut, leftOutCost, extraLines));
+                provenance(part, recipe, rules, dialect, points, residuals, leftOut, leftOutCost, lines));
         String text = new CardWriter(templates(part)).render(card, dialect, part.digits()).text();
         return new Card(dialect, part.cardPath(dialect), text, parameters, List.copyOf(residuals), List.copyOf(leftOut),
-                leftOutCost);
+                leftOutCost, checked);
+    }
+
+    /**
+     * Renders one card of {@code part}, re-simulates it at every point of every data kind of the part (the built-in
+     * engine in the card's own equations, judged by the rule check uses: {@link LibraryCheck#basis}), and renders it
+     * again with one header line per kind, so that the card states what it reproduces and what not.
+     */
+    static Card checkedRender(DeviceFile part, Path root, Recipe recipe, List<ParameterRule> rules, Dialect dialect,
+                              DiodeParameters parameters, int points, List<Residual> residuals, List<Param> leftOut,
+                              String leftOutCost, List<String> extraLines)
+            throws DeviceFileException, LibraryInputException, IOException {
+        Card first = render(part, recipe, rules, dialect, parameters, points, residuals, leftOut, leftOutCost, extraLines);
+        org.cardwright.verify.JunctionVerification v = check(part, root, dialect, first.text());
+        return render(part, recipe, rules, dialect, parameters, points, residuals, leftOut, leftOutCost, extraLines,
+                Optional.of(v));
+    }
+
+    /** {@code text}, a card of {@code part} in {@code dialect}, re-simulated by the built-in engine at every data kind. */
+    static org.cardwright.verify.JunctionVerification check(DeviceFile part, Path root, Dialect dialect, String text)
+            throws DeviceFileException, LibraryInputException, IOException {
+        Path scratch = Files.createTempDirectory("cardwright-card-");
+        try (StagedInputs inputs = StagedInputs.of(part, root)) {
+            Path card = scratch.resolve(part.cardPath(dialect).getFileName());
+            Files.writeString(card, text, java.nio.charset.StandardCharsets.UTF_8);
+            org.cardwright.workflow.VerifyRequest request = new org.cardwright.workflow.VerifyRequest(card, inputs.paths(),
+                    "builtin", Optional.of(part.model()), dialect, inputs.temperature(), part.tolerances().forward(),
+                    Optional.empty(), false, org.cardwright.fit.CapacitanceOptions.DEFAULT, FitRequest.BenchOptions.DEFAULT,
+                    LibraryCheck.basis(part, Optional.empty()));
+            try {
+                return new org.cardwright.workflow.VerifyWorkflow().runAll(request, x -> "");
+            } catch (DataFileException e) {
+                throw new LibraryInputException(inputs.displayName(e.getMessage()), e);
+            } catch (org.cardwright.sim.process.SimulationException | OutputException e) {
+                // the built-in engine runs no process and the request writes no file
+                throw new IllegalStateException("the check of the card just written failed: " + e.getMessage(), e);
+            }
+        } finally {
+            deleteTree(scratch);
+        }
     }
 
     /**
@@ -161,7 +218,7 @@ final class PartFitter {
         }
         String text = ShuntedCard.render(part.model(), plain.text(), resistor.resistance(), header, part.digits());
         return new Card(plain.dialect(), part.cardFolder().resolve(ShuntedCard.fileName(part.model(), plain.dialect())),
-                text, plain.parameters(), plain.residuals(), plain.leftOut(), plain.leftOutCost());
+                text, plain.parameters(), plain.residuals(), plain.leftOut(), plain.leftOutCost(), Optional.empty());
     }
 
     private static Optional<Path> templates(DeviceFile part) {
@@ -186,7 +243,7 @@ final class PartFitter {
     }
 
     private static List<String> provenance(DeviceFile part, Recipe recipe, List<ParameterRule> rules, Dialect dialect,
-                                           int points, List<Residual> residuals, List<Param> leftOut, double leftOutCost,
+                                           int points, List<Residual> residuals, List<Param> leftOut, String leftOutCost,
                                            List<String> extraLines) throws IOException {
         List<String> lines = new ArrayList<>();
         lines.add("model " + part.model() + ": junction diode for " + dialect.simulator() + ", written by cardwright "
@@ -199,7 +256,7 @@ final class PartFitter {
             if (!s.kind().readable()) {
                 sb.append("; not read by this version");
             }
-            sb.append(") sha256 ").append(Hashes.sha256(s.resolve(part.folder())));
+            sb.append(") sha256 ").append(Sha256.hex(s.resolve(part.folder())));
             lines.add(sb.toString());
         }
         if (!rules.isEmpty()) {
@@ -213,9 +270,9 @@ final class PartFitter {
                     DeviceFile.celsiusText(r.temperature()), mv(r.rms()), mv(r.max()), r.points()));
         }
         if (!leftOut.isEmpty()) {
-            lines.add(String.format(Locale.ROOT, "%s cannot carry %s: refitted without; worst RMS residual %s mV instead of %s mV",
+            lines.add(String.format(Locale.ROOT, "%s cannot carry %s: refitted without; worst RMS residual %s",
                     dialect.shortName(), leftOut.stream().map(Param::keyword).collect(Collectors.joining(" ")),
-                    mv(Residual.worstRms(residuals)), mv(leftOutCost)));
+                    leftOutCost));
         }
         lines.add("recipe sha256 " + recipe.sha256());
         lines.add("check: cardwright check <library root>");

@@ -13,9 +13,18 @@ import java.util.List;
  * @param unchanged cards whose text came out the same and were left untouched (library-relative)
  * @param seconds   time spent on the part [s]
  * @param notes     what the fit set aside or changed
+ * @param warnings  the fit's warnings (non-identifiable parameters, strong correlations, no breakdown reached, leakage
+ *                  beyond the card, ...), shown for every part built
  */
 public record PartOutcome(String device, String model, Status status, String message, List<String> written,
-                          List<String> unchanged, double seconds, List<String> notes) {
+                          List<String> unchanged, double seconds, List<String> notes, List<String> warnings) {
+
+    /** An outcome without fit warnings. */
+    public PartOutcome(String device, String model, Status status, String message, List<String> written,
+                       List<String> unchanged, double seconds, List<String> notes) {
+        this(device, model, status, message, written, unchanged, seconds, notes, List.of());
+    }
+
     /** What happened to a part. */
     public enum Status {
         /** Recipe and cards as recorded: nothing fitted, nothing written. */
@@ -36,6 +45,7 @@ public record PartOutcome(String device, String model, Status status, String mes
         written = List.copyOf(written);
         unchanged = List.copyOf(unchanged);
         notes = List.copyOf(notes);
+        warnings = List.copyOf(warnings);
     }
 
     /** True when the part is in order after the build. */

@@ -1,5 +1,6 @@
 package org.cardwright.library;
 
+import org.cardwright.data.Sha256;
 import java.io.IOException;
 import java.io.InputStream;
 import java.nio.file.Files;
@@ -36,13 +37,13 @@ public record Recipe(String text, String sha256) {
             if (!Files.isRegularFile(p)) {
                 throw new DeviceFileException(part.path(), s.line(), "data file not found: " + org.cardwright.card.Excerpts.quoted(s.file()));
             }
-            sb.append("data-sha256 ").append(s.file()).append(' ').append(Hashes.sha256(p)).append('\n');
+            sb.append("data-sha256 ").append(s.file()).append(' ').append(Sha256.hex(p)).append('\n');
         }
         for (Dialect d : part.dialects()) {
-            sb.append("template ").append(d.shortName()).append(' ').append(Hashes.sha256(templateBytes(part, d))).append('\n');
+            sb.append("template ").append(d.shortName()).append(' ').append(Sha256.hex(templateBytes(part, d))).append('\n');
         }
         String text = sb.toString();
-        return new Recipe(text, Hashes.sha256(text));
+        return new Recipe(text, Sha256.hex(text));
     }
 
     /** The template the card writer will use for {@code d}: the part's template folder first, then the bundled one. */

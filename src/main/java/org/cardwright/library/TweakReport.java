@@ -26,9 +26,29 @@ public record TweakReport(String model, String tweak, String parameter, String f
 
     /**
      * @param dialect the card's dialect
-     * @param rows    one per temperature
+     * @param rows    one per temperature (forward I-V)
+     * @param kinds   one per data kind of the part (forward, breakdown, C-V, recovery, leakage), at its worst temperature
      */
-    public record CardCost(String dialect, List<Row> rows) {
+    public record CardCost(String dialect, List<Row> rows, List<KindCost> kinds) {
+        /** A cost without the data kinds. */
+        public CardCost(String dialect, List<Row> rows) {
+            this(dialect, rows, List.of());
+        }
+    }
+
+    /**
+     * What the tweak costs one data kind of one card: the worst temperature's RMS residual and the verdict (the rule
+     * check uses), before and after.
+     *
+     * @param kind       "forward", "breakdown", "C-V", "recovery" or "leakage"
+     * @param unit       the residuals' unit: mV, %, ns or dec
+     * @param rmsBefore  worst RMS residual without the tweak, in {@code unit}
+     * @param rmsAfter   with it
+     * @param passBefore verdict without the tweak
+     * @param passAfter  with it
+     */
+    public record KindCost(String kind, String unit, double rmsBefore, double rmsAfter, boolean passBefore,
+                           boolean passAfter) {
     }
 
     /**
@@ -91,7 +111,16 @@ public record TweakReport(String model, String tweak, String parameter, String f
                         .orElseThrow(() -> new IllegalStateException("temperature lost in the tweak"));
                 rows.add(new Row(b.temperature(), b.points(), b.rms(), a.rms(), b.max(), a.max()));
             }
-            costs.add(new CardCost(before.dialect().shortName(), rows));
+            List<KindCost> kinds = new ArrayList<>();
+            if (before.checked().isPresent() && after.checked().isPresent()) {
+                List<KindVerdicts.Kind> b = KindVerdicts.of(before.checked().get());
+                List<KindVerdicts.Kind> a = KindVerdicts.of(after.checked().get());
+                for (KindVerdicts.Kind k : b) {
+                    a.stream().filter(x -> x.kind().equals(k.kind())).findFirst().ifPresent(x ->
+                            kinds.add(new KindCost(k.kind(), k.unit(), k.rms(), x.rms(), k.pass(), x.pass())));
+                }
+            }
+            costs.add(new CardCost(before.dialect().shortName(), rows, kinds));
         }
         List<Path> written = new ArrayList<>();
         if (out.isPresent()) {
@@ -125,8 +154,18 @@ public record TweakReport(String model, String tweak, String parameter, String f
                         PartFitter.mv(r.rmsAfter()), PartFitter.mv(r.maxBefore()), PartFitter.mv(r.maxAfter()),
                         (r.rmsAfter() - r.rmsBefore()) * 1e3));
             }
+            sb.append("  (all in mV)\n");
+            if (!c.kinds().isEmpty()) {
+                sb.append("  every data kind, worst temperature (verdict by the rule of cardwright check):\n");
+                sb.append(String.format(Locale.ROOT, "  %-9s %10s %10s %-4s  %s%n", "kind", "RMS before", "RMS after", "unit",
+                        "verdict before -> after"));
+                for (KindCost k : c.kinds()) {
+                    sb.append(String.format(Locale.ROOT, "  %-9s %10s %10s %-4s  %s -> %s%n", k.kind(),
+                            KindVerdicts.number(k.rmsBefore()), KindVerdicts.number(k.rmsAfter()), k.unit(),
+                            k.passBefore() ? "pass" : "FAIL", k.passAfter() ? "pass" : "FAIL"));
+                }
+            }
         }
-        sb.append("(all in mV)\n");
         notes.forEach(n -> sb.append("note: ").append(n).append('\n'));
         written.forEach(w -> sb.append("wrote ").append(w.toString().replace('\\', '/')).append('\n'));
         return sb.toString();

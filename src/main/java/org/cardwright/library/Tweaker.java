@@ -24,7 +24,13 @@ import org.cardwright.workflow.OutputException;
 /**
  * Applies a {@link Tweak} to a part: fits it as the device file says, sets the one parameter, then either fits the
  * others again with it held, or renders the cards again with only that value changed. Reports what the tweak costs
- * in residuals per temperature, card by card.
+ * in residuals per temperature, card by card, and for every data kind.
+ *
+ * <p>The rules: a tweak changes a value the fitted card states; it adds no term. A parameter the fit left off the
+ * card (ISR, IKF, a temperature coefficient, ... whose default then applies) is refused, with a message that names it
+ * and says how to add it (a rule in the device file, then build). Every dialect of the part that carries the parameter
+ * takes the tweak; a dialect that cannot carry it keeps its untweaked card, and the report and that card's header say
+ * so. A refit keeps the base fit's set of terms.
  */
 final class Tweaker {
 
@@ -55,6 +61,13 @@ final class Tweaker {
     Result apply(DeviceFile part, Path root, Recipe recipe, Tweak tweak)
             throws DeviceFileException, LibraryInputException, FitInputException, OutputException, IOException {
         PartFitter.Fitted base = new PartFitter().fit(part, root, recipe, List.of(), List.of());
+        if (!base.full().parameters().isGiven(tweak.param())) {
+            String k = tweak.param().keyword();
+            throw new org.cardwright.failure.UsageException("tweak " + tweak.text() + " refused: the fit of "
+                    + part.model() + " (" + part.path().getFileName() + ") left " + k + " off the card, and a tweak "
+                    + "changes a value the card states, it adds no term; to add " + k + ", put a rule in the device file "
+                    + "(rules: - " + k + "=VALUE to fix it, or " + k + "=free to let the fit decide) and run cardwright build");
+        }
         double fitted = base.full().parameters().get(tweak.param());
         double value = tweak.apply(fitted);
         try {
@@ -75,23 +88,47 @@ final class Tweaker {
                 }
             }
             PartFitter.Fitted refitted = new PartFitter().fit(part, root, recipe, rules, List.of(line));
-            return new Result(base, refitted, tweak, fitted, value, notes);
+            List<PartFitter.Card> cards = new ArrayList<>();
+            for (int i = 0; i < refitted.cards().size(); i++) {
+                PartFitter.Card c = refitted.cards().get(i);
+                cards.add(c.dialect().carries(tweak.param()) ? c : untweaked(part, root, recipe, base, c, tweak, line, notes));
+            }
+            return new Result(base, new PartFitter.Fitted(cards, refitted.full(), refitted.points(), refitted.notes(),
+                    refitted.warnings()), tweak, fitted, value, notes);
         }
         List<MeasuredPoint> points = forwardPoints(part, root);
         List<PartFitter.Card> cards = new ArrayList<>();
-        for (PartFitter.Card c : base.cards()) {
+        for (int i = 0; i < base.cards().size(); i++) {
+            PartFitter.Card c = base.cards().get(i);
             if (!c.dialect().carries(tweak.param())) {
-                notes.add(c.dialect().shortName() + " cannot carry " + tweak.param() + ": its card is not tweaked");
-                cards.add(PartFitter.render(part, recipe, part.rules(), c.dialect(), c.parameters(), base.points(),
-                        c.residuals(), c.leftOut(), c.leftOutCost(), List.of(line + " (not carried by " + c.dialect().shortName() + ")")));
+                cards.add(untweaked(part, root, recipe, base, c, tweak, line, notes));
                 continue;
             }
             DiodeParameters p = c.parameters().with(tweak.param(), value);
-            cards.add(PartFitter.render(part, recipe, part.rules(), c.dialect(), p, base.points(),
+            cards.add(PartFitter.checkedRender(part, root, recipe, part.rules(), c.dialect(), p, base.points(),
                     residuals(part.model(), p, points), c.leftOut(), c.leftOutCost(), List.of(line)));
         }
-        return new Result(base, new PartFitter.Fitted(cards, base.full(), base.points(), base.notes()), tweak, fitted,
-                value, notes);
+        return new Result(base, new PartFitter.Fitted(cards, base.full(), base.points(), base.notes(), base.warnings()),
+                tweak, fitted, value, notes);
+    }
+
+    /**
+     * The base card in the place of {@code tweakedCard}, whose dialect cannot carry the tweaked parameter, its header
+     * saying so; the note goes to {@code notes}.
+     */
+    private static PartFitter.Card untweaked(DeviceFile part, Path root, Recipe recipe, PartFitter.Fitted base,
+                                             PartFitter.Card tweakedCard, Tweak tweak, String line, List<String> notes)
+            throws DeviceFileException, LibraryInputException, IOException {
+        PartFitter.Card c = base.cards().stream().filter(b -> b.file().equals(tweakedCard.file())).findFirst()
+                .orElse(tweakedCard);
+        if (c.file().getFileName().toString().equals(
+                org.cardwright.card.ShuntedCard.fileName(part.model(), c.dialect()))) {
+            return c;
+        }
+        String why = c.dialect().shortName() + " cannot carry " + tweak.param().keyword() + ": its card is the untweaked fit";
+        notes.add(why);
+        return PartFitter.checkedRender(part, root, recipe, part.rules(), c.dialect(), c.parameters(), base.points(),
+                c.residuals(), c.leftOut(), c.leftOutCost(), List.of(line + " (not taken: " + why + ")"));
     }
 
     private static String card(Tweak t, double si) {

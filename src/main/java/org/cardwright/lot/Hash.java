@@ -2,24 +2,11 @@ package org.cardwright.lot;
 
 import java.nio.charset.StandardCharsets;
 import java.security.MessageDigest;
-import java.security.NoSuchAlgorithmException;
-import java.util.HexFormat;
+import org.cardwright.data.Sha256;
 
-/** SHA-256 in hex, for fingerprints and file names. */
+/** A lot's fingerprints: SHA-256 ({@link Sha256}) over length-prefixed pieces. */
 final class Hash {
     private Hash() {
-    }
-
-    static String sha256(String text) {
-        return sha256(text.getBytes(StandardCharsets.UTF_8));
-    }
-
-    static String sha256(byte[] bytes) {
-        try {
-            return HexFormat.of().formatHex(MessageDigest.getInstance("SHA-256").digest(bytes));
-        } catch (NoSuchAlgorithmException e) {
-            throw new IllegalStateException("SHA-256 missing from the JDK", e);
-        }
     }
 
     /** A digest that is fed piece by piece. */
@@ -27,11 +14,7 @@ final class Hash {
         private final MessageDigest digest;
 
         Running() {
-            try {
-                digest = MessageDigest.getInstance("SHA-256");
-            } catch (NoSuchAlgorithmException e) {
-                throw new IllegalStateException("SHA-256 missing from the JDK", e);
-            }
+            digest = Sha256.digest();
         }
 
         Running add(String text) {
@@ -48,7 +31,7 @@ final class Hash {
         }
 
         String hex() {
-            return HexFormat.of().formatHex(digest.digest());
+            return Sha256.hex(digest);
         }
     }
 }

@@ -1,5 +1,6 @@
 package org.cardwright.lot;
 
+import org.cardwright.data.Sha256;
 import java.io.IOException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
@@ -193,7 +194,7 @@ public final class LotJob {
     /** The lot's plan: the stored one when the settings are the same, else chosen from a sample of free fits. */
     LotPlan plan(LotRequest request, List<LotParts.Part> parts, LotFitter fitter, ExecutorService pool, LotProgress progress)
             throws IOException, OutputException {
-        String key = Hash.sha256(request.settings().text() + request.conditions() + request.datasheetTemperature());
+        String key = Sha256.hex(request.settings().text() + request.conditions() + request.datasheetTemperature());
         Path file = request.stateDir().resolve(PLAN_FILE);
         if (Files.isRegularFile(file)) {
             String text = Files.readString(file, StandardCharsets.UTF_8);

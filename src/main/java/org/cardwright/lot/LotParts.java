@@ -1,5 +1,6 @@
 package org.cardwright.lot;
 
+import org.cardwright.data.Sha256;
 import java.io.BufferedReader;
 import java.io.IOException;
 import java.io.Writer;
@@ -182,7 +183,7 @@ public final class LotParts {
         if (plain.length() > 40) {
             plain = plain.substring(0, 40);
         }
-        return "x" + plain + "-" + Hash.sha256(part).substring(0, 12);
+        return "x" + plain + "-" + Sha256.hex(part).substring(0, 12);
     }
 
     private static String stem(Path p) {

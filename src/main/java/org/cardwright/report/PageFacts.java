@@ -5,9 +5,7 @@ import java.io.InputStream;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.security.MessageDigest;
-import java.security.NoSuchAlgorithmException;
 import java.util.ArrayList;
-import java.util.HexFormat;
 import java.util.List;
 import java.util.Map;
 import org.cardwright.model.DiodeParameters;
@@ -80,12 +78,7 @@ public record PageFacts(String command, List<DataFile> dataFiles, List<Parameter
     public static List<DataFile> hash(List<Path> files) throws IOException {
         List<DataFile> out = new ArrayList<>();
         for (Path f : files) {
-            MessageDigest digest;
-            try {
-                digest = MessageDigest.getInstance("SHA-256");
-            } catch (NoSuchAlgorithmException e) {
-                throw new IllegalStateException("this Java runtime has no SHA-256", e);
-            }
+            MessageDigest digest = org.cardwright.data.Sha256.digest();
             long size = 0;
             try (InputStream in = Files.newInputStream(f)) {
                 byte[] buffer = new byte[1 << 16];
@@ -96,7 +89,7 @@ public record PageFacts(String command, List<DataFile> dataFiles, List<Parameter
             } catch (IOException e) {
                 throw new IOException(f + ": cannot read the data file to hash it (" + e.getMessage() + ")", e);
             }
-            out.add(new DataFile(f.toString(), HexFormat.of().formatHex(digest.digest()), size));
+            out.add(new DataFile(f.toString(), org.cardwright.data.Sha256.hex(digest), size));
         }
         return out;
     }

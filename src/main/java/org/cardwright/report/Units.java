@@ -1,7 +1,6 @@
 package org.cardwright.report;
 
 import java.util.Locale;
-import org.cardwright.model.Ngspice39;
 
 /** Display formatting for people: engineering prefixes, millivolts, degrees Celsius. */
 public final class Units {
@@ -26,7 +25,7 @@ public final class Units {
 
     /** Kelvin to a Celsius string with one decimal. */
     public static String celsius(double kelvin) {
-        return String.format(Locale.ROOT, "%.1f", kelvin - Ngspice39.CELSIUS_TO_KELVIN);
+        return org.cardwright.model.Celsius.oneDecimal(kelvin);
     }
 
     /** Volts as millivolts with the given decimals. */

@@ -86,6 +86,22 @@ public final class Engines {
         return new org.cardwright.sim.CardUnderTest(card.name(), card.parameters(), settings);
     }
 
+    /**
+     * True when the engine called {@code name} reads cards of {@code dialect} as that dialect's simulator does: the
+     * built-in engine evaluates every dialect's own equations; ngspice reads ngspice cards and SPICE3f5 cards (its
+     * parent's parameter set, every keyword the same); gnucap reads gnucap cards. ngspice does not read a gnucap
+     * card as gnucap does (gnucap's XTI is XTI/N, it has no breakdown) nor an Xyce card (TBV1, Xyce's NR default);
+     * Xyce itself is not run here.
+     */
+    public static boolean speaks(String name, org.cardwright.card.Dialect dialect) {
+        return switch (name.toLowerCase(Locale.ROOT)) {
+            case "builtin" -> true;
+            case "ngspice" -> dialect == org.cardwright.card.Dialect.NGSPICE || dialect == org.cardwright.card.Dialect.SPICE3;
+            case "gnucap" -> dialect == org.cardwright.card.Dialect.GNUCAP;
+            default -> false;
+        };
+    }
+
     /** The engine called {@code name}; ngspice is looked up on the PATH or in CARDWRIGHT_NGSPICE. */
     public static SimulationEngine byName(String name) throws SimulationException {
         return byName(name, org.cardwright.model.Flavour.NGSPICE_39);

@@ -127,6 +127,7 @@ public final class FitWorkflow {
                 refit = Optional.of(forCard);
             }
             List<String> provenance = provenance(request, inputs, full, forCard, d, leftOut);
+            provenance.addAll(provenance.size() - 1, introducedTerms(full, forCard, d));
             if (forCard.shunt().isPresent()) {
                 // the plain card is the junction alone: say so, and what leaving the resistor out costs
                 provenance.add(provenance.size() - 1, ShuntOutput.costLine(request, d, forCard, data));
@@ -235,6 +236,33 @@ public final class FitWorkflow {
                 defaultVoltageSigma);
     }
 
+    /**
+     * Lines that name every term a dialect's refit brings onto its card although the full fit weighed and rejected
+     * it (TRS1 "not warranted", say), with the refit's own reason: with the dialect's equations the term may follow
+     * the data where the ngspice equations did not need it, but the card must say so. Empty when there is none.
+     */
+    public static List<String> introducedTerms(FitResult full, FitResult refit, Dialect d) {
+        List<String> out = new ArrayList<>();
+        for (org.cardwright.fit.TermDecision t : full.terms()) {
+            if (t.included()) {
+                continue;
+            }
+            List<Param> brought = t.params().stream()
+                    .filter(p -> p != Param.TNOM && !full.parameters().isGiven(p) && refit.parameters().isGiven(p)
+                            && d.carries(p))
+                    .toList();
+            if (brought.isEmpty()) {
+                continue;
+            }
+            String why = refit.terms().stream().filter(r -> r.included() && r.term().equals(t.term()))
+                    .map(org.cardwright.fit.TermDecision::reason).findFirst().orElse("");
+            out.add(d.shortName() + " refit brings in " + brought.stream().map(d::keyword).collect(Collectors.joining(" "))
+                    + " (" + t.term() + "), which the full fit rejected (" + t.reason() + ")"
+                    + (why.isEmpty() ? "" : "; with " + d.flavour().label() + "'s equations: " + why));
+        }
+        return out;
+    }
+
     /** Local dV/d(ln |I|) of each point within its file and sweep ({@link org.cardwright.fit.PointUncertainty#slopes}) [V]. */
     static double[] slopes(List<Inputs.Located> pts) {
         double[] currents = new double[pts.size()];
@@ -333,7 +361,7 @@ public final class FitWorkflow {
     }
 
     private static String temperatures(FitResult r) {
-        return r.residuals().stream().map(s -> String.format(Locale.ROOT, "%.1f", s.temperature() - org.cardwright.model.Ngspice39.CELSIUS_TO_KELVIN))
+        return r.residuals().stream().map(s -> org.cardwright.model.Celsius.oneDecimal(s.temperature()))
                 .collect(Collectors.joining(", "));
     }
 }

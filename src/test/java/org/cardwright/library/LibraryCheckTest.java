@@ -103,7 +103,7 @@ class LibraryCheckTest {
         Path xml = root.resolve("check.xml");
         Run r = cli("check", root.toString(), "--junit", xml.toString());
         assertEquals(NOT_REPRODUCED, r.code(), r.out() + r.err());
-        assertTrue(r.out().contains("group1/TP02.ngspice.lib: fail: does not reproduce its data: worst at 85 degC"), r.out());
+        assertTrue(r.out().contains("group1/TP02.ngspice.lib: fail: does not reproduce its forward data: forward FAIL at 85 degC"), r.out());
         Totals s = totals(parseJunit(xml));
         assertEquals(3, s.tests());
         assertEquals(1, s.failures());
@@ -111,7 +111,7 @@ class LibraryCheckTest {
         ReportTestCase failed = s.cases().stream().filter(c -> !c.isSuccessful()).findFirst().orElseThrow();
         assertEquals("TP02.ngspice.lib", failed.getName());
         assertTrue(failed.hasFailure());
-        assertTrue(failed.getFailureMessage().startsWith("does not reproduce its data"), failed.getFailureMessage());
+        assertTrue(failed.getFailureMessage().startsWith("does not reproduce its forward data"), failed.getFailureMessage());
         assertEquals("cardwright.fail", failed.getFailureType());
     }
 

@@ -411,7 +411,8 @@ public final class SimulatorProcess {
         }
         Result result = run(netlist, dir, timeout(points));
         if (!result.warnings().isEmpty()) {
-            throw new SimulationException(kind.command() + " warned about the card: " + result.warnings().get(0)
+            // every warning, never the first alone: ngspice puts "Model issue on line 6 :" and the reason on two lines
+            throw new SimulationException(kind.command() + " warned about the card: " + String.join(" / ", result.warnings())
                     + " (netlist kept in " + dir + ")");
         }
         return new Run(result, dir);
