@@ -153,7 +153,7 @@ public final class LotJob {
             }
         }
         double seconds = (System.nanoTime() - prepared.startNanos()) * 1e-9;
-        return finish(prepared.request(), List.of(prepared.results()), prepared.plan(), prepared.reused(), seconds, json, html);
+        return finish(prepared.request(), prepared.parts(), List.of(prepared.results()), prepared.plan(), prepared.reused(), seconds, json, html);
     }
 
     private static PartResult get(Future<PartResult> f) throws IOException, OutputException {
@@ -353,7 +353,7 @@ public final class LotJob {
     }
 
     /** Statistics, cards, tables and JSON, written together. */
-    private LotOutcome finish(LotRequest request, List<PartResult> results, LotPlan plan, int reused, double seconds,
+    private LotOutcome finish(LotRequest request, List<LotParts.Part> parts, List<PartResult> results, LotPlan plan, int reused, double seconds,
                               Function<LotOutcome, String> json, Function<LotOutcome, String> html) throws OutputException {
         List<PartResult> ok = results.stream().filter(PartResult::ok).toList();
         LotStatistics stats = LotStatistics.of(ok);
@@ -415,7 +415,8 @@ public final class LotJob {
             files.put(p, LotCards.monteCarloCard(request.name(), stats, lines, request.digits()));
             cards.add(p);
         }
-        LotOutcome outcome = new LotOutcome(request, results, plan, stats, corners, rows, cards, reused, seconds);
+        LotCurves.Curves curves = html == null ? LotCurves.Curves.none() : LotCurves.of(parts, stats, corners, plan, request.settings());
+        LotOutcome outcome = new LotOutcome(request, results, plan, stats, corners, rows, cards, reused, seconds, curves);
         files.put(request.partsCsv(), LotTables.parts(outcome));
         files.put(request.statisticsCsv(), LotTables.statistics(outcome));
         if (html != null) {

@@ -199,7 +199,7 @@ class LotJobTest {
         assertTrue(outliers.contains("LT1-17"), outliers.toString());
         // the page: one histogram per summarised parameter, the outlier named
         String html = Files.readString(out.resolve("LOTJ.lot.html"), StandardCharsets.UTF_8);
-        assertEquals(json.get("statistics").size(), html.split("<svg ", -1).length - 1);
+        assertEquals(json.get("statistics").size(), html.split("class=\"hist\"", -1).length - 1);
         assertTrue(html.contains("<b>LT1-17</b>"), "the outlier is listed on the page");
         // stated means of MakeLot (log10 IS, N, RS); a drawn lot of ~22 parts scatters by std/sqrt(n): three standard errors
         Map<String, Double> stated = Map.of("IS", -14.3, "N", 1.03, "RS", 0.9);
