@@ -345,6 +345,11 @@ public final class LotJob {
         return new LotPlan(rules, reasons, conditions, temperature, names);
     }
 
+    /** A part card's model name: NAME_PART, with the part's name made safe ({@link LotParts#safeFileName}). */
+    static String partModelName(String lot, String part) {
+        return lot + "_" + LotParts.safeFileName(part);
+    }
+
     /** 25 degC, where a datasheet states its values [K]. */
     static final double ROOM = 298.15;
 
@@ -414,6 +419,32 @@ public final class LotJob {
             Path p = request.card("montecarlo", "ngspice");
             files.put(p, LotCards.monteCarloCard(request.name(), stats, lines, request.digits()));
             cards.add(p);
+        }
+        if (request.writesPartCards(results.size())) {
+            for (Dialect d : request.dialects()) {
+                for (PartResult r : ok) {
+                    String outlier = stats.outliers().get(r.part());
+                    List<String> lines = new ArrayList<>();
+                    lines.add("model " + partModelName(request.name(), r.part()) + ": part " + r.part() + " of lot " + request.name()
+                            + ", its own fit, for " + d.simulator() + ", written by cardwright " + ToolVersion.get() + " (lot)");
+                    lines.add(outlier == null ? "in the lot's statistics" : "an outlier of the lot: " + outlier);
+                    lines.add("fitted: " + String.join(" ", r.fitted().stream().map(Param::name).toList())
+                            + (Double.isNaN(r.worstRms()) ? "" : String.format(Locale.ROOT, "; worst forward RMS residual %.4g mV", r.worstRms() * 1e3)));
+                    lines.addAll(plan.rules().isEmpty() ? List.of() : List.of("terms for every part: "
+                            + String.join(" ", plan.rules().stream().map(ParameterRule::text).toList())));
+                    if (d.flavour() != org.cardwright.model.Flavour.NGSPICE_39) {
+                        lines.add("parameters fitted with the ngspice 39 equations; not refitted for " + d.simulator());
+                    }
+                    CardWriter.Rendered rendered = writer.render(new ModelCard(partModelName(request.name(), r.part()),
+                            DiodeParameters.of(r.values()), lines), d, request.digits());
+                    String text = rendered.text();
+                    if (!rendered.dropped().isEmpty()) {
+                        text = "* " + d.shortName() + " cannot carry " + String.join(" ", rendered.dropped().stream().map(Param::name).toList())
+                                + ": left out of this card\n" + text;
+                    }
+                    files.put(request.partCard(r.part(), d.shortName()), text);
+                }
+            }
         }
         LotCurves.Curves curves = html == null ? LotCurves.Curves.none() : LotCurves.of(parts, stats, corners, plan, request.settings());
         LotOutcome outcome = new LotOutcome(request, results, plan, stats, corners, rows, cards, reused, seconds, curves);
