@@ -342,6 +342,10 @@ public final class LotJob {
             conditions.put(Datasheet.Quantity.VZ, Datasheet.nice(LotStatistics.median(ibv.stream().mapToDouble(Double::doubleValue).toArray())));
         }
         conditions.putAll(request.conditions());
+        if (conditions.containsKey(Datasheet.Quantity.VZ)) {
+            // the TC of VZ is stated at the same IZ (measured where the breakdown data span temperatures)
+            conditions.put(Datasheet.Quantity.TCVZ, conditions.get(Datasheet.Quantity.VZ));
+        }
         return new LotPlan(rules, reasons, conditions, temperature, names);
     }
 
