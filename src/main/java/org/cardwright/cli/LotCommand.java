@@ -34,7 +34,8 @@ import picocli.CommandLine.Parameters;
             "Fits every part of a lot with the same terms, on all cores, and writes the lot's statistics (log10 for",
             "IS-like parameters, linear for N, RS, ...), its outliers, datasheet min/typ/max, a typical card, corner",
             "cards and an ngspice Monte Carlo card into OUT: NAME.lot.json, NAME.lot.html, NAME.parts.csv, NAME.statistics.csv,",
-            "NAME.typical.DIALECT.lib, NAME.vf-low/vf-high/pcK-low/pcK-high.DIALECT.lib, NAME.montecarlo.ngspice.lib.",
+            "NAME.typical.DIALECT.lib, NAME.vf-low/vf-high/pcK-low/pcK-high.DIALECT.lib, NAME.montecarlo.ngspice.lib,",
+            "and each part's own card in NAME.parts/ (lots of at most 1000 parts, or --part-cards on).",
             "A killed run started again continues where it stopped (state in OUT/NAME.lot-state)."},
         footerHeading = "%nExamples%n",
         footer = {
@@ -91,6 +92,10 @@ final class LotCommand implements Callable<Integer> {
     @Option(names = "--templates", paramLabel = "DIR", description = "Folder of card templates overriding the bundled ones.")
     Path templates;
 
+    @Option(names = "--part-cards", paramLabel = "WHEN", defaultValue = "auto",
+            description = "Each fitted part's own card into OUT/NAME.parts/: auto (when the lot has at most 1000 parts), on, off (default: ${DEFAULT-VALUE}).")
+    String partCards;
+
     @Option(names = "--no-progress", description = "No progress line on stderr.")
     boolean noProgress;
 
@@ -132,7 +137,16 @@ final class LotCommand implements Callable<Integer> {
         return new LotRequest(inputs, name, out, ds,
                 jobs == null ? Runtime.getRuntime().availableProcessors() : jobs, settings, cornerSigma, conditions,
                 atTemp == null ? OptionalDouble.empty() : OptionalDouble.of(atTemp + Ngspice39.CELSIUS_TO_KELVIN),
-                digits, force, Optional.ofNullable(templates));
+                digits, force, Optional.ofNullable(templates), partCards(partCards));
+    }
+
+    private static LotRequest.PartCards partCards(String when) {
+        return switch (when.trim().toLowerCase(Locale.ROOT)) {
+            case "auto" -> LotRequest.PartCards.AUTO;
+            case "on" -> LotRequest.PartCards.ON;
+            case "off" -> LotRequest.PartCards.OFF;
+            default -> throw new IllegalArgumentException("--part-cards must be auto, on or off, got '" + when + "'");
+        };
     }
 
     @Override

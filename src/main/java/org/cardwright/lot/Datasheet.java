@@ -30,7 +30,13 @@ public final class Datasheet {
         /** Capacitance at the reverse voltage VR [F]. */
         C("C", "F", "VR", "V"),
         /** Breakdown voltage (magnitude) at the reverse current IZ [V]. */
-        VZ("VZ", "V", "IZ", "A");
+        VZ("VZ", "V", "IZ", "A"),
+        /**
+         * Temperature coefficient of VZ at IZ [V/K]: measured, the least-squares slope of VZ over the temperatures
+         * at which the part's breakdown data bracket IZ (at least two, {@link #MIN_TC_SPAN} apart); from a card, the
+         * central difference over the datasheet temperature +- {@link #TC_HALF_SPAN}.
+         */
+        TCVZ("TCVZ", "V/K", "IZ", "A");
 
         private final String label;
         private final String unit;
@@ -68,6 +74,14 @@ public final class Datasheet {
     /** Points within this of the datasheet temperature count as taken at it: a bench oven's setpoint band [K]. */
     static final double SAME_TEMPERATURE = 0.5;
 
+    /** Breakdown readings must span at least this much temperature for a measured TC of VZ [K]. */
+    static final double MIN_TC_SPAN = 10;
+    /**
+     * A card's TC of VZ is taken over the datasheet temperature +- this: a bench's usual -20..85 degC span around
+     * 25 degC is about 50 K each way, and over it a card's VZ(T) is straight to well within the readings' noise [K].
+     */
+    static final double TC_HALF_SPAN = 25;
+
     private Datasheet() {
     }
 
@@ -81,6 +95,7 @@ public final class Datasheet {
                 case IR -> leakage(points(in.reverse(), temperature), x);
                 case C -> capacitance(in.capacitance(), temperature, -x);
                 case VZ -> interpolate(points(in.reverse(), temperature), x, true, true);
+                case TCVZ -> breakdownSlope(in.reverse(), x);
             };
             if (Double.isFinite(v)) {
                 out.put(e.getKey(), v);
@@ -100,12 +115,63 @@ public final class Datasheet {
                 case IR -> Math.abs(DiodeSolver.currentAtVoltage(d, -x));
                 case C -> JunctionCapacitance.total(d, JunctionCapacitance.junctionVoltage(d, -x));
                 case VZ -> d.hasBreakdown() ? Math.abs(DiodeSolver.voltageAtCurrent(d, -x)) : Double.NaN;
+                case TCVZ -> {
+                    DiodeAtTemperature lo = TemperatureLaws.at(p, temperature - TC_HALF_SPAN, SimulatorOptions.NGSPICE_DEFAULTS);
+                    DiodeAtTemperature hi = TemperatureLaws.at(p, temperature + TC_HALF_SPAN, SimulatorOptions.NGSPICE_DEFAULTS);
+                    yield d.hasBreakdown() ? (Math.abs(DiodeSolver.voltageAtCurrent(hi, -x)) - Math.abs(DiodeSolver.voltageAtCurrent(lo, -x)))
+                            / (2 * TC_HALF_SPAN) : Double.NaN;
+                }
             };
             if (Double.isFinite(v)) {
                 out.put(e.getKey(), v);
             }
         }
         return out;
+    }
+
+    /**
+     * Least-squares slope of VZ at {@code current} over the temperatures of the breakdown data (points within
+     * {@link #SAME_TEMPERATURE} of each other form one temperature); NaN with fewer than two temperatures at which the
+     * data bracket the current, or when they span less than {@link #MIN_TC_SPAN}.
+     */
+    static double breakdownSlope(List<Inputs.Located> located, double current) {
+        List<Double> temps = new ArrayList<>();
+        for (Inputs.Located l : located) {
+            temps.add(l.point().temperature());
+        }
+        temps.sort(Double::compare);
+        List<double[]> tv = new ArrayList<>();
+        int i = 0;
+        while (i < temps.size()) {
+            int j = i;
+            double sum = 0;
+            while (j < temps.size() && temps.get(j) - temps.get(i) <= 2 * SAME_TEMPERATURE) {
+                sum += temps.get(j);
+                j++;
+            }
+            double t = sum / (j - i);
+            double v = interpolate(points(located, t), current, true, true);
+            if (Double.isFinite(v)) {
+                tv.add(new double[] {t, v});
+            }
+            i = j;
+        }
+        if (tv.size() < 2 || tv.get(tv.size() - 1)[0] - tv.get(0)[0] < MIN_TC_SPAN) {
+            return Double.NaN;
+        }
+        double mt = 0;
+        double mv = 0;
+        for (double[] p : tv) {
+            mt += p[0] / tv.size();
+            mv += p[1] / tv.size();
+        }
+        double sxy = 0;
+        double sxx = 0;
+        for (double[] p : tv) {
+            sxy += (p[0] - mt) * (p[1] - mv);
+            sxx += (p[0] - mt) * (p[0] - mt);
+        }
+        return sxy / sxx;
     }
 
     /** (|I|, |V|) of the points at the temperature, sorted by |I|. */

@@ -154,7 +154,7 @@ public final class LotJob {
             }
         }
         double seconds = (System.nanoTime() - prepared.startNanos()) * 1e-9;
-        return finish(prepared.request(), List.of(prepared.results()), prepared.plan(), prepared.reused(), seconds, json, html);
+        return finish(prepared.request(), prepared.parts(), List.of(prepared.results()), prepared.plan(), prepared.reused(), seconds, json, html);
     }
 
     private static PartResult get(Future<PartResult> f) throws IOException, OutputException {
@@ -343,7 +343,16 @@ public final class LotJob {
             conditions.put(Datasheet.Quantity.VZ, Datasheet.nice(LotStatistics.median(ibv.stream().mapToDouble(Double::doubleValue).toArray())));
         }
         conditions.putAll(request.conditions());
+        if (conditions.containsKey(Datasheet.Quantity.VZ)) {
+            // the TC of VZ is stated at the same IZ (measured where the breakdown data span temperatures)
+            conditions.put(Datasheet.Quantity.TCVZ, conditions.get(Datasheet.Quantity.VZ));
+        }
         return new LotPlan(rules, reasons, conditions, temperature, names);
+    }
+
+    /** A part card's model name: NAME_PART, with the part's name made safe ({@link LotParts#safeFileName}). */
+    static String partModelName(String lot, String part) {
+        return lot + "_" + LotParts.safeFileName(part);
     }
 
     /** 25 degC, where a datasheet states its values [K]. */
@@ -354,7 +363,7 @@ public final class LotJob {
     }
 
     /** Statistics, cards, tables and JSON, written together. */
-    private LotOutcome finish(LotRequest request, List<PartResult> results, LotPlan plan, int reused, double seconds,
+    private LotOutcome finish(LotRequest request, List<LotParts.Part> parts, List<PartResult> results, LotPlan plan, int reused, double seconds,
                               Function<LotOutcome, String> json, Function<LotOutcome, String> html) throws OutputException {
         List<PartResult> ok = results.stream().filter(PartResult::ok).toList();
         LotStatistics stats = LotStatistics.of(ok);
@@ -416,7 +425,34 @@ public final class LotJob {
             files.put(p, LotCards.monteCarloCard(request.name(), stats, lines, request.digits()));
             cards.add(p);
         }
-        LotOutcome outcome = new LotOutcome(request, results, plan, stats, corners, rows, cards, reused, seconds);
+        if (request.writesPartCards(results.size())) {
+            for (Dialect d : request.dialects()) {
+                for (PartResult r : ok) {
+                    String outlier = stats.outliers().get(r.part());
+                    List<String> lines = new ArrayList<>();
+                    lines.add("model " + partModelName(request.name(), r.part()) + ": part " + r.part() + " of lot " + request.name()
+                            + ", its own fit, for " + d.simulator() + ", written by cardwright " + ToolVersion.get() + " (lot)");
+                    lines.add(outlier == null ? "in the lot's statistics" : "an outlier of the lot: " + outlier);
+                    lines.add("fitted: " + String.join(" ", r.fitted().stream().map(Param::name).toList())
+                            + (Double.isNaN(r.worstRms()) ? "" : String.format(Locale.ROOT, "; worst forward RMS residual %.4g mV", r.worstRms() * 1e3)));
+                    lines.addAll(plan.rules().isEmpty() ? List.of() : List.of("terms for every part: "
+                            + String.join(" ", plan.rules().stream().map(ParameterRule::text).toList())));
+                    if (d.flavour() != org.cardwright.model.Flavour.NGSPICE_39) {
+                        lines.add("parameters fitted with the ngspice 39 equations; not refitted for " + d.simulator());
+                    }
+                    CardWriter.Rendered rendered = writer.render(new ModelCard(partModelName(request.name(), r.part()),
+                            DiodeParameters.of(r.values()), lines), d, request.digits());
+                    String text = rendered.text();
+                    if (!rendered.dropped().isEmpty()) {
+                        text = "* " + d.shortName() + " cannot carry " + String.join(" ", rendered.dropped().stream().map(Param::name).toList())
+                                + ": left out of this card\n" + text;
+                    }
+                    files.put(request.partCard(r.part(), d.shortName()), text);
+                }
+            }
+        }
+        LotCurves.Curves curves = html == null ? LotCurves.Curves.none() : LotCurves.of(parts, stats, corners, plan, request.settings());
+        LotOutcome outcome = new LotOutcome(request, results, plan, stats, corners, rows, cards, reused, seconds, curves);
         files.put(request.partsCsv(), LotTables.parts(outcome));
         files.put(request.statisticsCsv(), LotTables.statistics(outcome));
         if (html != null) {

@@ -16,10 +16,11 @@ import java.util.Map;
  * @param cards      the card files written, in order
  * @param reused     parts whose stored result from an earlier run was taken
  * @param seconds    wall time of the fits [s]
+ * @param curves     forward curves of a sample of parts and of the corner cards, for the page
  */
 public record LotOutcome(LotRequest request, List<PartResult> parts, LotPlan plan, LotStatistics statistics,
                          List<LotCards.Corner> corners, List<DatasheetRow> datasheet, List<Path> cards, int reused,
-                         double seconds) {
+                         double seconds, LotCurves.Curves curves) {
 
     /**
      * One datasheet quantity over the lot.

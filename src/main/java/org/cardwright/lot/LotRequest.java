@@ -23,11 +23,36 @@ import org.cardwright.card.Dialect;
  * @param digits      significant digits on the cards
  * @param force       replace the outputs of a finished run
  * @param templates   folder of user templates overriding the bundled ones
+ * @param partCards   whether each fitted part's own card is written (see {@link PartCards})
  */
 public record LotRequest(List<Path> inputs, String name, Path out, List<Dialect> dialects, int jobs, LotSettings settings,
                          double cornerSigma, Map<Datasheet.Quantity, Double> conditions, OptionalDouble datasheetTemperature,
-                         int digits, boolean force, Optional<Path> templates) {
+                         int digits, boolean force, Optional<Path> templates, PartCards partCards) {
+
+    /**
+     * Whether the lot folder gets one card per fitted part, in {@code NAME.parts/}: always, never, or (the default)
+     * when the lot has at most {@link #AUTO_PART_CARDS_LIMIT} parts.
+     */
+    public enum PartCards {
+        AUTO, ON, OFF
+    }
+
+    /**
+     * Largest lot that gets per-part cards by default: a thousand small files (about half a megabyte) are still
+     * handy in one folder; a wafer's 10^5 would be a file system's burden for cards nobody opens one by one.
+     */
+    public static final int AUTO_PART_CARDS_LIMIT = 1000;
+
+    /** As the canonical constructor, with per-part cards by the default rule ({@link PartCards#AUTO}). */
+    public LotRequest(List<Path> inputs, String name, Path out, List<Dialect> dialects, int jobs, LotSettings settings,
+                      double cornerSigma, Map<Datasheet.Quantity, Double> conditions, OptionalDouble datasheetTemperature,
+                      int digits, boolean force, Optional<Path> templates) {
+        this(inputs, name, out, dialects, jobs, settings, cornerSigma, conditions, datasheetTemperature, digits, force, templates,
+                PartCards.AUTO);
+    }
+
     public LotRequest {
+        java.util.Objects.requireNonNull(partCards, "partCards");
         inputs = List.copyOf(inputs);
         dialects = List.copyOf(dialects);
         conditions = conditions.isEmpty() ? Map.of() : new EnumMap<>(conditions);
@@ -76,6 +101,25 @@ public record LotRequest(List<Path> inputs, String name, Path out, List<Dialect>
     /** The statistics table: OUT/NAME.statistics.csv. */
     public Path statisticsCsv() {
         return out.resolve(name + ".statistics.csv");
+    }
+
+    /** True when a lot of {@code parts} parts gets per-part cards. */
+    public boolean writesPartCards(int parts) {
+        return switch (partCards) {
+            case ON -> true;
+            case OFF -> false;
+            case AUTO -> parts <= AUTO_PART_CARDS_LIMIT;
+        };
+    }
+
+    /** The folder of the per-part cards: OUT/NAME.parts. */
+    public Path partCardDir() {
+        return out.resolve(name + ".parts");
+    }
+
+    /** A part's own card: OUT/NAME.parts/PART.DIALECT.lib (the part's name made safe for a file name). */
+    public Path partCard(String part, String dialect) {
+        return partCardDir().resolve(LotParts.safeFileName(part) + "." + dialect + ".lib");
     }
 
     /** A lot card: OUT/NAME.SUFFIX.DIALECT.lib. */

@@ -4,6 +4,7 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
+import org.cardwright.lot.LotCurves;
 import org.cardwright.lot.LotOutcome;
 import org.cardwright.lot.LotStatistics;
 import org.cardwright.lot.PartResult;
@@ -12,8 +13,9 @@ import org.cardwright.workflow.ToolVersion;
 
 /**
  * The lot's page: one self-contained HTML file (no scripts, nothing fetched) with a histogram of every fitted
- * parameter in its space (parts in the statistics in grey, outliers in red, the mean and +-1 std marked), the
- * datasheet table, the failed parts and the outliers. Same outcome, same bytes.
+ * parameter in its space (parts in the statistics in grey, outliers in red, the mean and +-1 std marked), a scatter
+ * matrix of the main parameters, the typical and forward-voltage corner cards drawn on the measured forward curves
+ * of a sample of the parts, the datasheet table, the failed parts and the outliers. Same outcome, same bytes.
  */
 public final class LotHtml {
     private static final int W = 460;
@@ -37,7 +39,16 @@ public final class LotHtml {
                 .append("table{border-collapse:collapse;font-size:13px}td,th{border-bottom:1px solid #e2dfd6;padding:3px 9px;text-align:right}\n")
                 .append("th:first-child,td:first-child{text-align:left}.grid{display:flex;flex-wrap:wrap;gap:14px}\n")
                 .append("figure{margin:0}figcaption{font-size:13px;color:#5b6066}\n")
-                .append("svg text{font-size:11px;fill:#23272b}.in{fill:#8d949b}.out{fill:#c0392b}.mean{stroke:#1f5f99;stroke-width:2}\n")
+                .append("svg.hist text{font-size:11px;fill:#23272b}.in{fill:#8d949b}.out{fill:#c0392b}.mean{stroke:#1f5f99;stroke-width:2}\n")
+                .append("svg.plot{display:block;width:100%;max-width:100%;height:auto;font:13px system-ui,sans-serif}\n")
+                .append("svg.plot text{fill:#33383d}svg .area{fill:#fff;stroke:#8b9095}svg .grid line{stroke:#ebe8e0}\n")
+                .append("svg .ticks line{stroke:#8b9095}svg .axis-label{font-size:14px}svg .key{fill:#5b6066}\n")
+                .append("svg .series polyline{fill:none;stroke-width:1.8}svg path.marker{fill:none;stroke-width:1.5}\n")
+                .append("svg .legend line{stroke-width:1.8}svg .series[data-series=measured] polyline{stroke-width:0.8;stroke-opacity:0.55}\n")
+                .append("svg .series[data-series=outliers] polyline{stroke-width:1;stroke-opacity:0.8}\n")
+                .append("svg.scatter circle.in{fill:#8d949b;fill-opacity:0.7}svg.scatter circle.out{fill:#c0392b}\n")
+                .append("figure.scatter{max-width:")
+                .append(SCATTER_MAX_WIDTH).append("px}svg.scatter .cell{fill:#fff;stroke:#8b9095}svg.scatter .name{font-size:15px;font-weight:600}\n")
                 .append(".sd{stroke:#1f5f99;stroke-dasharray:4 3}.axis{stroke:#23272b}\n")
                 .append("</style></head><body><main>\n");
         long ok = o.parts().stream().filter(PartResult::ok).count();
@@ -49,7 +60,10 @@ public final class LotHtml {
         for (Map.Entry<Param, LotStatistics.Summary> e : o.statistics().parameters().entrySet()) {
             sb.append(histogram(o, e.getKey(), e.getValue()));
         }
-        sb.append("</div>\n<h2>Datasheet quantities</h2>\n<table><tr><th>quantity</th><th>condition</th><th>measured min</th>"
+        sb.append("</div>\n");
+        sb.append(scatterMatrix(o));
+        sb.append(cornerCurves(o));
+        sb.append("<h2>Datasheet quantities</h2>\n<table><tr><th>quantity</th><th>condition</th><th>measured min</th>"
                 + "<th>typ</th><th>max</th><th>parts' cards min</th><th>typ</th><th>max</th><th>typical card</th></tr>\n");
         for (LotOutcome.DatasheetRow r : o.datasheet()) {
             double[] m = sorted(r.measured());
@@ -114,7 +128,7 @@ public final class LotHtml {
         double pw = W - PAD_L - PAD_R;
         double ph = H - PAD_T - PAD_B;
         StringBuilder sb = new StringBuilder();
-        sb.append("<figure><svg xmlns=\"http://www.w3.org/2000/svg\" width=\"").append(W).append("\" height=\"").append(H)
+        sb.append("<figure><svg xmlns=\"http://www.w3.org/2000/svg\" class=\"hist\" width=\"").append(W).append("\" height=\"").append(H)
                 .append("\" viewBox=\"0 0 ").append(W).append(' ').append(H).append("\">\n");
         for (int i = 0; i < bins; i++) {
             double x = PAD_L + pw * i / bins;
@@ -149,6 +163,186 @@ public final class LotHtml {
                 .append(out.size()).append(" outliers (red); mean ").append(g(s.mean())).append(", std ").append(g(s.std()))
                 .append(" (").append(s.space()).append(")</figcaption></figure>\n");
         return sb.toString();
+    }
+
+    /** Parameters the scatter matrix shows at most: the first of those every part fitted, in parameter order [1]. */
+    static final int SCATTER_PARAMETERS = 5;
+    /** Parts drawn in each scatter cell at most, spread evenly over the lot, so a huge lot keeps a small page [1]. */
+    static final int SCATTER_PARTS = 400;
+    private static final int CELL = 150;
+    /** The scatter matrix is drawn at most this wide, so a few parameters do not make it a screen tall [px]. */
+    private static final int SCATTER_MAX_WIDTH = 720;
+    private static final int S_LEFT = 70;
+    private static final int S_BOTTOM = 56;
+    private static final int S_TOP = 8;
+    private static final int S_RIGHT = 12;
+
+    /**
+     * The scatter matrix: below the diagonal each pair of parameters (in their spaces) with the parts in the
+     * statistics in grey and outliers in red (an outlier beyond the frame sits on its edge), above it the pair's
+     * correlation coefficient, on the diagonal the parameter's name.
+     */
+    private static String scatterMatrix(LotOutcome o) {
+        List<Param> params = o.statistics().common();
+        if (params.size() < 2) {
+            return "";
+        }
+        params = params.subList(0, Math.min(SCATTER_PARAMETERS, params.size()));
+        int k = params.size();
+        List<PartResult> in = spread(o.statistics().inliers(), SCATTER_PARTS);
+        List<PartResult> out = new ArrayList<>();
+        for (PartResult r : o.parts()) {
+            if (r.ok() && o.statistics().outliers().containsKey(r.part())) {
+                out.add(r);
+            }
+        }
+        out = spread(out, SCATTER_PARTS);
+        double[] lo = new double[k];
+        double[] hi = new double[k];
+        for (int a = 0; a < k; a++) {
+            LotStatistics.Summary s = o.statistics().parameters().get(params.get(a));
+            double pad = 0.05 * (s.max() - s.min());
+            if (!(pad > 0)) {
+                pad = 1e-9 + Math.abs(s.mean()) * 1e-6;
+            }
+            lo[a] = s.min() - pad;
+            hi[a] = s.max() + pad;
+        }
+        int w = S_LEFT + k * CELL + S_RIGHT;
+        int h = S_TOP + k * CELL + S_BOTTOM;
+        StringBuilder sb = new StringBuilder();
+        sb.append("<h2>Scatter matrix</h2>\n<figure class=\"scatter\"><svg xmlns=\"http://www.w3.org/2000/svg\" class=\"plot scatter\" id=\"scatter-matrix\"")
+                .append(" viewBox=\"0 0 ").append(w).append(' ').append(h).append("\" width=\"100%\" preserveAspectRatio=\"xMinYMin meet\"")
+                .append(" role=\"img\" aria-label=\"scatter matrix of the lot's main parameters\">\n");
+        for (int row = 0; row < k; row++) {
+            for (int col = 0; col < k; col++) {
+                double x0 = S_LEFT + col * CELL;
+                double y0 = S_TOP + row * CELL;
+                sb.append(String.format(Locale.ROOT, "<rect class=\"cell\" x=\"%.1f\" y=\"%.1f\" width=\"%d\" height=\"%d\"/>%n", x0, y0, CELL, CELL));
+                Param px = params.get(col);
+                Param py = params.get(row);
+                if (row == col) {
+                    sb.append(String.format(Locale.ROOT, "<text class=\"name\" x=\"%.1f\" y=\"%.1f\" text-anchor=\"middle\">%s</text>%n",
+                            x0 + CELL / 2.0, y0 + CELL / 2.0, esc(axisName(px))));
+                } else if (row < col) {
+                    int i = o.statistics().common().indexOf(py);
+                    int j = o.statistics().common().indexOf(px);
+                    sb.append(String.format(Locale.ROOT, "<text class=\"corr\" data-pair=\"%s-%s\" x=\"%.1f\" y=\"%.1f\" text-anchor=\"middle\">r = %.2f</text>%n",
+                            py.name(), px.name(), x0 + CELL / 2.0, y0 + CELL / 2.0 + 5, o.statistics().correlation()[i][j]));
+                } else {
+                    sb.append("<g data-pair=\"").append(py.name()).append('-').append(px.name()).append("\">");
+                    for (int pass = 0; pass < 2; pass++) {
+                        for (PartResult r : pass == 0 ? in : out) {
+                            if (!r.fitted().contains(px) || !r.fitted().contains(py)) {
+                                continue;
+                            }
+                            double fx = (LotStatistics.toSpace(px, r.values().get(px)) - lo[col]) / (hi[col] - lo[col]);
+                            double fy = (LotStatistics.toSpace(py, r.values().get(py)) - lo[row]) / (hi[row] - lo[row]);
+                            fx = Math.max(0, Math.min(1, fx));
+                            fy = Math.max(0, Math.min(1, fy));
+                            sb.append(String.format(Locale.ROOT, "<circle class=\"%s\" cx=\"%.1f\" cy=\"%.1f\" r=\"%s\"/>",
+                                    pass == 0 ? "in" : "out", x0 + fx * CELL, y0 + (1 - fy) * CELL, pass == 0 ? "2" : "3"));
+                        }
+                    }
+                    sb.append("</g>\n");
+                }
+            }
+        }
+        double bottom = S_TOP + k * CELL;
+        for (int a = 0; a < k; a++) {
+            double x0 = S_LEFT + a * CELL;
+            sb.append(String.format(Locale.ROOT, "<text x=\"%.1f\" y=\"%.1f\" text-anchor=\"start\">%s</text>", x0 + 2, bottom + 16, g3(lo[a])));
+            sb.append(String.format(Locale.ROOT, "<text x=\"%.1f\" y=\"%.1f\" text-anchor=\"end\">%s</text>", x0 + CELL - 2, bottom + 34, g3(hi[a])));
+            double y0 = S_TOP + a * CELL;
+            sb.append(String.format(Locale.ROOT, "<text x=\"%d\" y=\"%.1f\" text-anchor=\"end\">%s</text>", S_LEFT - 4, y0 + CELL - 2, g3(lo[a])));
+            sb.append(String.format(Locale.ROOT, "<text x=\"%d\" y=\"%.1f\" text-anchor=\"end\">%s</text>%n", S_LEFT - 4, y0 + 13, g3(hi[a])));
+        }
+        sb.append("</svg><figcaption>Each pair of the main parameters (in their spaces: log10 for IS, CJO, ...), ")
+                .append(in.size()).append(" parts in the statistics (grey)");
+        if (in.size() < o.statistics().inliers().size()) {
+            sb.append(", spread evenly over all ").append(o.statistics().inliers().size());
+        }
+        sb.append(", ").append(out.size()).append(" outliers (red, on the frame when beyond it); above the diagonal the correlation coefficient")
+                .append(" over the parts in the statistics. Each axis runs from the lowest to the highest value in the statistics, 5 % padded.</figcaption></figure>\n");
+        return sb.toString();
+    }
+
+    /** The typical and forward-voltage corner cards over the measured forward curves of a sample of the parts. */
+    private static String cornerCurves(LotOutcome o) {
+        LotCurves.Curves c = o.curves();
+        if (c == null || c.isEmpty()) {
+            return "";
+        }
+        double vmin = Double.POSITIVE_INFINITY;
+        double vmax = Double.NEGATIVE_INFINITY;
+        for (Map<String, double[]> m : List.of(c.inliers(), c.outliers(), c.corners())) {
+            for (double[] v : m.values()) {
+                for (double x : v) {
+                    if (Double.isFinite(x)) {
+                        vmin = Math.min(vmin, x);
+                        vmax = Math.max(vmax, x);
+                    }
+                }
+            }
+        }
+        double[] i = c.currents();
+        SvgPlot plot = new SvgPlot("lot-corners", SvgPlot.Kind.CURVE, "forward voltage of the lot's parts and of its corner cards",
+                PlotAxis.linear(vmin, vmax, "forward voltage VF [V]"), PlotAxis.log(i[0], i[i.length - 1], "forward current IF", "A"));
+        plot.add(new SvgPlot.Series(c.inliers().size() + " parts, measured", "measured", "#8d949b", SvgPlot.Shape.CIRCLE, List.of(), joined(c.inliers(), i)));
+        if (!c.outliers().isEmpty()) {
+            plot.add(new SvgPlot.Series(c.outliers().size() + " outliers, measured", "outliers", "#c0392b", SvgPlot.Shape.CROSS, List.of(),
+                    joined(c.outliers(), i)));
+        }
+        String[] colours = {"#1f5f99", "#2e7d4f", "#a8560c"};
+        SvgPlot.Shape[] shapes = {SvgPlot.Shape.SQUARE, SvgPlot.Shape.TRIANGLE_DOWN, SvgPlot.Shape.TRIANGLE};
+        int n = 0;
+        for (Map.Entry<String, double[]> e : c.corners().entrySet()) {
+            plot.add(new SvgPlot.Series(e.getKey() + " card", e.getKey(), colours[n % 3], shapes[n % 3], List.of(),
+                    joined(Map.of(e.getKey(), e.getValue()), i)));
+            n++;
+        }
+        int all = o.statistics().inliers().size();
+        return "<h2>Corner cards on the measured curves</h2>\n<figure>" + plot.render() + "<figcaption>Forward current against forward voltage at "
+                + plain(o.plan().temperature() - 273.15) + " &deg;C: the measured curves of " + c.inliers().size() + " of the " + all
+                + " parts in the statistics (grey, spread evenly over them), " + c.outliers().size()
+                + " outliers (red), and the typical card with the forward-voltage corners at " + plain(o.request().cornerSigma())
+                + " sigma (cards computed with the ngspice 39 equations), which bound the spread to first order at the datasheet current.</figcaption></figure>\n";
+    }
+
+    /** Every curve's (V, I) points in one line, broken between curves and where a curve has no value. */
+    private static List<double[]> joined(Map<String, double[]> curves, double[] currents) {
+        List<double[]> line = new ArrayList<>();
+        for (double[] v : curves.values()) {
+            for (int k = 0; k < currents.length; k++) {
+                line.add(new double[] {v[k], currents[k]});
+            }
+            line.add(new double[] {Double.NaN, Double.NaN});
+        }
+        return line;
+    }
+
+    private static <T> List<T> spread(List<T> items, int max) {
+        if (items.size() <= max) {
+            return items;
+        }
+        List<T> out = new ArrayList<>();
+        for (int i = 0; i < max; i++) {
+            out.add(items.get((int) Math.round(i * (items.size() - 1) / (double) (max - 1))));
+        }
+        return out;
+    }
+
+    private static String axisName(Param p) {
+        return (LotStatistics.space(p).equals("log10") ? "log10 " : "") + p.name() + (p.unit().isEmpty() ? "" : " [" + p.unit() + "]");
+    }
+
+    /** A number in at most 4 significant digits, without trailing zeros. */
+    private static String plain(double v) {
+        return new java.math.BigDecimal(String.format(Locale.ROOT, "%.4g", v)).stripTrailingZeros().toPlainString();
+    }
+
+    private static String g3(double v) {
+        return String.format(Locale.ROOT, "%.3g", v);
     }
 
     private static String rect(double x, double y, double w, double h, String cls) {

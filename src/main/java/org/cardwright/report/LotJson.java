@@ -127,6 +127,13 @@ public final class LotJson {
         List<Object> files = Json.array();
         files.addAll(o.cards().stream().map(p -> p.getFileName().toString()).toList());
         root.put("cardFiles", files);
+        Map<String, Object> partCards = Json.object();
+        boolean written = o.request().writesPartCards(o.parts().size());
+        partCards.put("rule", o.request().partCards().name().toLowerCase(java.util.Locale.ROOT));
+        partCards.put("written", written);
+        partCards.put("folder", written ? o.request().partCardDir().getFileName().toString() : null);
+        partCards.put("cards", written ? o.parts().stream().filter(PartResult::ok).count() * o.request().dialects().size() : 0);
+        root.put("partCards", partCards);
         return Json.write(root);
     }
 

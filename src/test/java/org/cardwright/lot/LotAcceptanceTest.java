@@ -24,7 +24,8 @@ import org.junit.jupiter.api.TestInstance;
 
 /**
  * The issue's acceptance on an invented lot ({@link LotGenerator}): 194 parts from a stated multivariate normal
- * distribution, 4 deliberate outliers and 2 unreadable files, 200 entries in all. The statistics must recover the
+ * distribution, 4 deliberate outliers and 2 unreadable files, 200 entries in all, every part simulated in ngspice 39
+ * (forward I-V and C-V, all parts in one deck, {@link NgspiceLot}) with seeded noise added. The statistics must recover the
  * stated means within 2 standard errors and the stated correlations within 0.1; exactly the outliers and the
  * unreadable files are named; nothing else is dropped. Then ngspice 39 runs the Monte Carlo card 500 times and the
  * forward-voltage corners, against the lot's measured VF at IF.
@@ -54,7 +55,7 @@ class LotAcceptanceTest {
     @BeforeAll
     void runLot() throws Exception {
         dir = Simulators.tempDir("lot-acceptance");
-        lot = LotGenerator.write(dir.resolve("parts"), NORMAL_PARTS, 20261203L, true, true);
+        lot = LotGenerator.write(dir.resolve("parts"), NORMAL_PARTS, 20261203L, true, true, Simulators.requireNgspice());
         StringWriter out = new StringWriter();
         StringWriter err = new StringWriter();
         exitCode = Main.execute(new PrintWriter(out), new PrintWriter(err), "lot", dir.resolve("parts").toString(),

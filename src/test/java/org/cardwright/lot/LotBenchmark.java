@@ -67,11 +67,14 @@ public final class LotBenchmark {
         Path out = root.resolve("out-" + lot + "-" + jobs);
         LotRequest request = new LotRequest(List.of(root.resolve(lot)), "BENCH", out, List.of(Dialect.NGSPICE), jobs, settings,
                 3.0, Map.of(), OptionalDouble.empty(), 7, false, java.util.Optional.empty());
+        var os = (com.sun.management.OperatingSystemMXBean) java.lang.management.ManagementFactory.getOperatingSystemMXBean();
+        long c0 = os.getProcessCpuTime();
         long t0 = System.nanoTime();
         LotOutcome o = new LotJob().run(request, LotJson::write, LotProgress.NONE);
         double s = (System.nanoTime() - t0) * 1e-9;
-        System.out.printf(Locale.ROOT, "%-8s %5d parts, %d thread(s): %7.2f s wall, %6.1f parts/s; %d fitted, %d outliers, IS mean log10 %.4f, N mean %.4f%n",
-                what, o.parts().size(), jobs, s, o.parts().size() / s, o.parts().stream().filter(PartResult::ok).count(),
+        double cpu = (os.getProcessCpuTime() - c0) * 1e-9;
+        System.out.printf(Locale.ROOT, "%-8s %5d parts, %d thread(s): %7.2f s wall, %6.1f parts/s, %7.2f s CPU (%.1f ms a part), load %.1f; %d fitted, %d outliers, IS mean log10 %.4f, N mean %.4f%n",
+                what, o.parts().size(), jobs, s, o.parts().size() / s, cpu, 1e3 * cpu / o.parts().size(), os.getSystemLoadAverage(), o.parts().stream().filter(PartResult::ok).count(),
                 o.statistics().outliers().size(), o.statistics().parameters().get(org.cardwright.model.Param.IS).mean(),
                 o.statistics().parameters().get(org.cardwright.model.Param.N).mean());
     }

@@ -66,9 +66,18 @@ final class LotGenerator {
 
     /**
      * Writes a lot of {@code normal} parts plus the deliberate outliers and two unreadable files into {@code dir}: one
-     * sub-folder per part holding forward.csv (and cv.csv when {@code withCv}).
+     * sub-folder per part holding forward.csv (and cv.csv when {@code withCv}), simulated with the built-in engine.
      */
     static Lot write(Path dir, int normal, long seed, boolean withCv, boolean withBad) throws IOException {
+        return write(dir, normal, seed, withCv, withBad, null);
+    }
+
+    /**
+     * As {@link #write(Path, int, long, boolean, boolean)}, but every part is simulated in ngspice ({@code ngspice}
+     * the executable; null for the built-in engine): all parts in one deck, written beside the lot folder as
+     * {@code DIR.generating.cir}, tight tolerances. The noise is drawn in the same order either way.
+     */
+    static Lot write(Path dir, int normal, long seed, boolean withCv, boolean withBad, Path ngspice) throws IOException {
         Random rnd = new Random(seed);
         Files.createDirectories(dir);
         double[][] z = momentMatched(normal, rnd);
@@ -112,9 +121,14 @@ final class LotGenerator {
                 theta = thetas.get(n++);
                 normalNames.add(name);
             }
-            DiodeParameters p = parameters(theta);
-            truth.put(name, p);
-            writePart(dir.resolve(name), name, p, rnd, withCv);
+            truth.put(name, parameters(theta));
+        }
+        Curves curves = ngspice == null ? builtIn(truth, withCv)
+                : NgspiceLot.simulate(ngspice, truth, CURRENTS, withCv ? BIASES : new double[0], CV_FREQUENCY,
+                        dir.resolveSibling(dir.getFileName() + ".generating.cir"));
+        String engine = ngspice == null ? "built-in engine = ngspice 39 equations" : "simulated in ngspice, tolerances reltol=1e-7 vntol=1e-10 abstol=1e-16";
+        for (String name : truth.keySet()) {
+            writePart(dir.resolve(name), name, curves.forward().get(name), withCv ? curves.capacitance().get(name) : null, rnd, engine);
         }
         List<String> bad = new ArrayList<>();
         if (withBad) {
@@ -129,6 +143,88 @@ final class LotGenerator {
         return new Lot(normalNames, outlierNames, bad, truth);
     }
 
+    /** Forward currents of every part: 1 nA to 50 mA, 5 points a decade [A]. */
+    static final double[] CURRENTS = currents();
+    /** C-V biases [V]. */
+    static final double[] BIASES = {-10, -7, -5, -3, -2, -1.5, -1, -0.7, -0.5, -0.3, -0.2, -0.1, 0, 0.1, 0.2};
+    /** C-V measurement frequency [Hz]. */
+    static final double CV_FREQUENCY = 1e6;
+
+    private static double[] currents() {
+        List<Double> out = new ArrayList<>();
+        for (int k = 0; k <= 5 * 7 + 3; k++) {
+            double i = 1e-9 * Math.pow(10, k / 5.0);
+            if (i > 5.01e-2) {
+                break;
+            }
+            out.add(Double.parseDouble(String.format(Locale.ROOT, "%.6e", i)));
+        }
+        return out.stream().mapToDouble(Double::doubleValue).toArray();
+    }
+
+    /**
+     * Noise-free curves by part: forward voltages at {@link #CURRENTS}, capacitances at {@link #BIASES}.
+     *
+     * @param forward     part name to voltages [V]
+     * @param capacitance part name to capacitances [F] (empty without C-V)
+     */
+    record Curves(Map<String, double[]> forward, Map<String, double[]> capacitance) {
+    }
+
+    private static Curves builtIn(Map<String, DiodeParameters> truth, boolean withCv) {
+        Map<String, double[]> f = new java.util.LinkedHashMap<>();
+        Map<String, double[]> c = new java.util.LinkedHashMap<>();
+        for (var e : truth.entrySet()) {
+            DiodeAtTemperature d = TemperatureLaws.at(e.getValue(), KELVIN_25C, SimulatorOptions.NGSPICE_DEFAULTS);
+            double[] v = new double[CURRENTS.length];
+            for (int k = 0; k < v.length; k++) {
+                v[k] = DiodeSolver.voltageAtCurrent(d, CURRENTS[k]);
+            }
+            f.put(e.getKey(), v);
+            if (withCv) {
+                double[] cap = new double[BIASES.length];
+                for (int k = 0; k < cap.length; k++) {
+                    cap[k] = JunctionCapacitance.terminalParallel(d, BIASES[k], CV_FREQUENCY);
+                }
+                c.put(e.getKey(), cap);
+            }
+        }
+        return new Curves(f, c);
+    }
+
+    private static void writePart(Path folder, String name, double[] voltages, double[] capacitances, Random rnd, String engine) throws IOException {
+        Files.createDirectories(folder);
+        StringBuilder f = new StringBuilder();
+        f.append("# Invented test data, not a measurement: part ").append(name)
+                .append(" of an invented lot (LotGenerator, ").append(engine).append(", seeded noise)\n");
+        f.append(DISTRIBUTION);
+        f.append("V [V],I [A],T [degC]\n");
+        for (int k = 0; k < CURRENTS.length; k++) {
+            double v = voltages[k] + VOLTAGE_NOISE * rnd.nextGaussian();
+            f.append(String.format(Locale.ROOT, "%.7f,%.6e,25.0%n", v, CURRENTS[k]));
+        }
+        Files.writeString(folder.resolve("forward.csv"), f.toString(), StandardCharsets.UTF_8);
+        if (capacitances != null) {
+            StringBuilder c = new StringBuilder();
+            c.append("# Invented test data, not a measurement: C-V of part ").append(name).append(" at 1 MHz (").append(engine).append(")\n");
+            c.append(DISTRIBUTION);
+            c.append("V [V],C [F],T [degC]\n");
+            for (int k = 0; k < BIASES.length; k++) {
+                double cap = capacitances[k] * (1 + CAPACITANCE_NOISE * rnd.nextGaussian());
+                c.append(String.format(Locale.ROOT, "%.2f,%.6e,25.0%n", BIASES[k], cap));
+            }
+            Files.writeString(folder.resolve("cv.csv"), c.toString(), StandardCharsets.UTF_8);
+        }
+    }
+
+    /** The generating distribution, as every part file states it in its header. */
+    static final String DISTRIBUTION = String.format(Locale.ROOT,
+            "# Generating distribution (multivariate normal, moment-matched): log10 IS, N, RS [ohm], log10 CJO with means %s,%n"
+                    + "#   standard deviations %s, correlations %s; VJ 0.7 V, M 0.4; noise %.2g V on V, %.2g relative on C.%n"
+                    + "#   Deliberate outliers: RS x4 (twice), N at 1.25, IS x10.%n",
+            java.util.Arrays.toString(MEAN), java.util.Arrays.toString(STD), java.util.Arrays.deepToString(CORRELATION),
+            VOLTAGE_NOISE, CAPACITANCE_NOISE);
+
     static DiodeParameters parameters(double[] theta) {
         Map<Param, Double> m = new EnumMap<>(Param.class);
         m.put(Param.IS, Math.pow(10, theta[0]));
@@ -138,34 +234,6 @@ final class LotGenerator {
         m.put(Param.VJ, 0.7);
         m.put(Param.M, 0.4);
         return DiodeParameters.of(m);
-    }
-
-    private static void writePart(Path folder, String name, DiodeParameters p, Random rnd, boolean withCv) throws IOException {
-        Files.createDirectories(folder);
-        DiodeAtTemperature d = TemperatureLaws.at(p, KELVIN_25C, SimulatorOptions.NGSPICE_DEFAULTS);
-        StringBuilder f = new StringBuilder();
-        f.append("# Invented test data, not a measurement: part ").append(name)
-                .append(" of an invented lot (LotGenerator, built-in engine = ngspice 39 equations, seeded noise)\n");
-        f.append("V [V],I [A],T [degC]\n");
-        for (int k = 0; k <= 5 * 7 + 3; k++) {
-            double i = 1e-9 * Math.pow(10, k / 5.0);
-            if (i > 5.01e-2) {
-                break;
-            }
-            double v = DiodeSolver.voltageAtCurrent(d, i) + VOLTAGE_NOISE * rnd.nextGaussian();
-            f.append(String.format(Locale.ROOT, "%.7f,%.6e,25.0%n", v, i));
-        }
-        Files.writeString(folder.resolve("forward.csv"), f.toString(), StandardCharsets.UTF_8);
-        if (withCv) {
-            StringBuilder c = new StringBuilder();
-            c.append("# Invented test data, not a measurement: C-V of part ").append(name).append(" at 1 MHz\n");
-            c.append("V [V],C [F],T [degC]\n");
-            for (double v : new double[] {-10, -7, -5, -3, -2, -1.5, -1, -0.7, -0.5, -0.3, -0.2, -0.1, 0, 0.1, 0.2}) {
-                double cap = JunctionCapacitance.terminalParallel(d, v, 1e6) * (1 + CAPACITANCE_NOISE * rnd.nextGaussian());
-                c.append(String.format(Locale.ROOT, "%.2f,%.6e,25.0%n", v, cap));
-            }
-            Files.writeString(folder.resolve("cv.csv"), c.toString(), StandardCharsets.UTF_8);
-        }
     }
 
     /** n standard normal 4-vectors, centred and whitened so that their sample mean is 0 and covariance the identity. */

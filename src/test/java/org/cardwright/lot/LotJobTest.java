@@ -52,12 +52,15 @@ class LotJobTest {
         return Main.execute(new PrintWriter(new StringWriter()), new PrintWriter(new StringWriter()), args.toArray(String[]::new));
     }
 
-    /** Every output file (not the state folder) by name, with its bytes. */
+    /** Every output file (not the state folder; the per-part cards too) by relative name, with its bytes. */
     private static Map<String, byte[]> outputs(Path out) throws Exception {
         Map<String, byte[]> m = new TreeMap<>();
-        try (Stream<Path> s = Files.list(out)) {
+        try (Stream<Path> s = Files.walk(out)) {
             for (Path p : s.filter(Files::isRegularFile).toList()) {
-                m.put(p.getFileName().toString(), Files.readAllBytes(p));
+                String name = out.relativize(p).toString();
+                if (!name.contains(".lot-state")) {
+                    m.put(name, Files.readAllBytes(p));
+                }
             }
         }
         return m;
@@ -90,6 +93,10 @@ class LotJobTest {
             assertEquals(1.0, json.get("correlation").get(p).get(p).asDouble(), 0.0, "a parameter's correlation with itself is 1");
         }
         assertEquals(json.get("correlation").get("IS").get("N").asDouble(), json.get("correlation").get("N").get("IS").asDouble(), 0.0);
+
+        // a lot of at most 1000 parts gets one card per part by default, byte-identical like the rest (above)
+        assertEquals(PARTS, one.keySet().stream().filter(k -> k.startsWith("LOTJ.parts/") && k.endsWith(".ngspice.lib")).count(), one.keySet().toString());
+        assertTrue(json.get("partCards").get("written").asBoolean());
 
         assertEquals(6, lot(dir.resolve("one"), parts), "a finished lot is not overwritten without --force");
     }
@@ -199,7 +206,7 @@ class LotJobTest {
         assertTrue(outliers.contains("LT1-17"), outliers.toString());
         // the page: one histogram per summarised parameter, the outlier named
         String html = Files.readString(out.resolve("LOTJ.lot.html"), StandardCharsets.UTF_8);
-        assertEquals(json.get("statistics").size(), html.split("<svg ", -1).length - 1);
+        assertEquals(json.get("statistics").size(), html.split("class=\"hist\"", -1).length - 1);
         assertTrue(html.contains("<b>LT1-17</b>"), "the outlier is listed on the page");
         // stated means of MakeLot (log10 IS, N, RS); a drawn lot of ~22 parts scatters by std/sqrt(n): three standard errors
         Map<String, Double> stated = Map.of("IS", -14.3, "N", 1.03, "RS", 0.9);
@@ -209,6 +216,80 @@ class LotJobTest {
             assertEquals(e.getValue(), s.get("mean").asDouble(), 3 * se, e.getKey());
         }
     }
+
+    /**
+     * Each part's own card, simulated in ngspice 39 at the datasheet's IF, gives the part's measured VF there (the
+     * shipped lot: 24 parts simulated in ngspice with 0.2 mV noise) and the VF the lot computed from it; with
+     * {@code --part-cards off} no card folder is written.
+     */
+    @Test
+    void perPartCardsReproduceEachPartInNgspiceAndCanBeTurnedOff() throws Exception {
+        Path ngspice = Simulators.requireNgspice();
+        Path out = dir.resolve("part-cards");
+        Path table = Simulators.projectDir().resolve("fixtures/lot/lt1-lot-forward.csv");
+        assertEquals(0, lot(out, table.toString(), "--jobs", "2"));
+        JsonNode json = new ObjectMapper().readTree(out.resolve("LOTJ.lot.json").toFile());
+        JsonNode vfRow = null;
+        for (JsonNode q : json.get("datasheet").get("quantities")) {
+            if (q.get("quantity").asText().equals("VF")) {
+                vfRow = q;
+            }
+        }
+        assertTrue(vfRow != null, json.get("datasheet").toString());
+        double current = vfRow.get("IF").asDouble();
+        List<String> lines = Files.readAllLines(out.resolve("LOTJ.parts.csv"));
+        List<String> header = List.of(lines.get(0).split(","));
+        StringBuilder deck = new StringBuilder("* every part's own card at IF\n");
+        List<String[]> rows = new ArrayList<>();
+        for (String l : lines.subList(1, lines.size())) {
+            String[] f = l.split(",", -1);
+            int k = rows.size() + 1;
+            Path card = out.resolve("LOTJ.parts").resolve(f[0] + ".ngspice.lib");
+            assertTrue(Files.isRegularFile(card), card.toString());
+            deck.append(".include ").append(card.toAbsolutePath()).append('\n');
+            deck.append("I").append(k).append(" 0 a").append(k).append(" DC ").append(current).append('\n');
+            deck.append("D").append(k).append(" a").append(k).append(" 0 LOTJ_").append(f[0]).append('\n');
+            rows.add(f);
+        }
+        deck.append(".temp ").append(json.get("datasheet").get("temperature").asDouble()).append("\n.control\nop\n");
+        for (int k = 1; k <= rows.size(); k++) {
+            deck.append("let vv = v(a").append(k).append(")\necho PARTVF ").append(k).append(" $&vv\n");
+        }
+        deck.append("quit\n.endc\n.end\n");
+        Path cir = out.resolve("part-cards.cir");
+        Files.writeString(cir, deck.toString(), StandardCharsets.US_ASCII);
+        Process p = new ProcessBuilder(ngspice.toString(), "-b", cir.toString()).redirectErrorStream(true).start();
+        String text = new String(p.getInputStream().readAllBytes(), StandardCharsets.UTF_8);
+        assertTrue(p.waitFor(120, java.util.concurrent.TimeUnit.SECONDS) && p.exitValue() == 0, text);
+        int measuredCol = header.indexOf("VF measured [V]");
+        int cardCol = header.indexOf("VF card [V]");
+        int checked = 0;
+        for (String line : text.split("\n")) {
+            if (line.startsWith("PARTVF ")) {
+                String[] f = line.trim().split("\\s+");
+                String[] row = rows.get(Integer.parseInt(f[1]) - 1);
+                double vf = Double.parseDouble(f[2]);
+                assertEquals(Double.parseDouble(row[measuredCol]), vf, PART_CARD_VF_TOLERANCE, row[0] + ": ngspice VF of its card against its measured VF");
+                assertEquals(Double.parseDouble(row[cardCol]), vf, ENGINE_AGREEMENT, row[0] + ": ngspice VF of its card against the lot's own");
+                checked++;
+            }
+        }
+        assertEquals(rows.size(), checked, text);
+
+        Path off = dir.resolve("part-cards-off");
+        assertEquals(0, lot(off, table.toString(), "--jobs", "2", "--part-cards", "off"));
+        assertTrue(!Files.exists(off.resolve("LOTJ.parts")), "--part-cards off writes no card folder");
+        assertTrue(!new ObjectMapper().readTree(off.resolve("LOTJ.lot.json").toFile()).get("partCards").get("written").asBoolean());
+        assertEquals(2, lot(dir.resolve("part-cards-bad"), table.toString(), "--part-cards", "sometimes"), "a wrong value is a usage error");
+    }
+
+    /**
+     * A part's card at IF against the part's VF measured there: five times the fixture's 0.2 mV voltage noise, since
+     * one interpolated reading is compared with the fitted curve [V].
+     */
+    private static final double PART_CARD_VF_TOLERANCE = 1e-3;
+    /** The built-in engine's VF against ngspice 39's for the same card: both solve the same equations [V]. */
+    private static final double ENGINE_AGREEMENT = 1e-5;
 
     /** part name to the IS..RS cells of its row (status and later columns left out). */
     private static Map<String, String> rows(Path csv) throws Exception {

@@ -168,7 +168,8 @@ public final class SparkLot {
     }
 
     /** Runs the lot on Spark. */
-    public static LotOutcome run(Options options) throws Exception {
+    public static LotOutcome run(Options given) throws Exception {
+        Options options = withParquetAsCsv(given);
         LotRequest request = options.request();
         SparkConf conf = new SparkConf().setAppName("cardwright lot " + options.name());
         if (!options.master().isEmpty()) {
@@ -206,6 +207,20 @@ public final class SparkLot {
             prepared.results()[prepared.todo().get(k)] = r;
         }
         return job.finish(prepared, LotJson::write, LotHtml::write);
+    }
+
+    /** The options with every *.parquet input replaced by its long CSV table in the lot's state folder ({@link ParquetTable}). */
+    static Options withParquetAsCsv(Options o) throws java.io.IOException {
+        if (o.inputs().stream().noneMatch(in -> ParquetTable.isParquet(Path.of(in)))) {
+            return o;
+        }
+        Path dir = Path.of(o.out()).resolve(o.name() + ".lot-state").resolve("parquet");
+        List<String> inputs = new ArrayList<>();
+        for (String in : o.inputs()) {
+            inputs.add(ParquetTable.isParquet(Path.of(in)) ? ParquetTable.toCsv(Path.of(in), dir).toString() : in);
+        }
+        return new Options(List.copyOf(inputs), o.name(), o.out(), o.master(), o.partitions(), o.rules(), o.kind(), o.temp(),
+                o.options(), o.force());
     }
 
     /** The per-part task on an executor: the plain path's {@link LotJob#fitAndStore}, settings rebuilt from the options. */
