@@ -374,14 +374,32 @@ public final class DeviceFileReader {
                 temperature = OptionalDouble.of(k);
             }
             Map<String, String> options = new LinkedHashMap<>();
+            Set<org.cardwright.data.Condition> given = new HashSet<>();
             if (e.options() != null) {
                 for (Map.Entry<String, Located> o : e.options().entrySet()) {
-                    if (dk.readable()) {
-                        int at = o.getValue() == null ? e.file().line() : o.getValue().line();
+                    int at = o.getValue() == null ? e.file().line() : o.getValue().line();
+                    java.util.Set<org.cardwright.data.Condition> allowedHere = dk.conditions();
+                    java.util.Optional<org.cardwright.data.Condition> c = org.cardwright.data.Condition.byKey(o.getKey())
+                            .filter(allowedHere::contains);
+                    if (c.isEmpty()) {
+                        String allowed = dk.conditions().stream().map(org.cardwright.data.Condition::optionName)
+                                .collect(Collectors.joining(", "));
                         throw new DeviceFileException(path, at, "unknown option " + Excerpts.quoted(o.getKey()) + " for "
-                                + dk.spelling() + " data: this kind takes no options");
+                                + dk.spelling() + " data: " + (allowed.isEmpty() ? "this kind takes no options"
+                                : "this kind takes " + allowed)
+                                + (o.getKey().trim().equalsIgnoreCase("temperature") ? " (the entry's own key 'temperature' gives it)" : ""));
                     }
-                    options.put(o.getKey(), o.getValue() == null ? "" : o.getValue().text());
+                    if (!given.add(c.get())) {
+                        throw new DeviceFileException(path, at, "option " + c.get().optionName() + " given twice");
+                    }
+                    String value = o.getValue() == null ? "" : o.getValue().text();
+                    try {
+                        c.get().parse(value);
+                    } catch (IllegalArgumentException ex) {
+                        throw new DeviceFileException(path, at, "option " + Excerpts.quoted(o.getKey()) + ": "
+                                + ex.getMessage());
+                    }
+                    options.put(c.get().optionName(), value.trim());
                 }
             }
             data.add(new DataSource(file, dk, temperature, options, e.file().line()));

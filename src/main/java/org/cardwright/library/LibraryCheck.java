@@ -136,7 +136,8 @@ public final class LibraryCheck {
         Verification v;
         try {
             VerifyRequest request = new VerifyRequest(card, inputs.paths(), engine, Optional.of(part.model()), d,
-                    inputs.temperature(), part.tolerances().forward(), Optional.empty(), false);
+                    inputs.temperature(), part.tolerances().forward(), Optional.empty(), false)
+                    .withConditions(inputs.conditions());
             v = new VerifyWorkflow().run(request, x -> "");
         } catch (DataFileException | SimulationException | OutputException | CardFormatException | IOException
                  | IllegalArgumentException e) {

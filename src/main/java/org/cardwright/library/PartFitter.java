@@ -96,7 +96,8 @@ final class PartFitter {
                         "no data file of a kind this version fits (forward, reverse, cv, recovery, bench-log)");
             }
             FitRequest request = new FitRequest(inputs.paths(), part.model(), part.dialects(), scratch, Optional.empty(),
-                    inputs.temperature(), part.kind(), rules, part.digits(), true, templates(part));
+                    inputs.temperature(), part.kind(), rules, part.digits(), true, templates(part))
+                    .withConditions(inputs.conditions());
             FitOutcome outcome;
             try {
                 outcome = new FitWorkflow().run(request, o -> "");

@@ -108,7 +108,8 @@ final class Tweaker {
             }
             Inputs read;
             try {
-                read = Inputs.read(inputs.paths(), options);
+                read = Inputs.read(inputs.paths(), options, p -> inputs.conditions().getOrDefault(p,
+                        org.cardwright.data.GivenConditions.NONE));
             } catch (DataFileException e) {
                 throw new LibraryInputException(inputs.displayName(e.getMessage()), e);
             }

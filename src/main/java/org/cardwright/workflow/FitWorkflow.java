@@ -73,7 +73,9 @@ public final class FitWorkflow {
         OutputFiles.checkWritable(targets, request.force());
 
         ReadOptions options = request.readOptions();
-        Inputs inputs = Inputs.read(request.data(), options).withSweepNote(request.sweepGap());
+        Inputs inputs = Inputs.read(request.data(), options, request::givenFor).withSweepNote(request.sweepGap());
+        // the C-V conditions the files state (or are given) decide the stray capacitance and test frequency
+        org.cardwright.fit.CapacitanceOptions capacitance = inputs.capacitanceOptions(request.capacitance());
         ExtractionData data = extractionData(inputs);
         org.cardwright.fit.ForwardReduction.Reduced forward = org.cardwright.fit.ForwardReduction.reduce(data.forward());
         if (forward.reduced()) {
@@ -90,7 +92,7 @@ public final class FitWorkflow {
         }
         FitSettings settings = FitSettings.defaults().withKind(request.kind()).withRules(request.rules())
                 .withSelfHeating(request.selfHeating()).withSweepGap(request.sweepGap());
-        FitResult full = extract(settings, request, data);
+        FitResult full = extract(settings, request, capacitance, data);
         if (data.forward().isEmpty() && full.fitted().stream().noneMatch(org.cardwright.fit.FittedParameter::fitted)) {
             // e.g. leakage without breakdown: a card of defaults would describe nothing the data determine
             throw new FitInputException(noForwardPoints(inputs));
@@ -123,7 +125,7 @@ public final class FitWorkflow {
                         new org.cardwright.model.SimulatorOptions(settings.options().gmin(), settings.options().reltol(), d.flavour()))
                         // the full fit decided the resistor between the terminals; a refit carries it or not alike
                         .withShunt(full.shunt().isPresent() ? FitSettings.ShuntChoice.ON : FitSettings.ShuntChoice.OFF);
-                forCard = extract(target, request, data);
+                forCard = extract(target, request, capacitance, data);
                 refit = Optional.of(forCard);
             }
             List<String> provenance = provenance(request, inputs, full, forCard, d, leftOut);
@@ -164,11 +166,13 @@ public final class FitWorkflow {
      * converge, and the model's own checks (a start value or parameter that is no longer finite, a singular
      * matrix), which only extreme data reach.
      */
-    private static FitResult extract(FitSettings settings, FitRequest request, ExtractionData data) throws FitInputException {
+    private static FitResult extract(FitSettings settings, FitRequest request,
+                                     org.cardwright.fit.CapacitanceOptions capacitance, ExtractionData data)
+            throws FitInputException {
         try {
             return request.robust()
-                    ? new RobustExtraction(settings, request.capacitance()).fit(data)
-                    : new JunctionExtraction(settings, request.capacitance()).fit(data);
+                    ? new RobustExtraction(settings, capacitance).fit(data)
+                    : new JunctionExtraction(settings, capacitance).fit(data);
         } catch (org.cardwright.fit.FitFailedException | IllegalArgumentException | ArithmeticException e) {
             throw new org.cardwright.fit.FitFailedException(request.data().stream().map(Inputs::displayName)
                     .collect(Collectors.joining(", ")) + ": the data cannot be fitted: " + e.getMessage());
