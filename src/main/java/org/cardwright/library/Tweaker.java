@@ -78,6 +78,10 @@ final class Tweaker {
             return new Result(base, refitted, tweak, fitted, value, notes);
         }
         List<MeasuredPoint> points = forwardPoints(part, root);
+        Inputs all = inputs(part, root);
+        org.cardwright.workflow.CardRange range = org.cardwright.workflow.CardRange.of(
+                org.cardwright.workflow.FitWorkflow.extractionData(all));
+        double frequency = capacitanceFrequency(part, all);
         List<PartFitter.Card> cards = new ArrayList<>();
         for (PartFitter.Card c : base.cards()) {
             if (!c.dialect().carries(tweak.param())) {
@@ -87,6 +91,10 @@ final class Tweaker {
                 continue;
             }
             DiodeParameters p = c.parameters().with(tweak.param(), value);
+            // the tweaked card must still evaluate across the measured range, as a fitted one must
+            range.check("the " + c.dialect().shortName() + " card of " + part.model() + " with tweak " + tweak.text(), p,
+                    new SimulatorOptions(SimulatorOptions.NGSPICE_DEFAULTS.gmin(), SimulatorOptions.NGSPICE_DEFAULTS.reltol(),
+                            c.dialect().flavour()), frequency);
             cards.add(PartFitter.render(part, recipe, part.rules(), c.dialect(), p, base.points(),
                     residuals(part.model(), p, points), c.leftOut(), c.leftOutCost(), List.of(line)));
         }
@@ -96,6 +104,32 @@ final class Tweaker {
 
     private static String card(Tweak t, double si) {
         return SpiceNumbers.format(t.param().toCardValue(si), 7);
+    }
+
+    /** Every data kind of the part, read as the fit reads it. */
+    private static Inputs inputs(DeviceFile part, Path root)
+            throws DeviceFileException, LibraryInputException, IOException {
+        try (StagedInputs inputs = StagedInputs.of(part, root)) {
+            ReadOptions options = ReadOptions.defaults();
+            if (inputs.temperature().isPresent()) {
+                options = options.withDefaultTemperature(inputs.temperature().getAsDouble());
+            }
+            try {
+                return Inputs.read(inputs.paths(), options, p -> inputs.conditions().getOrDefault(p,
+                        org.cardwright.data.GivenConditions.NONE));
+            } catch (DataFileException e) {
+                throw new LibraryInputException(inputs.displayName(e.getMessage()), e);
+            }
+        }
+    }
+
+    /** The C-V test frequency the part's files state or are given [Hz]. */
+    private static double capacitanceFrequency(DeviceFile part, Inputs read) throws LibraryInputException {
+        try {
+            return read.capacitanceOptions(org.cardwright.fit.CapacitanceOptions.DEFAULT).frequency();
+        } catch (DataFileException e) {
+            throw new LibraryInputException(e.getMessage(), e);
+        }
     }
 
     /** The part's forward points, as verify sees them. */

@@ -98,6 +98,9 @@ public final class FitWorkflow {
             throw new FitInputException(noForwardPoints(inputs));
         }
 
+        // every card must evaluate across the measured temperatures and biases (VJ(T) > 0, nothing NaN or infinite)
+        CardRange range = CardRange.of(data);
+        range.check("the fitted card of " + request.name(), full.parameters(), settings.options(), capacitance.frequency());
         CardWriter writer = new CardWriter(request.templates());
         List<FitOutcome.WrittenCard> cards = new ArrayList<>();
         for (Dialect d : request.dialects()) {
@@ -126,6 +129,8 @@ public final class FitWorkflow {
                         // the full fit decided the resistor between the terminals; a refit carries it or not alike
                         .withShunt(full.shunt().isPresent() ? FitSettings.ShuntChoice.ON : FitSettings.ShuntChoice.OFF);
                 forCard = extract(target, request, capacitance, data);
+                range.check("the " + d.shortName() + " card of " + request.name(), forCard.parameters(),
+                        target.options(), capacitance.frequency());
                 refit = Optional.of(forCard);
             }
             List<String> provenance = provenance(request, inputs, full, forCard, d, leftOut);
