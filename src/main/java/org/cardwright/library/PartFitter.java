@@ -197,6 +197,7 @@ final class PartFitter {
         for (DataSource s : part.data()) {
             StringBuilder sb = new StringBuilder("data: ").append(s.file()).append(" (").append(s.kind().spelling());
             s.temperature().ifPresent(t -> sb.append(", ").append(DeviceFile.celsiusText(t)).append(" degC"));
+            s.options().forEach((k, v) -> sb.append(", ").append(k).append(' ').append(v));
             if (!s.kind().readable()) {
                 sb.append("; not read by this version");
             }

@@ -304,6 +304,7 @@ public final class FitWorkflow {
         if (!request.rules().isEmpty()) {
             lines.add("rules: " + request.rules().stream().map(ParameterRule::text).collect(Collectors.joining(" ")));
         }
+        conditionsLine(inputs).ifPresent(lines::add);
         if (d.flavour() != org.cardwright.model.Flavour.NGSPICE_39) {
             lines.add("fitted with " + d.flavour().label() + "'s own equations (constants"
                     + (d.flavour().xyceKnee() ? ", high-injection law" : "")
@@ -318,6 +319,32 @@ public final class FitWorkflow {
                 + request.data().stream().map(p -> ShellWords.quote(relative(home, p))).collect(Collectors.joining(" "))
                 + verifyOptions(request, d));
         return lines;
+    }
+
+    /**
+     * The C-V conditions the fit used, with where each came from, when either is not the default: e.g.
+     * "C-V conditions: stray capacitance 20 pF (cv25.csv, line 2 of the file), test frequency 1 MHz (the default)".
+     */
+    static Optional<String> conditionsLine(Inputs inputs) {
+        for (MeasurementFile f : inputs.files()) {
+            if (f.kind() != org.cardwright.data.DataKind.CV) {
+                continue;
+            }
+            List<String> parts = new ArrayList<>();
+            boolean stated = false;
+            for (org.cardwright.data.Condition c : List.of(org.cardwright.data.Condition.STRAY_CAPACITANCE,
+                    org.cardwright.data.Condition.TEST_FREQUENCY)) {
+                Optional<org.cardwright.data.ConditionValue> v = f.condition(c);
+                if (v.isEmpty()) {
+                    continue;
+                }
+                stated |= !v.get().source().equals("the default");
+                parts.add(c.key() + " " + c.text(v.get().value()) + " (" + (v.get().line() > 0
+                        ? f.file().getFileName() + ", " : "") + v.get().source() + ")");
+            }
+            return stated ? Optional.of("C-V conditions: " + String.join(", ", parts)) : Optional.empty();
+        }
+        return Optional.empty();
     }
 
     /** The options a verify of this card needs to read the data as the fit did. */

@@ -110,6 +110,8 @@ class ConditionsTest {
                 r.describe());
         Path card = dir.resolve("out/Z.ngspice.lib");
         assertJunction(card);
+        assertTrue(Files.readString(card).contains("* C-V conditions: stray capacitance 20 pF (cv25.csv, line 2 of the file), "
+                + "test frequency 1 MHz (the default)"), "the card says which stray capacitance it was fitted with");
 
         List<String> verify = new ArrayList<>(List.of("verify", card.toString(), cv25.toString(), cv85.toString()));
         CliRun v = run(verify);
@@ -156,6 +158,8 @@ class ConditionsTest {
         assertEquals(0, b.exitCode(), b.describe());
         Path card = part.resolve("Z1.ngspice.lib");
         assertJunction(card);
+        assertTrue(Files.readString(card).contains("* data: data/cv25.csv (cv, stray-capacitance 20 pF, test-frequency 1 MHz) sha256 "),
+                "the card says which conditions its files were read with");
         CliRun c = CliRun.of("check", root.toString());
         assertEquals(0, c.exitCode(), c.describe());
 
