@@ -248,4 +248,12 @@ class ConditionsTest {
         assertTrue(unknown.describe().contains("--temp-for names 'elsewhere.csv', which is not among the data files"),
                 unknown.describe());
     }
+
+    @Test
+    void lotRefusesAPerFileTemperatureItWouldNotUse() {
+        CliRun r = CliRun.of("lot", DEMO.toString(), "--name", "L", "--out", Simulators.tempDir("conditions-lot").toString(),
+                "--temp-for", "a.csv=25");
+        assertEquals(ExitCodes.USAGE, r.exitCode(), r.describe());
+        assertTrue(r.err().contains("--temp-for is for fit and verify"), r.describe());
+    }
 }
