@@ -12,12 +12,16 @@ final class DataOptions {
     @Option(names = "--temp", paramLabel = "DEGC", description = "Device temperature in degC for files without a T column.")
     Double temperature;
 
+    @Option(names = "--temp-for", paramLabel = "FILE=DEGC",
+            description = "Device temperature in degC for one data file without a T column or temperature setting, e.g. --temp-for cold.csv=-40. Repeatable; it comes before --temp.")
+    java.util.List<String> temperatureFor = new java.util.ArrayList<>();
+
     @Option(names = "--stray-capacitance", paramLabel = "C", defaultValue = "0",
-            description = "Fixture/stray capacitance included in every C-V reading, subtracted (SPICE suffixes: 1.5p).")
+            description = "Fixture/stray capacitance included in every C-V reading, subtracted (SPICE suffixes: 1.5p), for C-V files that do not state it (a '# stray capacitance = ...' line in the file wins).")
     String stray;
 
     @Option(names = "--cv-frequency", paramLabel = "HZ", defaultValue = "1meg",
-            description = "Test frequency of the C-V readings (default: ${DEFAULT-VALUE}).")
+            description = "Test frequency of the C-V readings, for C-V files that do not state it ('# test frequency = ...'); default: ${DEFAULT-VALUE}.")
     String cvFrequency;
 
     @Option(names = "--meter-resistance", paramLabel = "OHMS",
@@ -27,6 +31,39 @@ final class DataOptions {
     /** The device temperature option in kelvin, if given. */
     OptionalDouble temperatureKelvin() {
         return temperature == null ? OptionalDouble.empty() : OptionalDouble.of(temperature + Ngspice39.CELSIUS_TO_KELVIN);
+    }
+
+    /**
+     * The per-file temperatures of {@code --temp-for}, by data file; each FILE must be one of {@code data} (the same
+     * file, however written).
+     *
+     * @throws IllegalArgumentException for a malformed entry, a file not among the data or a file named twice
+     */
+    java.util.Map<java.nio.file.Path, org.cardwright.data.GivenConditions> perFile(java.util.List<java.nio.file.Path> data) {
+        java.util.Map<java.nio.file.Path, org.cardwright.data.GivenConditions> out = new java.util.LinkedHashMap<>();
+        for (String entry : temperatureFor) {
+            int eq = entry.lastIndexOf('=');
+            if (eq <= 0 || eq == entry.length() - 1) {
+                throw new IllegalArgumentException("--temp-for takes FILE=DEGC, e.g. cold.csv=-40; got '" + entry + "'");
+            }
+            java.nio.file.Path named = java.nio.file.Path.of(entry.substring(0, eq).trim());
+            java.nio.file.Path match = null;
+            for (java.nio.file.Path d : data) {
+                if (d.toAbsolutePath().normalize().equals(named.toAbsolutePath().normalize())) {
+                    match = d;
+                }
+            }
+            if (match == null) {
+                throw new IllegalArgumentException("--temp-for names '" + named + "', which is not among the data files");
+            }
+            if (out.containsKey(match)) {
+                throw new IllegalArgumentException("--temp-for names '" + named + "' twice");
+            }
+            double kelvin = org.cardwright.data.Condition.TEMPERATURE.parse(entry.substring(eq + 1));
+            out.put(match, org.cardwright.data.GivenConditions.NONE.with(org.cardwright.data.Condition.TEMPERATURE, kelvin,
+                    "--temp-for " + entry.strip()));
+        }
+        return out;
     }
 
     /** The C-V reading conditions. */

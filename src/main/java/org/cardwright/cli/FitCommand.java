@@ -123,7 +123,7 @@ final class FitCommand implements Callable<Integer> {
         org.cardwright.workflow.VerifyRequest request = new org.cardwright.workflow.VerifyRequest(card.file(), data,
                 "builtin", Optional.of(name), card.dialect(), reading.temperatureKelvin(),
                 org.cardwright.verify.Tolerance.DEFAULT, Optional.empty(), force, reading.capacitance(),
-                reading.bench(!noMeterCorrection));
+                reading.bench(!noMeterCorrection)).withConditions(reading.perFile(data));
         org.cardwright.verify.JunctionVerification v = new org.cardwright.workflow.VerifyWorkflow().runAll(request, r -> "");
         var parsed = new org.cardwright.card.CardReader().parse(card.text(),
                 org.cardwright.workflow.Inputs.displayName(card.file()), card.dialect(), Optional.of(name));
@@ -174,6 +174,6 @@ final class FitCommand implements Callable<Integer> {
                 DeviceKind.byOptionName(kind), parsed, digits, force, Optional.ofNullable(templates),
                 reading.capacitance(),
                 reading.bench(!noMeterCorrection),
-                selfHeatingRemedy(selfHeating), robust, sweepGap);
+                selfHeatingRemedy(selfHeating), robust, sweepGap).withConditions(reading.perFile(data));
     }
 }

@@ -132,6 +132,10 @@ final class LotCommand implements Callable<Integer> {
         if (atIz != null) {
             conditions.put(Datasheet.Quantity.VZ, SpiceNumbers.parse(atIz));
         }
+        if (!reading.temperatureFor.isEmpty()) {
+            throw new org.cardwright.failure.UsageException("--temp-for is for fit and verify; a lot's files give their "
+                    + "temperature in a T column, a '# temperature = ...' line, or --temp");
+        }
         LotSettings settings = new LotSettings(reading.bench(true).readOptions(reading.temperatureKelvin()),
                 DeviceKind.byOptionName(kind), parsed, reading.capacitance());
         return new LotRequest(inputs, name, out, ds,

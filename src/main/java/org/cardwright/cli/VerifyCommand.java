@@ -31,14 +31,21 @@ import picocli.CommandLine.Parameters;
             "  cardwright verify models/KS1.ngspice.lib fixtures/demo/ks1-forward-*.csv",
             "  cardwright verify models/KS1.ngspice.lib fixtures/demo/ks1-*.csv --engine ngspice --json check.json",
             "  cardwright verify models/KS1.ngspice.lib fixtures/demo/ks1-*.csv --html KS1-evidence.html",
-            "  cardwright verify vendor.lib bench.csv --temp 25 --model D7 --limit-rms 5 --limit-max 15"})
+            "  cardwright verify vendor.lib bench.csv --temp 25 --model D7 --limit-rms 5 --limit-max 15",
+            "  cardwright verify lib/parts/Z1.ngspice.lib --device lib/parts/Z1.device.yaml",
+            "  cardwright verify Z1.lib hot.csv cold.csv --temp-for hot.csv=85 --temp-for cold.csv=-40"})
 final class VerifyCommand implements Callable<Integer> {
 
     @Parameters(index = "0", paramLabel = "CARD", description = "The card file (.lib, .mod, ...).")
     Path card;
 
-    @Parameters(index = "1..*", arity = "1..*", paramLabel = "DATA", description = "Measurement CSV files.")
-    List<Path> data;
+    @Parameters(index = "1..*", arity = "0..*", paramLabel = "DATA",
+            description = "Measurement CSV files (none with --device, which lists them).")
+    List<Path> data = new java.util.ArrayList<>();
+
+    @Option(names = "--device", paramLabel = "FILE",
+            description = "A library part's device file: verify against the data files it lists, read with the conditions it states for each (temperature, stray capacitance, ...); the model name defaults to its model.")
+    Path device;
 
     @picocli.CommandLine.Mixin
     SimulatorTimeLimit simulatorTimeLimit = new SimulatorTimeLimit();
@@ -118,9 +125,47 @@ final class VerifyCommand implements Callable<Integer> {
                 org.cardwright.report.PageFacts.hash(data), org.cardwright.report.PageFacts.parametersOf(parsed.parameters()));
     }
 
+    /** Per file: the device file's conditions first, then those of --temp-for. */
+    private static java.util.Map<Path, org.cardwright.data.GivenConditions> merged(
+            java.util.Map<Path, org.cardwright.data.GivenConditions> first,
+            java.util.Map<Path, org.cardwright.data.GivenConditions> then) {
+        java.util.Map<Path, org.cardwright.data.GivenConditions> out = new java.util.LinkedHashMap<>(then);
+        first.forEach((p, g) -> out.merge(p, g, (t, d) -> d.orElse(t)));
+        return out;
+    }
+
+    /** The data files and per-file conditions of {@code --device}, when given; else the DATA files as given. */
+    private java.util.Map<Path, org.cardwright.data.GivenConditions> deviceData() throws Exception {
+        java.util.Map<Path, org.cardwright.data.GivenConditions> given = new java.util.LinkedHashMap<>();
+        if (device == null) {
+            return given;
+        }
+        if (!data.isEmpty()) {
+            throw new org.cardwright.failure.UsageException("give either DATA files or --device (which lists the data), not both");
+        }
+        org.cardwright.library.DeviceFile part = new org.cardwright.library.DeviceFileReader().read(device);
+        String shown = Inputs.displayName(device);
+        List<Path> listed = new java.util.ArrayList<>();
+        for (org.cardwright.library.DataSource s : part.data()) {
+            if (!s.kind().readable()) {
+                continue;
+            }
+            // as the user would name it: relative to where the device file was named from
+            Path p = (device.getParent() == null ? Path.of("") : device.getParent()).resolve(s.file()).normalize();
+            listed.add(p);
+            given.put(p, s.given(shown));
+        }
+        data = listed;
+        if (model == null) {
+            model = part.model();
+        }
+        return given;
+    }
+
     @Override
     public Integer call() throws Exception {
         simulatorTimeLimit.apply();
+        java.util.Map<Path, org.cardwright.data.GivenConditions> fromDevice = deviceData();
         OutputPlan plan = new OutputPlan().input("the card", card).inputs("data file", data);
         if (json != null) {
             plan.output("--json", json);
@@ -137,7 +182,7 @@ final class VerifyCommand implements Callable<Integer> {
                 reading.temperatureKelvin(),
                 new Tolerance(limitRms * 1e-3, limitMax * 1e-3), Optional.ofNullable(json), force,
                 reading.capacitance(),
-                reading.bench(true), verdictBasis(verdict)));
+                reading.bench(true), verdictBasis(verdict)).withConditions(merged(fromDevice, reading.perFile(data))));
         JunctionVerification v = new VerifyWorkflow().runAll(request, r -> VerificationJson.write(r, Inputs.displayName(card)));
         if (html != null) {
             OutputFiles.writeAtomically(html, HtmlReport.render(v, Inputs.displayName(card), pageFacts()));

@@ -93,7 +93,11 @@ record ColumnUnit(Quantity quantity, String written, int powerOfTen, Scale scale
             new Spelling("megohm", Quantity.RESISTANCE, 6, Scale.LINEAR),
             new Spelling("Gohm", Quantity.RESISTANCE, 9, Scale.LINEAR),
             new Spelling("GOhm", Quantity.RESISTANCE, 9, Scale.LINEAR),
-            new Spelling("G\u03a9", Quantity.RESISTANCE, 9, Scale.LINEAR));
+            new Spelling("G\u03a9", Quantity.RESISTANCE, 9, Scale.LINEAR),
+            new Spelling("Hz", Quantity.FREQUENCY, 0, Scale.LINEAR),
+            new Spelling("kHz", Quantity.FREQUENCY, 3, Scale.LINEAR),
+            new Spelling("MHz", Quantity.FREQUENCY, 6, Scale.LINEAR),
+            new Spelling("GHz", Quantity.FREQUENCY, 9, Scale.LINEAR));
 
     ColumnUnit {
         Objects.requireNonNull(quantity, "quantity");

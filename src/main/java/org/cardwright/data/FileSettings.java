@@ -76,6 +76,7 @@ final class FileSettings {
                     case QUANTITY -> values.put(key, checked(key, exactQuantity(l.value(), key.quantity(), decimalComma)));
                     case PERCENT -> values.put(key, BigDecimal.valueOf(percent(l.value(), decimalComma)));
                     case ACCURACY -> parsed.put(key, accuracy(l.value(), key.quantity(), decimalComma));
+                    case YES_NO -> values.put(key, yesNo(l.value()) ? BigDecimal.ONE : BigDecimal.ZERO);
                 }
             } catch (CellProblem e) {
                 throw new DataFileException(file, l.line(), "cannot read setting '" + key.key() + "': "
@@ -225,6 +226,16 @@ final class FileSettings {
                     throw new CellProblem("temperature at or below absolute zero: " + si + " K");
                 }
             }
+            case STRAY_CAPACITANCE -> {
+                if (!(si >= 0)) {
+                    throw new CellProblem("a stray capacitance must not be negative, got " + si + " F");
+                }
+            }
+            case TEST_FREQUENCY -> {
+                if (!(si > 0)) {
+                    throw new CellProblem("a test frequency must be positive, got " + si + " Hz");
+                }
+            }
             default -> {
             }
         }
@@ -267,6 +278,29 @@ final class FileSettings {
         BigDecimal si = ColumnUnit.parse(q, m.group(2).strip()).toSi(number);
         DecimalText.toDouble(si);
         return si;
+    }
+
+    /** A yes/no value: yes, true, on or 1 is yes; no, false, off or 0 is no (any letter case). */
+    static boolean yesNo(String text) throws CellProblem {
+        String t = text.strip().toLowerCase(java.util.Locale.ROOT);
+        return switch (t) {
+            case "yes", "true", "on", "1" -> true;
+            case "no", "false", "off", "0" -> false;
+            default -> throw new CellProblem("write yes or no");
+        };
+    }
+
+    /**
+     * A value as a setting of {@code key} is read, range checks included: a quantity in SI units, a percentage as
+     * a fraction, yes/no as 1/0. For settings given outside a file (a device file), so both read alike.
+     */
+    static double given(SettingKey key, String text) throws CellProblem {
+        return switch (key.form()) {
+            case QUANTITY -> checked(key, exactQuantity(text, key.quantity(), false)).doubleValue();
+            case PERCENT -> percent(text, false);
+            case YES_NO -> yesNo(text) ? 1 : 0;
+            case ACCURACY -> throw new CellProblem("an accuracy is stated in the data file only");
+        };
     }
 
     /** A percentage as a fraction: {@code 1 %} is 0.01; above 0 and below 100 %. */

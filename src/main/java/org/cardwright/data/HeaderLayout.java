@@ -157,6 +157,11 @@ record HeaderLayout(DataKind kind, FileLayout layout, Map<ColumnRole, Column> co
         return new HeaderLayout(kind, FileLayout.POINT_TABLE, found, ignored, cells.size(), magnitudes);
     }
 
+    /** This layout with its V and I read as reverse-bias magnitudes, as VR and IR columns are. */
+    HeaderLayout asReverseMagnitudes() {
+        return new HeaderLayout(kind, layout, columns, ignored, width, true);
+    }
+
     /**
      * VR and IR: reverse-bias magnitudes, the datasheet habit. Both must be there, with no V, I, C or
      * series-resistor column beside them; they then stand in the V and I places (the rows negate them).

@@ -2,6 +2,7 @@ package org.cardwright.data;
 
 import java.nio.file.Path;
 import java.util.List;
+import java.util.Map;
 import java.util.Objects;
 import java.util.regex.Pattern;
 
@@ -16,9 +17,12 @@ import java.util.regex.Pattern;
  * @param cv      C-V points in file order; empty for an I-V file
  * @param notices everything the reader did that the user must be told about, in file order
  * @param layout  how the file recorded its points: a point table, or a series-resistor log (I-V only)
+ * @param conditions the conditions the file was read under, each with where its value came from (the file, a
+ *                device file, the command line, a default): for a C-V file always its stray capacitance and test
+ *                frequency; any other only when stated or given
  */
 public record MeasurementFile(Path file, String sha256, DataKind kind, List<IvPoint> iv, List<CvPoint> cv,
-                              List<Notice> notices, FileLayout layout) {
+                              List<Notice> notices, FileLayout layout, Map<Condition, ConditionValue> conditions) {
 
     private static final Pattern SHA256_HEX = Pattern.compile("[0-9a-f]{64}");
 
@@ -31,6 +35,10 @@ public record MeasurementFile(Path file, String sha256, DataKind kind, List<IvPo
         if (layout == FileLayout.SERIES_RESISTOR_LOG && kind != DataKind.IV) {
             throw new IllegalArgumentException("a series-resistor log gives I-V points, not " + kind);
         }
+        Objects.requireNonNull(conditions, "conditions");
+        java.util.EnumMap<Condition, ConditionValue> c = new java.util.EnumMap<>(Condition.class);
+        c.putAll(conditions);
+        conditions = java.util.Collections.unmodifiableMap(c);
         iv = List.copyOf(iv);
         cv = List.copyOf(cv);
         notices = List.copyOf(notices);
@@ -45,6 +53,17 @@ public record MeasurementFile(Path file, String sha256, DataKind kind, List<IvPo
         if (!other.isEmpty()) {
             throw new IllegalArgumentException(kind + " file " + file + " must not hold points of the other kind");
         }
+    }
+
+    /** A file read with no conditions recorded. */
+    public MeasurementFile(Path file, String sha256, DataKind kind, List<IvPoint> iv, List<CvPoint> cv,
+                           List<Notice> notices, FileLayout layout) {
+        this(file, sha256, kind, iv, cv, notices, layout, Map.of());
+    }
+
+    /** The value a condition had for this file, if recorded. */
+    public java.util.Optional<ConditionValue> condition(Condition c) {
+        return java.util.Optional.ofNullable(conditions.get(c));
     }
 
     /** A point table: as the canonical constructor with layout {@link FileLayout#POINT_TABLE}. */

@@ -36,8 +36,10 @@ public final class MeasurementReader {
     private static final double CELSIUS_ZERO = 273.15;
 
     private static final Set<SettingKey> USED_BY_IV_TABLE = EnumSet.of(SettingKey.TEMPERATURE,
-            SettingKey.VOLTMETER_ACCURACY, SettingKey.AMMETER_ACCURACY, SettingKey.LEAD_RESISTANCE);
-    private static final Set<SettingKey> USED_BY_CV_TABLE = EnumSet.of(SettingKey.TEMPERATURE);
+            SettingKey.VOLTMETER_ACCURACY, SettingKey.AMMETER_ACCURACY, SettingKey.LEAD_RESISTANCE,
+            SettingKey.REVERSE_MAGNITUDES);
+    private static final Set<SettingKey> USED_BY_CV_TABLE = EnumSet.of(SettingKey.TEMPERATURE,
+            SettingKey.STRAY_CAPACITANCE, SettingKey.TEST_FREQUENCY);
     private static final Set<SettingKey> USED_BY_LOG = EnumSet.of(SettingKey.TEMPERATURE,
             SettingKey.METER_INPUT_RESISTANCE, SettingKey.METER_INPUT_RESISTANCE_TOLERANCE,
             SettingKey.SUPPLY_SOURCE_RESISTANCE, SettingKey.RESISTOR_TOLERANCE, SettingKey.SUPPLY_ACCURACY,
@@ -59,13 +61,26 @@ public final class MeasurementReader {
      *                           found, in file order
      */
     public MeasurementFile read(Path file) throws DataFileException {
+        return read(file, GivenConditions.NONE);
+    }
+
+    /**
+     * Reads one file with conditions given for it from outside (a device file, the command line). A condition
+     * the file states itself wins; a given one that differs is named in a notice as not used. The given
+     * temperature and meter input resistance take the place of the options' ones.
+     *
+     * @param file  the file; messages name it exactly as given here
+     * @param given conditions for this file from outside it
+     */
+    public MeasurementFile read(Path file, GivenConditions given) throws DataFileException {
         Objects.requireNonNull(file, "file");
+        Objects.requireNonNull(given, "given");
         try (LineSource source = LineSource.open(file)) {
-            return read(file, source);
+            return read(file, source, given);
         }
     }
 
-    private MeasurementFile read(Path file, LineSource source) throws DataFileException {
+    private MeasurementFile read(Path file, LineSource source, GivenConditions given) throws DataFileException {
         // the lines before the header: only the settings are kept
         List<Preamble.Line> settingLines = new ArrayList<>();
         String headerText = null;
@@ -109,9 +124,14 @@ public final class MeasurementReader {
                     + " (detected from the header row); a decimal comma is read"));
         }
         FileSettings settings = FileSettings.read(file, preamble.settings(), decimalComma, notices);
+        java.util.Map<Condition, ConditionValue> used = new java.util.EnumMap<>(Condition.class);
         RowConverter.TemperatureFallback fallback = temperatureSource(file, headerLine, headerText, header,
-                settings, notices);
-        RowConverter.Rules rules = rules(file, headerLine, headerText, header, settings, notices);
+                settings, notices, given, used);
+        header = reverseConvention(file, headerLine, header, settings, notices, given, used);
+        RowConverter.Rules rules = rules(file, headerLine, headerText, header, settings, notices, given, used);
+        if (header.kind() == DataKind.CV) {
+            capacitanceConditions(file, headerLine, settings, notices, given, used);
+        }
 
         RowConverter rows = new RowConverter(file, header, decimalComma, fallback, rules, notices);
         for (String text = source.next(); text != null; text = source.next()) {
@@ -137,7 +157,7 @@ public final class MeasurementReader {
         }
         noteUncertaintySources(file, headerLine, header, settings, notices);
         return new MeasurementFile(file, source.sha256(), header.kind(), rows.ivPoints(), rows.cvPoints(),
-                notices, header.layout());
+                notices, header.layout(), used);
     }
 
     /** The delimiter a header row uses: tab if it holds one, else semicolon if it holds one, else comma. */
@@ -183,15 +203,22 @@ public final class MeasurementReader {
 
     private RowConverter.TemperatureFallback temperatureSource(Path file, int headerLine, String headerText,
                                                                HeaderLayout header, FileSettings settings,
-                                                               List<Notice> notices) throws DataFileException {
-        OptionalDouble given = options.defaultTemperature();
+                                                               List<Notice> notices, GivenConditions conditions,
+                                                               java.util.Map<Condition, ConditionValue> used)
+            throws DataFileException {
+        Optional<ConditionValue> fromOutside = conditions.get(Condition.TEMPERATURE);
+        OptionalDouble given = fromOutside.isPresent() ? OptionalDouble.of(fromOutside.get().value())
+                : options.defaultTemperature();
+        String givenWords = fromOutside.isPresent() ? "the temperature given by " + fromOutside.get().source()
+                : "the given temperature";
         OptionalDouble stated = settings.value(SettingKey.TEMPERATURE);
         if (stated.isPresent()) {
             int at = settings.line(SettingKey.TEMPERATURE);
             String source = "the file's temperature (line " + at + ")";
+            used.put(Condition.TEMPERATURE, ConditionValue.inFile(stated.getAsDouble(), at));
             if (given.isPresent() && given.getAsDouble() != stated.getAsDouble()) {
                 notices.add(new Notice(file, at, "the file states its temperature " + kelvinText(stated.getAsDouble())
-                        + "; the given temperature " + kelvinText(given.getAsDouble()) + " is not used"));
+                        + "; " + givenWords + " " + kelvinText(given.getAsDouble()) + " is not used"));
             }
             if (header.temperature().isPresent()) {
                 notices.add(new Notice(file, headerLine, "the file has a T column; its temperature setting "
@@ -204,22 +231,24 @@ public final class MeasurementReader {
         }
         if (header.temperature().isPresent()) {
             if (given.isPresent()) {
-                notices.add(new Notice(file, headerLine, "the file has a T column; the given temperature "
+                notices.add(new Notice(file, headerLine, "the file has a T column; " + givenWords + " "
                         + kelvinText(given.getAsDouble()) + " is used only for empty T cells"));
             }
-            return new RowConverter.TemperatureFallback(given, "the given temperature");
+            return new RowConverter.TemperatureFallback(given, givenWords);
         }
         if (given.isEmpty()) {
             throw new DataFileException(file, headerLine, "no T column and no --temp given (nor a '# temperature "
                     + "= ...' line above the header)", headerText);
         }
-        notices.add(new Notice(file, headerLine, "no T column: every point is at the given temperature "
+        used.put(Condition.TEMPERATURE, fromOutside.orElse(new ConditionValue(given.getAsDouble(), "--temp")));
+        notices.add(new Notice(file, headerLine, "no T column: every point is at " + givenWords + " "
                 + kelvinText(given.getAsDouble())));
-        return new RowConverter.TemperatureFallback(given, "the given temperature");
+        return new RowConverter.TemperatureFallback(given, givenWords);
     }
 
     private RowConverter.Rules rules(Path file, int headerLine, String headerText, HeaderLayout header,
-                                     FileSettings settings, List<Notice> notices) throws DataFileException {
+                                     FileSettings settings, List<Notice> notices, GivenConditions given,
+                                     java.util.Map<Condition, ConditionValue> used) throws DataFileException {
         if (header.layout() == FileLayout.POINT_TABLE) {
             if (header.kind() == DataKind.CV) {
                 settings.noteUnused(USED_BY_CV_TABLE, "a C-V file", notices);
@@ -227,6 +256,19 @@ public final class MeasurementReader {
             }
             settings.noteUnused(USED_BY_IV_TABLE, "an I-V point table", notices);
             BigDecimal lead = settings.exact(SettingKey.LEAD_RESISTANCE).orElse(null);
+            Optional<ConditionValue> givenLead = given.get(Condition.LEAD_RESISTANCE);
+            if (lead != null) {
+                used.put(Condition.LEAD_RESISTANCE, ConditionValue.inFile(lead.doubleValue(),
+                        settings.line(SettingKey.LEAD_RESISTANCE)));
+                double stated = lead.doubleValue();
+                givenLead.filter(g -> g.value() != stated).ifPresent(g -> notices.add(notUsed(file,
+                        settings.line(SettingKey.LEAD_RESISTANCE), Condition.LEAD_RESISTANCE, stated, g)));
+            } else if (givenLead.isPresent()) {
+                lead = new BigDecimal(Double.toString(givenLead.get().value()));
+                used.put(Condition.LEAD_RESISTANCE, givenLead.get());
+                notices.add(new Notice(file, headerLine, "lead resistance " + Condition.LEAD_RESISTANCE.text(
+                        givenLead.get().value()) + " from " + givenLead.get().source() + " (the file states none)"));
+            }
             return new RowConverter.Rules(settings.accuracy(SettingKey.VOLTMETER_ACCURACY).orElse(null),
                     settings.accuracy(SettingKey.AMMETER_ACCURACY).orElse(null), lead, null);
         }
@@ -238,14 +280,26 @@ public final class MeasurementReader {
         }
         settings.noteUnused(USED_BY_LOG, "a series-resistor log", notices);
         OptionalDouble meter = settings.value(SettingKey.METER_INPUT_RESISTANCE);
-        OptionalDouble given = options.meterResistance();
-        if (meter.isPresent() && given.isPresent() && meter.getAsDouble() != given.getAsDouble()) {
+        Optional<ConditionValue> fromOutside = given.get(Condition.METER_INPUT_RESISTANCE);
+        OptionalDouble givenMeter = fromOutside.isPresent() ? OptionalDouble.of(fromOutside.get().value())
+                : options.meterResistance();
+        String givenWords = fromOutside.isPresent() ? "the one given by " + fromOutside.get().source() : "the given";
+        if (meter.isPresent() && givenMeter.isPresent() && meter.getAsDouble() != givenMeter.getAsDouble()) {
             notices.add(new Notice(file, settings.line(SettingKey.METER_INPUT_RESISTANCE), "the file states its meter "
-                    + "input resistance " + RowConverter.fmt(meter.getAsDouble()) + " ohm; the given "
-                    + RowConverter.fmt(given.getAsDouble()) + " ohm is not used"));
+                    + "input resistance " + RowConverter.fmt(meter.getAsDouble()) + " ohm; " + givenWords + " "
+                    + RowConverter.fmt(givenMeter.getAsDouble()) + " ohm is not used"));
         }
-        if (meter.isEmpty()) {
-            meter = given;
+        if (meter.isPresent()) {
+            used.put(Condition.METER_INPUT_RESISTANCE, ConditionValue.inFile(meter.getAsDouble(),
+                    settings.line(SettingKey.METER_INPUT_RESISTANCE)));
+        } else if (givenMeter.isPresent()) {
+            meter = givenMeter;
+            used.put(Condition.METER_INPUT_RESISTANCE, fromOutside.orElse(
+                    new ConditionValue(givenMeter.getAsDouble(), "--meter-resistance")));
+            if (fromOutside.isPresent()) {
+                notices.add(new Notice(file, headerLine, "meter input resistance " + Condition.METER_INPUT_RESISTANCE
+                        .text(givenMeter.getAsDouble()) + " from " + fromOutside.get().source() + " (the file states none)"));
+            }
         }
         if (meter.isEmpty() && options.meterLoadingCorrection()) {
             throw new DataFileException(file, headerLine, "series-resistor log without the meter input resistance: "
@@ -260,6 +314,76 @@ public final class MeasurementReader {
                 settings.accuracy(SettingKey.VOLTMETER_ACCURACY).orElse(null),
                 options.meterLoadingCorrection());
         return new RowConverter.Rules(null, null, null, setup);
+    }
+
+    /** The notice for a condition given from outside that the file's own statement overrides. */
+    private static Notice notUsed(Path file, int line, Condition c, double stated, ConditionValue given) {
+        return new Notice(file, line, "the file states its " + c.key() + " " + c.text(stated) + "; "
+                + c.text(given.value()) + " given by " + given.source() + " is not used");
+    }
+
+    /**
+     * The stated convention for reverse data written as positive magnitudes under V and I headers
+     * ({@code # reverse magnitudes = yes}, or given from outside): the header then reads as VR and IR would.
+     */
+    private static HeaderLayout reverseConvention(Path file, int headerLine, HeaderLayout header, FileSettings settings,
+                                                  List<Notice> notices, GivenConditions given,
+                                                  java.util.Map<Condition, ConditionValue> used)
+            throws DataFileException {
+        Optional<ConditionValue> outside = given.get(Condition.REVERSE_MAGNITUDES);
+        ConditionValue value;
+        if (settings.has(SettingKey.REVERSE_MAGNITUDES)) {
+            int at = settings.line(SettingKey.REVERSE_MAGNITUDES);
+            value = ConditionValue.inFile(settings.value(SettingKey.REVERSE_MAGNITUDES).orElse(0), at);
+            if (outside.isPresent() && outside.get().value() != value.value()) {
+                notices.add(notUsed(file, at, Condition.REVERSE_MAGNITUDES, value.value(), outside.get()));
+            }
+        } else if (outside.isPresent()) {
+            value = outside.get();
+        } else {
+            return header;
+        }
+        if (header.kind() != DataKind.IV || header.layout() != FileLayout.POINT_TABLE) {
+            // a data-file line here is already named as not applying; one from outside is refused where it is given
+            return header;
+        }
+        used.put(Condition.REVERSE_MAGNITUDES, value);
+        if (value.value() == 0 || header.reverseMagnitudes()) {
+            return header;
+        }
+        notices.add(new Notice(file, headerLine, "reverse magnitudes = yes (" + value.source() + "): V and I hold "
+                + "reverse-bias magnitudes, read as V = -V, I = -I"));
+        return header.asReverseMagnitudes();
+    }
+
+    /** The C-V file's stray capacitance and test frequency: the file's own, else given, else the defaults. */
+    private static void capacitanceConditions(Path file, int headerLine, FileSettings settings, List<Notice> notices,
+                                              GivenConditions given, java.util.Map<Condition, ConditionValue> used) {
+        List<String> said = new ArrayList<>();
+        for (Condition c : List.of(Condition.STRAY_CAPACITANCE, Condition.TEST_FREQUENCY)) {
+            Optional<ConditionValue> outside = given.get(c);
+            ConditionValue v;
+            if (settings.has(c.setting())) {
+                int at = settings.line(c.setting());
+                v = ConditionValue.inFile(settings.value(c.setting()).orElseThrow(), at);
+                if (outside.isPresent() && outside.get().value() != v.value()) {
+                    notices.add(notUsed(file, at, c, v.value(), outside.get()));
+                }
+            } else if (outside.isPresent()) {
+                v = outside.get();
+            } else {
+                v = new ConditionValue(c == Condition.STRAY_CAPACITANCE ? 0 : Condition.DEFAULT_TEST_FREQUENCY,
+                        "the default");
+            }
+            used.put(c, v);
+            if (!v.source().equals("the default")) {
+                said.add(c.key() + " " + c.text(v.value()) + " (" + v.source() + ")");
+            }
+        }
+        if (!said.isEmpty()) {
+            notices.add(new Notice(file, headerLine, "C-V readings taken with " + String.join(", ", said)
+                    + "; the stray capacitance is subtracted from every reading"));
+        }
     }
 
     /** One notice saying where the points' uncertainties come from, when any does. */

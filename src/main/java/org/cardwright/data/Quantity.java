@@ -8,7 +8,9 @@ enum Quantity {
     /** Device temperature; a value without a unit is in degrees Celsius, the unit inside is K. */
     TEMPERATURE("temperature", "K"),
     /** Resistance of a series resistor, a meter input, a source or a lead. */
-    RESISTANCE("resistance", "ohm");
+    RESISTANCE("resistance", "ohm"),
+    /** Frequency of a test signal (the C-V meter's). */
+    FREQUENCY("frequency", "Hz");
 
     private final String word;
     private final String siUnit;

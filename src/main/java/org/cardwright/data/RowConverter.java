@@ -131,9 +131,9 @@ final class RowConverter {
             for (ColumnRole role : List.of(ColumnRole.VOLTAGE, ColumnRole.CURRENT)) {
                 HeaderLayout.Column c = header.required(role);
                 if ((role == ColumnRole.VOLTAGE ? voltage : current).signum() < 0) {
-                    throw new DataFileException(file, line, "a negative value in " + c.describe() + ": VR and IR "
-                            + "hold reverse-bias magnitudes (read as V = -VR, I = -IR); write the magnitude, or name "
-                            + "the columns V and I for signed values", cells.get(c.index()));
+                    throw new DataFileException(file, line, "a negative value in " + c.describe() + ": the file "
+                            + "holds reverse-bias magnitudes (VR and IR columns, or 'reverse magnitudes = yes'; read as "
+                            + "V = -VR, I = -IR); write the magnitude, or use signed values under V and I", cells.get(c.index()));
                 }
             }
             voltage = voltage.negate();

@@ -32,7 +32,13 @@ enum SettingKey {
     /** Size of one count of the ammeter. */
     AMMETER_RESOLUTION("ammeter resolution", Form.QUANTITY, Quantity.CURRENT),
     /** Resistance of the leads in a 2-wire I-V measurement, subtracted as I times it from V. */
-    LEAD_RESISTANCE("lead resistance", Form.QUANTITY, Quantity.RESISTANCE);
+    LEAD_RESISTANCE("lead resistance", Form.QUANTITY, Quantity.RESISTANCE),
+    /** Fixture/stray capacitance in parallel with the device, included in every reading of a C-V file. */
+    STRAY_CAPACITANCE("stray capacitance", Form.QUANTITY, Quantity.CAPACITANCE),
+    /** Test-signal frequency of the readings of a C-V file. */
+    TEST_FREQUENCY("test frequency", Form.QUANTITY, Quantity.FREQUENCY),
+    /** Whether an I-V table's V and I are reverse-bias magnitudes (yes: read as V = -V, I = -I). */
+    REVERSE_MAGNITUDES("reverse magnitudes", Form.YES_NO, null);
 
     /** How a setting's value is written. */
     enum Form {
@@ -41,7 +47,9 @@ enum SettingKey {
         /** A percentage, e.g. {@code 1 %}. */
         PERCENT,
         /** An accuracy: {@code P %} of reading, plus {@code N counts} and/or an absolute value, joined by +. */
-        ACCURACY
+        ACCURACY,
+        /** yes or no (also true/false, on/off). */
+        YES_NO
     }
 
     private final String key;

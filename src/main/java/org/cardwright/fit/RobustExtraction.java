@@ -118,10 +118,8 @@ public final class RobustExtraction {
         return a;
     }
 
-    private static double median(double[] v) {
-        double[] s = v.clone();
-        Arrays.sort(s);
-        int n = s.length;
-        return n == 0 ? Double.NaN : n % 2 == 1 ? s[n / 2] : 0.5 * (s[n / 2 - 1] + s[n / 2]);
+    /** The median (the mean of the two middle values for an even count; NaN for none), by Commons Math. */
+    static double median(double[] v) {
+        return v.length == 0 ? Double.NaN : new org.apache.commons.math3.stat.descriptive.rank.Median().evaluate(v);
     }
 }

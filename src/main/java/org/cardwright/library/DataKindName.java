@@ -41,6 +41,23 @@ public enum DataKindName {
         return Arrays.stream(values()).filter(k -> k.spelling.equals(t)).findFirst();
     }
 
+    /**
+     * The conditions a data entry of this kind may state in its {@code options} (the entry's {@code temperature}
+     * key gives the temperature): lead resistance for I-V tables, reverse magnitudes for reverse I-V, stray
+     * capacitance and test frequency for C-V, the meter input resistance for bench logs.
+     */
+    public java.util.Set<org.cardwright.data.Condition> conditions() {
+        return switch (this) {
+            case FORWARD -> java.util.EnumSet.of(org.cardwright.data.Condition.LEAD_RESISTANCE);
+            case REVERSE -> java.util.EnumSet.of(org.cardwright.data.Condition.LEAD_RESISTANCE,
+                    org.cardwright.data.Condition.REVERSE_MAGNITUDES);
+            case CV -> java.util.EnumSet.of(org.cardwright.data.Condition.STRAY_CAPACITANCE,
+                    org.cardwright.data.Condition.TEST_FREQUENCY);
+            case BENCH_LOG -> java.util.EnumSet.of(org.cardwright.data.Condition.METER_INPUT_RESISTANCE);
+            case RECOVERY -> java.util.EnumSet.noneOf(org.cardwright.data.Condition.class);
+        };
+    }
+
     /** All spellings, for messages. */
     public static String spellings() {
         return Arrays.stream(values()).map(DataKindName::spelling).collect(Collectors.joining(", "));

@@ -30,6 +30,26 @@ public record DataSource(String file, DataKindName kind, OptionalDouble temperat
         }
     }
 
+    /**
+     * The conditions this entry gives its file (its temperature and options), each naming the device file and
+     * this entry's line as its source.
+     *
+     * @param deviceFile the device file as it is shown to the user
+     */
+    public org.cardwright.data.GivenConditions given(String deviceFile) {
+        String source = "device file " + deviceFile + " (data entry at line " + line + ")";
+        org.cardwright.data.GivenConditions g = org.cardwright.data.GivenConditions.NONE;
+        if (temperature.isPresent()) {
+            g = g.with(org.cardwright.data.Condition.TEMPERATURE, temperature.getAsDouble(), source);
+        }
+        for (Map.Entry<String, String> o : options.entrySet()) {
+            org.cardwright.data.Condition c = org.cardwright.data.Condition.byKey(o.getKey()).orElseThrow(
+                    () -> new IllegalStateException("option " + o.getKey() + " was not checked by the reader"));
+            g = g.with(c, c.parse(o.getValue()), source);
+        }
+        return g;
+    }
+
     /** The file resolved against the device file's folder. */
     public Path resolve(Path deviceFolder) {
         return deviceFolder.resolve(file).normalize();

@@ -112,21 +112,29 @@ public final class DeviceFileReader {
         return 0;
     }
 
-    /** A YAML syntax error as one line: the parser's words without its excerpts, at the line of the problem. */
-    private static DeviceFileException yamlSyntax(Path path, String message, int fallbackLine, Exception cause) {
-        int line = fallbackLine;
-        List<String> words = new ArrayList<>();
-        java.util.regex.Matcher m = java.util.regex.Pattern.compile("line (\\d+), column").matcher(message);
-        while (m.find()) {
-            line = Integer.parseInt(m.group(1));
-        }
-        for (String l : message.split("\n")) {
-            String t = l.strip();
-            if (!t.isEmpty() && !l.startsWith(" ") && !t.equals("^")) {
-                words.add(t);
+    /**
+     * A YAML syntax error as one line, at the line of the problem: the YAML parser's own marked exception (somewhere
+     * in the cause chain Jackson builds) gives the line of its problem mark and its words, without excerpts; empty
+     * when the failure is not a YAML syntax error.
+     */
+    private static java.util.Optional<DeviceFileException> yamlSyntax(Path path, Exception e) {
+        for (Throwable t = e; t != null; t = t.getCause()) {
+            if (t instanceof org.yaml.snakeyaml.error.MarkedYAMLException m) {
+                int line = m.getProblemMark() != null ? m.getProblemMark().getLine() + 1
+                        : m.getContextMark() != null ? m.getContextMark().getLine() + 1 : 0;
+                List<String> words = new ArrayList<>();
+                for (String w : new String[] {m.getContext(), m.getProblem()}) {
+                    if (w != null && !w.isBlank()) {
+                        words.add(w.strip());
+                    }
+                }
+                return java.util.Optional.of(new DeviceFileException(path, line, "YAML syntax: " + String.join("; ", words), e));
+            }
+            if (t.getCause() == t) {
+                break;
             }
         }
-        return new DeviceFileException(path, line, "YAML syntax: " + String.join("; ", words), cause);
+        return java.util.Optional.empty();
     }
 
     /** A scalar as written and the line it stands on. */
@@ -277,8 +285,9 @@ public final class DeviceFileReader {
             throw new DeviceFileException(path, at, "unknown key " + Excerpts.quoted(e.key) + e.under
                     + (e.known.isEmpty() ? "" : "; known keys here: " + e.known), e);
         } catch (JsonProcessingException e) {
-            if (e.getCause() != null && e.getCause().getClass().getSimpleName().equals("MarkedYAMLException")) {
-                throw yamlSyntax(path, e.getCause().getMessage(), line(e.getLocation()), e);
+            java.util.Optional<DeviceFileException> syntax = yamlSyntax(path, e);
+            if (syntax.isPresent()) {
+                throw syntax.get();
             }
             throw new DeviceFileException(path, line(e.getLocation()), firstLine(e.getOriginalMessage()), e);
         }
@@ -374,14 +383,32 @@ public final class DeviceFileReader {
                 temperature = OptionalDouble.of(k);
             }
             Map<String, String> options = new LinkedHashMap<>();
+            Set<org.cardwright.data.Condition> given = new HashSet<>();
             if (e.options() != null) {
                 for (Map.Entry<String, Located> o : e.options().entrySet()) {
-                    if (dk.readable()) {
-                        int at = o.getValue() == null ? e.file().line() : o.getValue().line();
+                    int at = o.getValue() == null ? e.file().line() : o.getValue().line();
+                    java.util.Set<org.cardwright.data.Condition> allowedHere = dk.conditions();
+                    java.util.Optional<org.cardwright.data.Condition> c = org.cardwright.data.Condition.byKey(o.getKey())
+                            .filter(allowedHere::contains);
+                    if (c.isEmpty()) {
+                        String allowed = dk.conditions().stream().map(org.cardwright.data.Condition::optionName)
+                                .collect(Collectors.joining(", "));
                         throw new DeviceFileException(path, at, "unknown option " + Excerpts.quoted(o.getKey()) + " for "
-                                + dk.spelling() + " data: this kind takes no options");
+                                + dk.spelling() + " data: " + (allowed.isEmpty() ? "this kind takes no options"
+                                : "this kind takes " + allowed)
+                                + (o.getKey().trim().equalsIgnoreCase("temperature") ? " (the entry's own key 'temperature' gives it)" : ""));
                     }
-                    options.put(o.getKey(), o.getValue() == null ? "" : o.getValue().text());
+                    if (!given.add(c.get())) {
+                        throw new DeviceFileException(path, at, "option " + c.get().optionName() + " given twice");
+                    }
+                    String value = o.getValue() == null ? "" : o.getValue().text();
+                    try {
+                        c.get().parse(value);
+                    } catch (IllegalArgumentException ex) {
+                        throw new DeviceFileException(path, at, "option " + Excerpts.quoted(o.getKey()) + ": "
+                                + ex.getMessage());
+                    }
+                    options.put(c.get().optionName(), value.trim());
                 }
             }
             data.add(new DataSource(file, dk, temperature, options, e.file().line()));

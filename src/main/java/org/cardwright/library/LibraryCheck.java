@@ -171,7 +171,8 @@ public final class LibraryCheck {
             VerifyRequest request = new VerifyRequest(card, inputs.paths(), engine, Optional.of(part.model()), d,
                     inputs.temperature(), part.tolerances().forward(), Optional.empty(), false,
                     org.cardwright.fit.CapacitanceOptions.DEFAULT, org.cardwright.workflow.FitRequest.BenchOptions.DEFAULT,
-                    basis(part, verdict));
+                    basis(part, verdict))
+                    .withConditions(inputs.conditions());
             all = new VerifyWorkflow().runAll(request, x -> "");
         } catch (DataFileException | SimulationException | OutputException | CardFormatException | IOException
                  | IllegalArgumentException e) {

@@ -103,7 +103,8 @@ final class PartFitter {
                         "no data file of a kind this version fits (forward, reverse, cv, recovery, bench-log)");
             }
             FitRequest request = new FitRequest(inputs.paths(), part.model(), part.dialects(), scratch, Optional.empty(),
-                    inputs.temperature(), part.kind(), rules, part.digits(), true, templates(part));
+                    inputs.temperature(), part.kind(), rules, part.digits(), true, templates(part))
+                    .withConditions(inputs.conditions());
             FitOutcome outcome;
             try {
                 outcome = new FitWorkflow().run(request, o -> "");
@@ -184,7 +185,7 @@ final class PartFitter {
             org.cardwright.workflow.VerifyRequest request = new org.cardwright.workflow.VerifyRequest(card, inputs.paths(),
                     "builtin", Optional.of(part.model()), dialect, inputs.temperature(), part.tolerances().forward(),
                     Optional.empty(), false, org.cardwright.fit.CapacitanceOptions.DEFAULT, FitRequest.BenchOptions.DEFAULT,
-                    LibraryCheck.basis(part, Optional.empty()));
+                    LibraryCheck.basis(part, Optional.empty())).withConditions(inputs.conditions());
             try {
                 return new org.cardwright.workflow.VerifyWorkflow().runAll(request, x -> "");
             } catch (DataFileException e) {
@@ -253,6 +254,7 @@ final class PartFitter {
         for (DataSource s : part.data()) {
             StringBuilder sb = new StringBuilder("data: ").append(s.file()).append(" (").append(s.kind().spelling());
             s.temperature().ifPresent(t -> sb.append(", ").append(DeviceFile.celsiusText(t)).append(" degC"));
+            s.options().forEach((k, v) -> sb.append(", ").append(k).append(' ').append(v));
             if (!s.kind().readable()) {
                 sb.append("; not read by this version");
             }

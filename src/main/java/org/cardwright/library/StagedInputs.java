@@ -12,29 +12,29 @@ import java.util.Map;
 import java.util.Objects;
 import java.util.OptionalDouble;
 import java.util.stream.Stream;
-import org.cardwright.data.DataFileException;
-import org.cardwright.data.MeasurementReader;
-import org.cardwright.data.ReadOptions;
+import org.cardwright.data.GivenConditions;
 
 /**
- * The readable data files of a part, laid out for the fit and verify jobs, which take one temperature for every
- * file without a T column. When a device file gives different temperatures to different files, each such file
- * that has no T column is copied to a private folder with a T column added (the rows are not otherwise touched),
- * and the copy is passed instead. {@link #displayName} maps every path back to the name in the device file.
+ * The readable data files of a part, laid out for the fit and verify jobs, with the conditions the device file
+ * gives each of them (its temperature and options), to be passed to the jobs as conditions given for single
+ * files ({@link #conditions}): a file's own statement of a condition still wins (docs/device-files.md).
+ * {@link #displayName} maps every path back to its library-relative name.
  *
- * <p>Close it to delete the private folder.
+ * <p>Nothing is copied: earlier versions staged copies with a T column added; the per-file conditions replace
+ * them. {@link #close} is kept for callers written for that.
  */
 final class StagedInputs implements AutoCloseable {
     private final List<Path> paths;
     private final OptionalDouble temperature;
     private final Map<String, String> displayNames;
-    private final Path folder;
+    private final Map<Path, GivenConditions> conditions;
 
-    private StagedInputs(List<Path> paths, OptionalDouble temperature, Map<String, String> displayNames, Path folder) {
+    private StagedInputs(List<Path> paths, OptionalDouble temperature, Map<String, String> displayNames,
+                         Map<Path, GivenConditions> conditions) {
         this.paths = List.copyOf(paths);
         this.temperature = temperature;
         this.displayNames = displayNames;
-        this.folder = folder;
+        this.conditions = Map.copyOf(conditions);
     }
 
     /**
@@ -53,61 +53,25 @@ final class StagedInputs implements AutoCloseable {
             }
         }
         boolean oneTemperature = readable.stream().map(DataSource::temperature).distinct().count() <= 1;
+        OptionalDouble t = oneTemperature && !readable.isEmpty() ? readable.get(0).temperature() : OptionalDouble.empty();
+        String device = LibraryPaths.display(root, part.path());
         List<Path> paths = new ArrayList<>();
-        if (oneTemperature) {
-            OptionalDouble t = readable.isEmpty() ? OptionalDouble.empty() : readable.get(0).temperature();
-            for (DataSource s : readable) {
-                Path p = s.resolve(part.folder());
-                paths.add(p);
-                names.put(p.toString(), LibraryPaths.display(root, p));
-            }
-            return new StagedInputs(paths, t, names, null);
-        }
-        Path folder = Files.createTempDirectory("cardwright-staged-");
-        int k = 0;
+        Map<Path, GivenConditions> given = new LinkedHashMap<>();
         for (DataSource s : readable) {
             Path p = s.resolve(part.folder());
-            Path use = p;
-            if (s.temperature().isPresent() && !hasTemperatureColumn(p)) {
-                Path dir = Files.createDirectories(folder.resolve(Integer.toString(k++)));
-                use = dir.resolve(p.getFileName().toString());
-                Files.writeString(use, withTemperatureColumn(Files.readString(p, StandardCharsets.UTF_8),
-                        DeviceFile.celsiusText(s.temperature().getAsDouble())), StandardCharsets.UTF_8);
-            }
-            paths.add(use);
-            names.put(use.toString(), LibraryPaths.display(root, p));
+            paths.add(p);
+            names.put(p.toString(), LibraryPaths.display(root, p));
+            given.put(p, s.given(device));
         }
-        return new StagedInputs(paths, OptionalDouble.empty(), names, folder);
+        return new StagedInputs(paths, t, names, given);
     }
 
-    /** True when the file reads without a default temperature, i.e. it has its own T column. */
-    private static boolean hasTemperatureColumn(Path p) {
-        try {
-            new MeasurementReader(ReadOptions.defaults()).read(p);
-            return true;
-        } catch (DataFileException e) {
-            return false;
-        }
-    }
-
-    /** The text with a {@code T [degC]} cell added to the header row and {@code celsius} to every data row. */
-    static String withTemperatureColumn(String text, String celsius) {
-        String[] lines = text.split("\r\n|\r|\n", -1);
-        StringBuilder sb = new StringBuilder();
-        boolean header = true;
-        for (int i = 0; i < lines.length; i++) {
-            String line = lines[i];
-            String stripped = line.strip();
-            if (!stripped.isEmpty() && !stripped.startsWith("#")) {
-                line = line.stripTrailing() + (header ? ",T [degC]" : "," + celsius);
-                header = false;
-            }
-            sb.append(line);
-            if (i < lines.length - 1) {
-                sb.append('\n');
-            }
-        }
-        return sb.toString();
+    /**
+     * The conditions the device file gives each file (temperature, options), by path; pass them to the fit and
+     * verify requests ({@code withConditions}).
+     */
+    Map<Path, GivenConditions> conditions() {
+        return conditions;
     }
 
     /** The files to give the fit or verify job. */
@@ -115,7 +79,10 @@ final class StagedInputs implements AutoCloseable {
         return paths;
     }
 
-    /** The temperature to give the job for files without a T column [K]. */
+    /**
+     * The one temperature the device file gives all files, when it gives one to all alike [K]; the per-file
+     * temperatures are in {@link #conditions}.
+     */
     OptionalDouble temperature() {
         return temperature;
     }
@@ -133,15 +100,6 @@ final class StagedInputs implements AutoCloseable {
 
     @Override
     public void close() {
-        if (folder == null) {
-            return;
-        }
-        try (Stream<Path> walk = Files.walk(folder)) {
-            for (Path p : walk.sorted(Comparator.reverseOrder()).toList()) {
-                Files.deleteIfExists(p);
-            }
-        } catch (IOException e) {
-            // a leftover temporary folder is harmless
-        }
+        // nothing is staged any more
     }
 }

@@ -97,6 +97,10 @@ final class Tweaker {
                     refitted.warnings()), tweak, fitted, value, notes);
         }
         List<MeasuredPoint> points = forwardPoints(part, root);
+        Inputs all = inputs(part, root);
+        org.cardwright.workflow.CardRange range = org.cardwright.workflow.CardRange.of(
+                org.cardwright.workflow.FitWorkflow.extractionData(all));
+        double frequency = capacitanceFrequency(part, all);
         List<PartFitter.Card> cards = new ArrayList<>();
         for (int i = 0; i < base.cards().size(); i++) {
             PartFitter.Card c = base.cards().get(i);
@@ -105,6 +109,10 @@ final class Tweaker {
                 continue;
             }
             DiodeParameters p = c.parameters().with(tweak.param(), value);
+            // the tweaked card must still evaluate across the measured range, as a fitted one must
+            range.check("the " + c.dialect().shortName() + " card of " + part.model() + " with tweak " + tweak.text(), p,
+                    new SimulatorOptions(SimulatorOptions.NGSPICE_DEFAULTS.gmin(), SimulatorOptions.NGSPICE_DEFAULTS.reltol(),
+                            c.dialect().flavour()), frequency);
             cards.add(PartFitter.checkedRender(part, root, recipe, part.rules(), c.dialect(), p, base.points(),
                     residuals(part.model(), p, points), c.leftOut(), c.leftOutCost(), List.of(line)));
         }
@@ -135,6 +143,32 @@ final class Tweaker {
         return SpiceNumbers.format(t.param().toCardValue(si), 7);
     }
 
+    /** Every data kind of the part, read as the fit reads it. */
+    private static Inputs inputs(DeviceFile part, Path root)
+            throws DeviceFileException, LibraryInputException, IOException {
+        try (StagedInputs inputs = StagedInputs.of(part, root)) {
+            ReadOptions options = ReadOptions.defaults();
+            if (inputs.temperature().isPresent()) {
+                options = options.withDefaultTemperature(inputs.temperature().getAsDouble());
+            }
+            try {
+                return Inputs.read(inputs.paths(), options, p -> inputs.conditions().getOrDefault(p,
+                        org.cardwright.data.GivenConditions.NONE));
+            } catch (DataFileException e) {
+                throw new LibraryInputException(inputs.displayName(e.getMessage()), e);
+            }
+        }
+    }
+
+    /** The C-V test frequency the part's files state or are given [Hz]. */
+    private static double capacitanceFrequency(DeviceFile part, Inputs read) throws LibraryInputException {
+        try {
+            return read.capacitanceOptions(org.cardwright.fit.CapacitanceOptions.DEFAULT).frequency();
+        } catch (DataFileException e) {
+            throw new LibraryInputException(e.getMessage(), e);
+        }
+    }
+
     /** The part's forward points, as verify sees them. */
     private static List<MeasuredPoint> forwardPoints(DeviceFile part, Path root)
             throws DeviceFileException, LibraryInputException, IOException {
@@ -145,7 +179,8 @@ final class Tweaker {
             }
             Inputs read;
             try {
-                read = Inputs.read(inputs.paths(), options);
+                read = Inputs.read(inputs.paths(), options, p -> inputs.conditions().getOrDefault(p,
+                        org.cardwright.data.GivenConditions.NONE));
             } catch (DataFileException e) {
                 throw new LibraryInputException(inputs.displayName(e.getMessage()), e);
             }

@@ -66,8 +66,11 @@ public final class LotFitter {
     /** Reads and fits {@code part} with the given term rules (none: the fit chooses its own terms). */
     Pilot read(LotParts.Part part, List<ParameterRule> lotRules) throws Failure {
         Inputs inputs;
+        org.cardwright.fit.CapacitanceOptions capacitance;
         try {
-            inputs = Inputs.read(part.files(), settings.read());
+            inputs = Inputs.read(part.files(), settings.read(), f -> Inputs.commandLine(settings.capacitance()));
+            // the C-V conditions the part's files state win over the command line's, as in fit
+            capacitance = inputs.capacitanceOptions(settings.capacitance());
         } catch (DataFileException e) {
             throw new Failure("unreadable: " + part.describe(e));
         } catch (RuntimeException e) {
@@ -79,7 +82,7 @@ public final class LotFitter {
         }
         FitResult r;
         try {
-            r = new JunctionExtraction(settings.fitSettings(lotRules), settings.capacitance()).fit(data);
+            r = new JunctionExtraction(settings.fitSettings(lotRules), capacitance).fit(data);
         } catch (FitInputException | FitFailedException e) {
             throw new Failure("fit refused: " + e.getMessage());
         } catch (RuntimeException e) {

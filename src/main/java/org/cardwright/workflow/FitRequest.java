@@ -31,12 +31,36 @@ import org.cardwright.fit.ParameterRule;
  * @param selfHeating what to do when forward data show self-heating
  * @param robust      fit with Huber weights and list the outliers
  * @param sweepGap    logged temperatures further apart than this start a new sweep [K]
+ * @param conditions  conditions given for single files from outside them (a device file's data entries), by
+ *                    the path in {@code data}; they come before the command line's, after the file's own
  */
 public record FitRequest(List<Path> data, String name, List<Dialect> dialects, Path outDir, Optional<Path> json,
                          OptionalDouble temperature, DeviceKind kind, List<ParameterRule> rules, int digits,
                          boolean force, Optional<Path> templates,
                          CapacitanceOptions capacitance, BenchOptions bench,
-                         FitSettings.SelfHeatingRemedy selfHeating, boolean robust, double sweepGap) {
+                         FitSettings.SelfHeatingRemedy selfHeating, boolean robust, double sweepGap,
+                         java.util.Map<Path, org.cardwright.data.GivenConditions> conditions) {
+
+    /** A request with no conditions given for single files. */
+    public FitRequest(List<Path> data, String name, List<Dialect> dialects, Path outDir, Optional<Path> json,
+                      OptionalDouble temperature, DeviceKind kind, List<ParameterRule> rules, int digits,
+                      boolean force, Optional<Path> templates, CapacitanceOptions capacitance, BenchOptions bench,
+                      FitSettings.SelfHeatingRemedy selfHeating, boolean robust, double sweepGap) {
+        this(data, name, dialects, outDir, json, temperature, kind, rules, digits, force, templates, capacitance, bench,
+                selfHeating, robust, sweepGap, java.util.Map.of());
+    }
+
+    /** This request with conditions given for single files (see {@link #conditions}). */
+    public FitRequest withConditions(java.util.Map<Path, org.cardwright.data.GivenConditions> perFile) {
+        return new FitRequest(data, name, dialects, outDir, json, temperature, kind, rules, digits, force, templates,
+                capacitance, bench, selfHeating, robust, sweepGap, perFile);
+    }
+
+    /** The conditions given for {@code file}: its own from {@link #conditions}, then the command line's. */
+    public org.cardwright.data.GivenConditions givenFor(Path file) {
+        return conditions.getOrDefault(file, org.cardwright.data.GivenConditions.NONE)
+                .orElse(Inputs.commandLine(capacitance));
+    }
 
     /** A request with the default sweep gap ({@link org.cardwright.model.SweepTemperatures#DEFAULT_GAP}). */
     public FitRequest(List<Path> data, String name, List<Dialect> dialects, Path outDir, Optional<Path> json,
@@ -51,6 +75,7 @@ public record FitRequest(List<Path> data, String name, List<Dialect> dialects, P
         data = List.copyOf(data);
         dialects = List.copyOf(dialects);
         rules = List.copyOf(rules);
+        conditions = java.util.Map.copyOf(conditions);
         if (data.isEmpty()) {
             throw new org.cardwright.failure.UsageException("no data files given");
         }

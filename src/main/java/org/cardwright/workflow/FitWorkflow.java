@@ -73,7 +73,9 @@ public final class FitWorkflow {
         OutputFiles.checkWritable(targets, request.force());
 
         ReadOptions options = request.readOptions();
-        Inputs inputs = Inputs.read(request.data(), options).withSweepNote(request.sweepGap());
+        Inputs inputs = Inputs.read(request.data(), options, request::givenFor).withSweepNote(request.sweepGap());
+        // the C-V conditions the files state (or are given) decide the stray capacitance and test frequency
+        org.cardwright.fit.CapacitanceOptions capacitance = inputs.capacitanceOptions(request.capacitance());
         ExtractionData data = extractionData(inputs);
         org.cardwright.fit.ForwardReduction.Reduced forward = org.cardwright.fit.ForwardReduction.reduce(data.forward());
         if (forward.reduced()) {
@@ -90,12 +92,15 @@ public final class FitWorkflow {
         }
         FitSettings settings = FitSettings.defaults().withKind(request.kind()).withRules(request.rules())
                 .withSelfHeating(request.selfHeating()).withSweepGap(request.sweepGap());
-        FitResult full = extract(settings, request, data);
+        FitResult full = extract(settings, request, capacitance, data);
         if (data.forward().isEmpty() && full.fitted().stream().noneMatch(org.cardwright.fit.FittedParameter::fitted)) {
             // e.g. leakage without breakdown: a card of defaults would describe nothing the data determine
             throw new FitInputException(noForwardPoints(inputs));
         }
 
+        // every card must evaluate across the measured temperatures and biases (VJ(T) > 0, nothing NaN or infinite)
+        CardRange range = CardRange.of(data);
+        range.check("the fitted card of " + request.name(), full.parameters(), settings.options(), capacitance.frequency());
         CardWriter writer = new CardWriter(request.templates());
         List<FitOutcome.WrittenCard> cards = new ArrayList<>();
         for (Dialect d : request.dialects()) {
@@ -123,7 +128,9 @@ public final class FitWorkflow {
                         new org.cardwright.model.SimulatorOptions(settings.options().gmin(), settings.options().reltol(), d.flavour()))
                         // the full fit decided the resistor between the terminals; a refit carries it or not alike
                         .withShunt(full.shunt().isPresent() ? FitSettings.ShuntChoice.ON : FitSettings.ShuntChoice.OFF);
-                forCard = extract(target, request, data);
+                forCard = extract(target, request, capacitance, data);
+                range.check("the " + d.shortName() + " card of " + request.name(), forCard.parameters(),
+                        target.options(), capacitance.frequency());
                 refit = Optional.of(forCard);
             }
             List<String> provenance = provenance(request, inputs, full, forCard, d, leftOut);
@@ -165,11 +172,13 @@ public final class FitWorkflow {
      * converge, and the model's own checks (a start value or parameter that is no longer finite, a singular
      * matrix), which only extreme data reach.
      */
-    private static FitResult extract(FitSettings settings, FitRequest request, ExtractionData data) throws FitInputException {
+    private static FitResult extract(FitSettings settings, FitRequest request,
+                                     org.cardwright.fit.CapacitanceOptions capacitance, ExtractionData data)
+            throws FitInputException {
         try {
             return request.robust()
-                    ? new RobustExtraction(settings, request.capacitance()).fit(data)
-                    : new JunctionExtraction(settings, request.capacitance()).fit(data);
+                    ? new RobustExtraction(settings, capacitance).fit(data)
+                    : new JunctionExtraction(settings, capacitance).fit(data);
         } catch (org.cardwright.fit.FitFailedException | IllegalArgumentException | ArithmeticException e) {
             throw new org.cardwright.fit.FitFailedException(request.data().stream().map(Inputs::displayName)
                     .collect(Collectors.joining(", ")) + ": the data cannot be fitted: " + e.getMessage());
@@ -298,6 +307,7 @@ public final class FitWorkflow {
         if (!request.rules().isEmpty()) {
             lines.add("rules: " + request.rules().stream().map(ParameterRule::text).collect(Collectors.joining(" ")));
         }
+        conditionsLine(inputs).ifPresent(lines::add);
         if (d.flavour() != org.cardwright.model.Flavour.NGSPICE_39) {
             lines.add("fitted with " + d.flavour().label() + "'s own equations (constants"
                     + (d.flavour().xyceKnee() ? ", high-injection law" : "")
@@ -312,6 +322,32 @@ public final class FitWorkflow {
                 + request.data().stream().map(p -> ShellWords.quote(relative(home, p))).collect(Collectors.joining(" "))
                 + verifyOptions(request, d));
         return lines;
+    }
+
+    /**
+     * The C-V conditions the fit used, with where each came from, when either is not the default: e.g.
+     * "C-V conditions: stray capacitance 20 pF (cv25.csv, line 2 of the file), test frequency 1 MHz (the default)".
+     */
+    static Optional<String> conditionsLine(Inputs inputs) {
+        for (MeasurementFile f : inputs.files()) {
+            if (f.kind() != org.cardwright.data.DataKind.CV) {
+                continue;
+            }
+            List<String> parts = new ArrayList<>();
+            boolean stated = false;
+            for (org.cardwright.data.Condition c : List.of(org.cardwright.data.Condition.STRAY_CAPACITANCE,
+                    org.cardwright.data.Condition.TEST_FREQUENCY)) {
+                Optional<org.cardwright.data.ConditionValue> v = f.condition(c);
+                if (v.isEmpty()) {
+                    continue;
+                }
+                stated |= !v.get().source().equals("the default");
+                parts.add(c.key() + " " + c.text(v.get().value()) + " (" + (v.get().line() > 0
+                        ? f.file().getFileName() + ", " : "") + v.get().source() + ")");
+            }
+            return stated ? Optional.of("C-V conditions: " + String.join(", ", parts)) : Optional.empty();
+        }
+        return Optional.empty();
     }
 
     /** The options a verify of this card needs to read the data as the fit did. */

@@ -87,6 +87,16 @@ public record Inputs(List<MeasurementFile> files, List<Located> forward, List<Lo
 
     /** Reads every file; points that are neither forward nor reverse (zero current, mixed signs) are set aside. */
     public static Inputs read(List<Path> paths, ReadOptions options) throws DataFileException {
+        return read(paths, options, p -> org.cardwright.data.GivenConditions.NONE);
+    }
+
+    /**
+     * Reads every file with the conditions given for it from outside (a device file, the command line); a file's
+     * own statement of a condition wins (see {@link MeasurementReader#read(Path, org.cardwright.data.GivenConditions)}).
+     */
+    public static Inputs read(List<Path> paths, ReadOptions options,
+                              java.util.function.Function<Path, org.cardwright.data.GivenConditions> given)
+            throws DataFileException {
         MeasurementReader reader = new MeasurementReader(options);
         List<MeasurementFile> files = new ArrayList<>();
         List<Located> forward = new ArrayList<>();
@@ -95,11 +105,14 @@ public record Inputs(List<MeasurementFile> files, List<Located> forward, List<Lo
         List<RecoveryReader.Records> recovery = new ArrayList<>();
         List<String> notes = new ArrayList<>();
         for (Path p : paths) {
+            org.cardwright.data.GivenConditions conditions = given.apply(p);
             if (RecoveryReader.looksLikeRecovery(p)) {
-                recovery.add(new RecoveryReader(options.defaultTemperature()).read(p));
+                java.util.OptionalDouble t = conditions.get(org.cardwright.data.Condition.TEMPERATURE)
+                        .map(c -> java.util.OptionalDouble.of(c.value())).orElse(options.defaultTemperature());
+                recovery.add(new RecoveryReader(t).read(p));
                 continue;
             }
-            MeasurementFile f = reader.read(p);
+            MeasurementFile f = reader.read(p, conditions);
             files.add(f);
             String name = displayName(p);
             f.notices().forEach(n -> notes.add(n.toString()));
@@ -107,6 +120,7 @@ public record Inputs(List<MeasurementFile> files, List<Located> forward, List<Lo
                 f.cv().forEach(c -> capacitance.add(new LocatedCapacitance(c, name)));
                 continue;
             }
+            refuseUnstatedMagnitudes(f);
             int aside = 0;
             int firstAside = 0;
             for (IvPoint pt : f.iv()) {
@@ -130,6 +144,59 @@ public record Inputs(List<MeasurementFile> files, List<Located> forward, List<Lo
         setAsideBelowFloor(forward, notes);
         return new Inputs(List.copyOf(files), List.copyOf(forward), List.copyOf(reverse), List.copyOf(capacitance),
                 List.copyOf(recovery), List.copyOf(notes));
+    }
+
+    /**
+     * The one stray capacitance and test frequency of the C-V data, from the C-V files' conditions (each file's
+     * own, else given, else the defaults); {@code fallback} when there are no C-V files. The fit and the
+     * verification take one value of each for all C-V data, so files that disagree are refused, naming both.
+     *
+     * @throws DataFileException naming the second file, the line that states its value and both values
+     */
+    public org.cardwright.fit.CapacitanceOptions capacitanceOptions(org.cardwright.fit.CapacitanceOptions fallback)
+            throws DataFileException {
+        MeasurementFile first = null;
+        for (MeasurementFile f : files) {
+            if (f.kind() != DataKind.CV) {
+                continue;
+            }
+            if (first == null) {
+                first = f;
+                continue;
+            }
+            for (org.cardwright.data.Condition c : List.of(org.cardwright.data.Condition.STRAY_CAPACITANCE,
+                    org.cardwright.data.Condition.TEST_FREQUENCY)) {
+                org.cardwright.data.ConditionValue a = first.condition(c).orElseThrow();
+                org.cardwright.data.ConditionValue b = f.condition(c).orElseThrow();
+                if (a.value() != b.value()) {
+                    throw new DataFileException(f.file(), b.line(), "C-V files with different " + c.key() + ": "
+                            + c.text(b.value()) + " here (" + b.source() + "), " + c.text(a.value()) + " in "
+                            + displayName(first.file()) + " (" + a.source() + "); the fit and verify take one "
+                            + c.key() + " for all C-V data: state the same value, or fit the files apart", null);
+                }
+            }
+        }
+        if (first == null) {
+            return fallback;
+        }
+        return new org.cardwright.fit.CapacitanceOptions(
+                first.condition(org.cardwright.data.Condition.STRAY_CAPACITANCE).orElseThrow().value(),
+                first.condition(org.cardwright.data.Condition.TEST_FREQUENCY).orElseThrow().value());
+    }
+
+    /**
+     * The conditions a command line gives for every file: the stray capacitance and test frequency when they are
+     * not the defaults.
+     */
+    public static org.cardwright.data.GivenConditions commandLine(org.cardwright.fit.CapacitanceOptions capacitance) {
+        org.cardwright.data.GivenConditions g = org.cardwright.data.GivenConditions.NONE;
+        if (capacitance.strayCapacitance() != 0) {
+            g = g.with(org.cardwright.data.Condition.STRAY_CAPACITANCE, capacitance.strayCapacitance(), "--stray-capacitance");
+        }
+        if (capacitance.frequency() != org.cardwright.fit.CapacitanceOptions.DEFAULT_FREQUENCY) {
+            g = g.with(org.cardwright.data.Condition.TEST_FREQUENCY, capacitance.frequency(), "--cv-frequency");
+        }
+        return g;
     }
 
     /**
@@ -240,6 +307,39 @@ public record Inputs(List<MeasurementFile> files, List<Located> forward, List<Lo
             }
         }
         points.removeAll(floor);
+    }
+
+    /**
+     * No single junction conducts forward at more than {@value #FORWARD_VOLTAGE_LIMIT} V while carrying at most
+     * {@value #FORWARD_LOW_CURRENT} A: the widest-gap LEDs reach 1 mA near 3.5 to 4 V, and below 1 mA the series
+     * resistance adds little (common practice, no source) [V].
+     */
+    static final double FORWARD_VOLTAGE_LIMIT = 5;
+    /** See {@link #FORWARD_VOLTAGE_LIMIT} [A]. */
+    static final double FORWARD_LOW_CURRENT = 1e-3;
+
+    /**
+     * Reverse data written as positive magnitudes under V and I headers, without a stated convention, would be
+     * fitted as forward conduction at breakdown voltages. A file whose positive points include one above
+     * {@link #FORWARD_VOLTAGE_LIMIT} at a current of at most {@link #FORWARD_LOW_CURRENT} is refused, naming that
+     * line; stating the convention either way ({@code reverse magnitudes = yes} or {@code no}) settles it.
+     */
+    private static void refuseUnstatedMagnitudes(MeasurementFile f) throws DataFileException {
+        if (f.layout() != org.cardwright.data.FileLayout.POINT_TABLE
+                || f.condition(org.cardwright.data.Condition.REVERSE_MAGNITUDES).isPresent()) {
+            return;
+        }
+        for (IvPoint pt : f.iv()) {
+            if (pt.voltage() > FORWARD_VOLTAGE_LIMIT && pt.current() > 0 && pt.current() <= FORWARD_LOW_CURRENT) {
+                throw new DataFileException(f.file(), pt.line(), String.format(java.util.Locale.ROOT,
+                        "%.6g V at %.4g A cannot be forward conduction of one junction (above %s V at %s A or less): "
+                                + "reverse data written as positive magnitudes? State it: '# reverse magnitudes = yes' "
+                                + "above the header row (in a device file 'reverse-magnitudes: yes' under the entry's "
+                                + "options), or name the columns VR and IR; '# reverse magnitudes = no' reads the "
+                                + "values as written", pt.voltage(), pt.current(), FORWARD_VOLTAGE_LIMIT, FORWARD_LOW_CURRENT),
+                        null);
+            }
+        }
     }
 
     /** Lines named one by one in a note; the rest are counted, so a note stays readable for any file [lines]. */

@@ -82,7 +82,8 @@ public final class VerifyWorkflow {
             parsed = new CardReader().parse(text, cardSource, request.dialect(), request.model());
         }
         ReadOptions options = request.readOptions();
-        Inputs inputs = Inputs.read(request.data(), options);
+        Inputs inputs = Inputs.read(request.data(), options, request::givenFor);
+        org.cardwright.fit.CapacitanceOptions capacitanceOptions = inputs.capacitanceOptions(request.capacitance());
         ExtractionData data = FitWorkflow.extractionData(inputs);
         List<String> notes = new ArrayList<>(parsed.notices());
         notes.addAll(inputs.notes());
@@ -139,7 +140,7 @@ public final class VerifyWorkflow {
                     p.temperature(), p.source(), p.line())));
             capacitance = Optional.of(new CapacitanceVerifier(Engines.capacitanceByName(request.engine(), request.dialect().flavour()), CapacitanceTolerance.DEFAULT,
                     request.verdict())
-                    .verify(card, pts, request.capacitance().strayCapacitance(), request.capacitance().frequency(), List.of()));
+                    .verify(card, pts, capacitanceOptions.strayCapacitance(), capacitanceOptions.frequency(), List.of()));
         }
         Optional<RecoveryVerification> recovery = Optional.empty();
         if (!data.recovery().isEmpty()) {

@@ -110,6 +110,13 @@ class DeviceFileReaderTest {
         "bad tweak | model: X1\\ndata: [{file: a.csv}]\\ntweak: {set: RS=10%}\\n | 3 | a percentage nudge needs a sign",
         "absolute cards folder | model: X1\\ndata: [{file: a.csv}]\\ncards: /tmp/x\\n | 3 | cards must be a folder relative to the device file",
         "YAML syntax | model: X1\\ndata: [{file: a.csv}\\n | 3 | YAML syntax: while parsing a flow sequence; expected ',' or ']', but got <stream end>",
+        "YAML tab indentation | model: X1\\n\tdata: [{file: a.csv}]\\n | 2 | YAML syntax: while scanning for the next token; found character",
+        "YAML indentation | model: X1\\ndata:\\n  - file: a.csv\\n   kind: cv\\n | 4 | YAML syntax: while parsing a block collection; expected <block end>",
+        "YAML mapping in a value | model: X1: X2\\ndata: [{file: a.csv}]\\n | 1 | YAML syntax: mapping values are not allowed here",
+        "option of another kind | model: X1\\ndata:\\n  - file: a.csv\\n    kind: cv\\n    options: {lead-resistance: 1}\\n | 5 | unknown option 'lead-resistance' for cv data: this kind takes stray-capacitance, test-frequency",
+        "option value | model: X1\\ndata:\\n  - file: a.csv\\n    kind: cv\\n    options: {stray-capacitance: -2p}\\n | 5 | option 'stray-capacitance': cannot read stray capacitance '-2p': a stray capacitance must not be negative",
+        "option unit | model: X1\\ndata:\\n  - file: a.csv\\n    kind: cv\\n    options:\\n      test-frequency: 1 MV\\n | 6 | unknown unit 'MV' for frequency",
+        "temperature as option | model: X1\\ndata:\\n  - file: a.csv\\n    options: {temperature: 25}\\n | 4 | (the entry's own key 'temperature' gives it)",
     })
     void everyFaultNamesFileLineAndWhat(String fault, String text, int line, String words) {
         DeviceFileException e = assertThrows(DeviceFileException.class, () -> read(text.replace("\\n", "\n")), fault);
