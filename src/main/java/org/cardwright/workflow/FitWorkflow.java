@@ -75,7 +75,8 @@ public final class FitWorkflow {
         ReadOptions options = request.readOptions();
         Inputs inputs = Inputs.read(request.data(), options).withSweepNote(request.sweepGap());
         ExtractionData data = extractionData(inputs);
-        org.cardwright.fit.ForwardReduction.Reduced forward = org.cardwright.fit.ForwardReduction.reduce(data.forward());
+        org.cardwright.fit.ForwardReduction.Reduced forward = org.cardwright.fit.ForwardReduction.reduce(data.forward(),
+                request.sweepGap());
         if (forward.reduced()) {
             // time and memory stay those of FULL_WEIGHT_LIMIT points; said in a note, as every change to the data
             data = new ExtractionData(forward.points(), data.reverse(), data.capacitance(), data.recovery());

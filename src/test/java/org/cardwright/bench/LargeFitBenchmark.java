@@ -24,7 +24,7 @@ import org.cardwright.model.TemperatureLaws;
 /**
  * The issue 10/12 large-data benchmark (a harness, not a timed unit test): writes one forward I-V file of N rows
  * (default 10^5 and 10^6) and runs the whole {@code cardwright fit} command on it in a child JVM with a fixed
- * heap (default {@code -Xmx512m}), reporting wall time, the child's peak resident memory (VmHWM, polled from
+ * heap (default {@code -Xmx512m}), reporting wall time, the child's CPU time, its peak resident memory (VmHWM, polled from
  * /proc on Linux), the peak Java heap occupancy before a collection (from the child's GC log), the exit code and
  * the fit's summary line.
  *
@@ -77,7 +77,7 @@ public final class LargeFitBenchmark {
                 System.getProperty("java.version"), Runtime.getRuntime().availableProcessors(),
                 System.getProperty("os.name"), System.getProperty("os.arch"),
                 ManagementFactory.getOperatingSystemMXBean().getSystemLoadAverage(), heap);
-        System.out.println("rows      file MB  exit  wall s   peak RSS MB  peak heap MB  summary");
+        System.out.println("rows      file MB  exit  wall s   CPU s   peak RSS MB  peak heap MB  summary");
         for (int n : rows) {
             Path data = work.resolve("forward-" + n + ".csv");
             write(data, n, seed);
@@ -123,16 +123,20 @@ public final class LargeFitBenchmark {
         long t0 = System.nanoTime();
         Process p = new ProcessBuilder(command).redirectErrorStream(true).redirectOutput(log.toFile()).start();
         long peakKb = 0;
+        double cpu = 0;
         Path status = Path.of("/proc", Long.toString(p.pid()), "status");
+        Path stat = Path.of("/proc", Long.toString(p.pid()), "stat");
         while (p.isAlive()) {
             peakKb = Math.max(peakKb, highWaterMark(status));
+            cpu = Math.max(cpu, cpuSeconds(stat));
             Thread.sleep(50);
         }
         int code = p.waitFor();
         double seconds = (System.nanoTime() - t0) / 1e9;
         String summary = Files.readAllLines(log).stream()
                 .filter(l -> l.startsWith("Model BIG") || l.startsWith("cardwright:")).findFirst().orElse("(see " + log + ")");
-        System.out.printf(Locale.ROOT, "%-9d %7.1f  %4d  %6.1f  %11s  %12d  %s%n", n, Files.size(data) / 1e6, code, seconds,
+        System.out.printf(Locale.ROOT, "%-9d %7.1f  %4d  %6.1f  %6.1f  %11s  %12d  %s%n", n, Files.size(data) / 1e6, code,
+                seconds, cpu,
                 peakKb > 0 ? String.format(Locale.ROOT, "%.0f", peakKb / 1024.0) : "n/a", peakHeapMb(gc), summary);
     }
 
@@ -148,6 +152,21 @@ public final class LargeFitBenchmark {
             return 0;
         }
         return 0;
+    }
+
+    /**
+     * User plus system CPU time of a live process, all its threads (JIT and GC included) [s], from fields 14 and 15
+     * of /proc/PID/stat in clock ticks of 1/100 s (the Linux USER_HZ); 0 when it cannot be read. Polled, so the
+     * last 50 ms of a run may be missing.
+     */
+    private static double cpuSeconds(Path stat) {
+        try {
+            String s = Files.readString(stat);
+            String[] f = s.substring(s.lastIndexOf(')') + 2).split(" ");
+            return (Long.parseLong(f[11]) + Long.parseLong(f[12])) / 100.0;
+        } catch (IOException | RuntimeException e) {
+            return 0;
+        }
     }
 
     /** The largest heap occupancy any collection found on entry, from a -Xlog:gc file [MB]. */
