@@ -33,6 +33,9 @@ final class ForwardBlock implements ResidualBlock {
             Param.IKF, Param.EG, Param.XTI, Param.TRS1, Param.TRS2, Param.VJ, Param.M, Param.BV, Param.IBV, Param.NBV,
             Param.TCV, Param.RTH0);
 
+    /** Parameters that act only through the series resistance RS(T), never on the junction current. */
+    private static final Set<Param> RESISTANCE_ONLY = EnumSet.of(Param.RS, Param.TRS1, Param.TRS2);
+
     private final FitPoint[] points;
     private final double[] temperatures;
     private final int[] group;
@@ -162,6 +165,10 @@ final class ForwardBlock implements ResidualBlock {
             plus[j] = scaled(layout.toParameters(xp));
             minus[j] = scaled(layout.toParameters(xm));
         }
+        boolean[] resistanceOnly = new boolean[nFree];
+        for (int j = 0; j < nFree; j++) {
+            resistanceOnly[j] = RESISTANCE_ONLY.contains(layout.free().get(j));
+        }
         double[][] jac = new double[points.length][nFree];
         double[] vds = junctionVoltages(p, at);
         for (int i = 0; i < points.length; i++) {
@@ -181,7 +188,9 @@ final class ForwardBlock implements ResidualBlock {
                 }
                 DiodeAtTemperature dp = plus[j][group[i]];
                 DiodeAtTemperature dm = minus[j][group[i]];
-                double dIdp = (JunctionCurrent.current(dp, vd) - JunctionCurrent.current(dm, vd)) / (2 * steps[j]);
+                // RS and its temperature coefficients leave the junction current as it is: no evaluation needed
+                double dIdp = resistanceOnly[j] ? 0
+                        : (JunctionCurrent.current(dp, vd) - JunctionCurrent.current(dm, vd)) / (2 * steps[j]);
                 double dRdp = (dp.seriesResistance() - dm.seriesResistance()) / (2 * steps[j]);
                 if (shunt == 0) {
                     jac[i][j] = (-dIdp / g + current * dRdp) * w;

@@ -34,7 +34,8 @@ import org.cardwright.model.TemperatureLaws;
  *
  * <p>Run: {@code java -cp target/test-classes:target/classes org.cardwright.bench.LargeFitBenchmark [--rows
  * 100000,1000000] [--heap 512m] [--jar target/cardwright.jar] [--work DIR] [--seed N]} after
- * {@code mvn -o package} (or {@code verify/bench/run-large}).
+ * {@code mvn -o package} (or {@code verify/bench/run-large}); {@code --java-option OPTION} (repeatable) passes an
+ * option to the child JVM, e.g. {@code -XX:+UseSerialGC}, the collector the {@code ./cardwright} launcher uses.
  */
 public final class LargeFitBenchmark {
     private static final double[] CELSIUS = {-40, 25, 85, 125};
@@ -53,6 +54,7 @@ public final class LargeFitBenchmark {
         Path jar = Path.of("target", "cardwright.jar");
         Path work = Path.of("target", "large-fit-bench");
         long seed = 10;
+        List<String> javaOptions = new ArrayList<>();
         for (int i = 0; i < args.length; i++) {
             String value = i + 1 < args.length ? args[i + 1] : null;
             if (value == null) {
@@ -64,8 +66,9 @@ public final class LargeFitBenchmark {
                 case "--jar" -> jar = Path.of(value);
                 case "--work" -> work = Path.of(value);
                 case "--seed" -> seed = Long.parseLong(value);
+                case "--java-option" -> javaOptions.add(value);
                 default -> throw new IllegalArgumentException("unknown option " + args[i]
-                        + "; options: --rows N,N --heap SIZE --jar PATH --work DIR --seed N");
+                        + "; options: --rows N,N --heap SIZE --jar PATH --work DIR --seed N --java-option OPTION");
             }
             i++;
         }
@@ -76,12 +79,13 @@ public final class LargeFitBenchmark {
         System.out.printf(Locale.ROOT, "cardwright large fit benchmark: Java %s, %d processors, %s %s, load average %.2f, child heap -Xmx%s%n",
                 System.getProperty("java.version"), Runtime.getRuntime().availableProcessors(),
                 System.getProperty("os.name"), System.getProperty("os.arch"),
-                ManagementFactory.getOperatingSystemMXBean().getSystemLoadAverage(), heap);
+                ManagementFactory.getOperatingSystemMXBean().getSystemLoadAverage(), heap + (javaOptions.isEmpty() ? ""
+                        : " " + String.join(" ", javaOptions)));
         System.out.println("rows      file MB  exit  wall s   CPU s   peak RSS MB  peak heap MB  summary");
         for (int n : rows) {
             Path data = work.resolve("forward-" + n + ".csv");
             write(data, n, seed);
-            run(jar, heap, work, data, n);
+            run(jar, heap, javaOptions, work, data, n);
         }
         System.out.println("work folder (delete at will): " + work.toAbsolutePath());
     }
@@ -112,13 +116,14 @@ public final class LargeFitBenchmark {
         }
     }
 
-    private static void run(Path jar, String heap, Path work, Path data, int n) throws Exception {
+    private static void run(Path jar, String heap, List<String> javaOptions, Path work, Path data, int n) throws Exception {
         Path java = Path.of(System.getProperty("java.home"), "bin", "java");
         Path out = work.resolve("out-" + n);
         Path log = work.resolve("log-" + n + ".txt");
         Path gc = work.resolve("gc-" + n + ".log");
-        List<String> command = new ArrayList<>(List.of(java.toString(), "-Xmx" + heap, "-Xlog:gc:file=" + gc,
-                "-jar", jar.toAbsolutePath().toString(), "fit", data.toString(), "--name", "BIG", "--out",
+        List<String> command = new ArrayList<>(List.of(java.toString(), "-Xmx" + heap, "-Xlog:gc:file=" + gc));
+        command.addAll(javaOptions);
+        command.addAll(List.of("-jar", jar.toAbsolutePath().toString(), "fit", data.toString(), "--name", "BIG", "--out",
                 out.toString(), "--force"));
         long t0 = System.nanoTime();
         Process p = new ProcessBuilder(command).redirectErrorStream(true).redirectOutput(log.toFile()).start();
