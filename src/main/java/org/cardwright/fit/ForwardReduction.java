@@ -23,7 +23,8 @@ import org.cardwright.model.SweepTemperatures;
  *       its points' temperatures (exactly theirs when they share one);</li>
  *   <li>its voltage is the weighted mean of V, corrected for the curvature of V(ln I) within the bin: the mean
  *       of V lies above V(mean ln I) by V''·m2/2, m2 the weighted second moment of ln I about its mean (Taylor
- *       expansion to second order), with V'' taken from the parabola through the neighbouring bins' means;</li>
+ *       expansion to second order), with V'' taken from the parabola through three neighbouring bins' values (not
+ *       its own, so that its noise enters its value once);</li>
  *   <li>its uncertainty is that of a weighted mean whose scale comes from the data's own spread:
  *       sqrt(phi / sum w), w = 1/sigma^2 the stated weights and phi the reduced chi-square of the points about
  *       each bin's local line (slope and curvature), pooled over the bin and its neighbours until it has at least
@@ -212,16 +213,17 @@ public final class ForwardReduction {
                 moment2[k] = suu / sw;
                 slope[k] = suu > 0 ? suv / suu : 0;
             }
-            // V'' from the parabola through three neighbouring bin values (the end bins take their neighbour's);
+            // V'' from the parabola through three neighbouring bin values, not the bin's own (whose noise would
+            // then enter its corrected value a twelfth more strongly, and its uncertainty would understate that);
             // the values are the means corrected by the previous pass's V'', which takes out of V'' what the
             // bins' unequal second moments put into the plain means (two passes leave a hundredth of it)
             double[] curvature = new double[m];
             double[] value = meanV.clone();
             for (int pass = 0; pass < CURVATURE_PASSES && m >= 3; pass++) {
                 for (int k = 0; k < m; k++) {
-                    int c = Math.max(1, Math.min(m - 2, k));
-                    curvature[k] = secondDerivative(centre[c - 1], value[c - 1], centre[c], value[c],
-                            centre[c + 1], value[c + 1]);
+                    int[] o = others(k, m);
+                    curvature[k] = secondDerivative(centre[o[0]], value[o[0]], centre[o[1]], value[o[1]],
+                            centre[o[2]], value[o[2]]);
                 }
                 for (int k = 0; k < m; k++) {
                     value[k] = meanV[k] - 0.5 * curvature[k] * moment2[k];
@@ -264,6 +266,23 @@ public final class ForwardReduction {
                 out.widest = Math.max(out.widest, lnI[run[1] - 1] - lnI[run[0]]);
             }
             return out;
+        }
+
+        /**
+         * Three bins near bin {@code k} of {@code m}, ascending, other than {@code k} itself when m is 4 or more:
+         * its two neighbours and the next one out (at an end, the nearest three).
+         */
+        private static int[] others(int k, int m) {
+            if (m < 4) {
+                return new int[] {0, 1, 2};
+            }
+            if (k == 0) {
+                return new int[] {1, 2, 3};
+            }
+            if (k == m - 1) {
+                return new int[] {m - 4, m - 3, m - 2};
+            }
+            return k + 2 < m ? new int[] {k - 1, k + 1, k + 2} : new int[] {k - 2, k - 1, k + 1};
         }
 
         /** Second derivative of the parabola through three points with distinct abscissae. */
