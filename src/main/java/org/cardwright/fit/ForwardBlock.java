@@ -27,9 +27,14 @@ final class ForwardBlock implements ResidualBlock {
     private static final double STEP = 1e-6;
     /** Below this estimated self-heating the junction is taken as isothermal (far below the 1e-6 V goal) [K]. */
     private static final double NEGLIGIBLE_RISE = 1e-6;
+    /** Temperature step of the central difference dF/dT in the self-heating Jacobian [K]. */
+    private static final double TEMPERATURE_STEP = 1e-2;
     private static final Set<Param> DEPENDS = EnumSet.of(Param.IS, Param.N, Param.RS, Param.ISR, Param.NR,
             Param.IKF, Param.EG, Param.XTI, Param.TRS1, Param.TRS2, Param.VJ, Param.M, Param.BV, Param.IBV, Param.NBV,
             Param.TCV, Param.RTH0);
+
+    /** Parameters that act only through the series resistance RS(T), never on the junction current. */
+    private static final Set<Param> RESISTANCE_ONLY = EnumSet.of(Param.RS, Param.TRS1, Param.TRS2);
 
     private final FitPoint[] points;
     private final double[] temperatures;
@@ -135,8 +140,7 @@ final class ForwardBlock implements ResidualBlock {
     public double[][] jacobian(FreeParameters layout, double[] x) {
         DiodeParameters p = layout.toParameters(x);
         if (p.isGiven(Param.RTH0) && shunt == 0) {
-            // the junction temperature depends on the point: plain central differences of the residuals
-            return ResidualBlock.super.jacobian(layout, x);
+            return selfHeatingJacobian(layout, x, p);
         }
         DiodeAtTemperature[] at = scaled(p);
         int nFree = layout.size();
@@ -161,6 +165,10 @@ final class ForwardBlock implements ResidualBlock {
             plus[j] = scaled(layout.toParameters(xp));
             minus[j] = scaled(layout.toParameters(xm));
         }
+        boolean[] resistanceOnly = new boolean[nFree];
+        for (int j = 0; j < nFree; j++) {
+            resistanceOnly[j] = RESISTANCE_ONLY.contains(layout.free().get(j));
+        }
         double[][] jac = new double[points.length][nFree];
         double[] vds = junctionVoltages(p, at);
         for (int i = 0; i < points.length; i++) {
@@ -180,7 +188,9 @@ final class ForwardBlock implements ResidualBlock {
                 }
                 DiodeAtTemperature dp = plus[j][group[i]];
                 DiodeAtTemperature dm = minus[j][group[i]];
-                double dIdp = (JunctionCurrent.current(dp, vd) - JunctionCurrent.current(dm, vd)) / (2 * steps[j]);
+                // RS and its temperature coefficients leave the junction current as it is: no evaluation needed
+                double dIdp = resistanceOnly[j] ? 0
+                        : (JunctionCurrent.current(dp, vd) - JunctionCurrent.current(dm, vd)) / (2 * steps[j]);
                 double dRdp = (dp.seriesResistance() - dm.seriesResistance()) / (2 * steps[j]);
                 if (shunt == 0) {
                     jac[i][j] = (-dIdp / g + current * dRdp) * w;
@@ -188,6 +198,79 @@ final class ForwardBlock implements ResidualBlock {
                     double dvd = -(a * dIdp + shunt * ij * dRdp) / (g * a + shunt);
                     jac[i][j] = (dvd * (1 + rs * g) + rs * dIdp + ij * dRdp) * w;
                 }
+            }
+        }
+        return jac;
+    }
+
+    /**
+     * The Jacobian with self-heating: each point's junction sits at its own temperature T = T0 + RTH0·I·V, so
+     * V = F(p, T) with the isothermal terminal voltage F, and differentiating the steady state at fixed current
+     * gives dV/dp = (dF/dp + dF/dT·I·V·[p = RTH0]) / (1 - RTH0·I·dF/dT). dF/dp at fixed T is the isothermal form
+     * of {@link #jacobian} (implicit differentiation of the junction equation, explicit derivatives by central
+     * differences of the temperature laws) and dF/dT = -(dIj/dT at fixed vd)/g + I·dRS/dT likewise, so each point
+     * costs one solve for its rise and no solve per parameter. Points whose rise the residuals take as 0
+     * ({@code NEGLIGIBLE_RISE}) have the isothermal derivatives and none with respect to RTH0, as there.
+     */
+    private double[][] selfHeatingJacobian(FreeParameters layout, double[] x, DiodeParameters p) {
+        int nFree = layout.size();
+        DiodeParameters[] plus = new DiodeParameters[nFree];
+        DiodeParameters[] minus = new DiodeParameters[nFree];
+        double[] span = new double[nFree];
+        for (int j = 0; j < nFree; j++) {
+            if (!DEPENDS.contains(layout.free().get(j))) {
+                continue;
+            }
+            double h = layout.isLog(j) ? STEP : STEP * Math.max(Math.abs(x[j]), 1e-3);
+            double[] at = layout.differencePoints(j, x[j], h);
+            if (!(at[1] > at[0])) {
+                continue;
+            }
+            span[j] = at[1] - at[0];
+            double[] xp = x.clone();
+            xp[j] = at[1];
+            double[] xm = x.clone();
+            xm[j] = at[0];
+            plus[j] = layout.toParameters(xp);
+            minus[j] = layout.toParameters(xm);
+        }
+        double rth = p.get(Param.RTH0);
+        double[][] jac = new double[points.length][nFree];
+        for (int i = 0; i < points.length; i++) {
+            FitPoint pt = points[i];
+            double current = pt.current();
+            boolean heated = rth * current * Math.abs(pt.voltage()) >= NEGLIGIBLE_RISE;
+            double t = pt.temperature() + (heated ? SelfHeating.riseAtCurrent(p, pt.temperature(), current, options) : 0);
+            DiodeAtTemperature d = TemperatureLaws.at(p, t, options);
+            double vd = DiodeSolver.junctionVoltageAtCurrent(d, current);
+            double g = JunctionCurrent.conductance(d, vd);
+            double v = vd + current * d.seriesResistance();
+            double dFdT = 0;
+            if (heated) {
+                DiodeAtTemperature hot = TemperatureLaws.at(p, t + TEMPERATURE_STEP, options);
+                DiodeAtTemperature cold = TemperatureLaws.at(p, t - TEMPERATURE_STEP, options);
+                dFdT = (-(JunctionCurrent.current(hot, vd) - JunctionCurrent.current(cold, vd)) / g
+                        + current * (hot.seriesResistance() - cold.seriesResistance())) / (2 * TEMPERATURE_STEP);
+            }
+            double denominator = 1 - rth * current * dFdT;
+            double w = 1 / pt.sigma();
+            for (int j = 0; j < nFree; j++) {
+                if (plus[j] == null) {
+                    continue;
+                }
+                double dFdx;
+                double dRthdx = 0;
+                if (layout.free().get(j) == Param.RTH0) {
+                    dFdx = 0;
+                    dRthdx = (plus[j].get(Param.RTH0) - minus[j].get(Param.RTH0)) / span[j];
+                } else {
+                    DiodeAtTemperature dp = TemperatureLaws.at(plus[j], t, options);
+                    DiodeAtTemperature dm = TemperatureLaws.at(minus[j], t, options);
+                    double dIdx = (JunctionCurrent.current(dp, vd) - JunctionCurrent.current(dm, vd)) / span[j];
+                    double dRdx = (dp.seriesResistance() - dm.seriesResistance()) / span[j];
+                    dFdx = -dIdx / g + current * dRdx;
+                }
+                jac[i][j] = heated ? (dFdx + dFdT * current * v * dRthdx) / denominator * w : dFdx * w;
             }
         }
         return jac;

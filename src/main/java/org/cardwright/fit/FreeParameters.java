@@ -12,6 +12,8 @@ import org.cardwright.model.Param;
  */
 public final class FreeParameters {
     private final DiodeParameters base;
+    /** The base's values, copied once so that each parameter set starts from a fast copy of them. */
+    private final java.util.EnumMap<Param, Double> baseValues;
     private final List<Param> free;
     private final boolean[] logScale;
     private final double[] lower;
@@ -19,6 +21,8 @@ public final class FreeParameters {
 
     FreeParameters(DiodeParameters base, List<Param> free, List<double[]> bounds) {
         this.base = base;
+        this.baseValues = new java.util.EnumMap<>(Param.class);
+        this.baseValues.putAll(base.givenValues());
         this.free = List.copyOf(free);
         int k = free.size();
         this.logScale = new boolean[k];
@@ -62,11 +66,12 @@ public final class FreeParameters {
 
     /** The parameter set for the optimiser's vector {@code x}. */
     public DiodeParameters toParameters(double[] x) {
-        DiodeParameters p = base;
+        // one copy of the base's values, not one per free parameter: the same set, built in linear time
+        java.util.EnumMap<Param, Double> values = new java.util.EnumMap<>(baseValues);
         for (int j = 0; j < x.length; j++) {
-            p = p.with(free.get(j), value(j, x[j]));
+            values.put(free.get(j), value(j, x[j]));
         }
-        return p;
+        return DiodeParameters.of(values);
     }
 
     double value(int j, double internal) {

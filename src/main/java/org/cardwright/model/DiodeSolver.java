@@ -115,6 +115,10 @@ public final class DiodeSolver {
      * halve the residual's predicted distance as fast as bisection would, is replaced by bisection (the
      * safeguard of Press et al., "Numerical Recipes", routine rtsafe; recalled).
      */
+    /** Magnitudes whose squares stay normal doubles [A]. */
+    private static final double SQUARE_SAFE_LOW = 1e-150;
+    private static final double SQUARE_SAFE_HIGH = 1e150;
+
     private static double solve(DiodeAtTemperature d, double target, double r, double lo, double hi, double start) {
         double scale = Math.max(Math.abs(target) * 1e-6, 1e-300);
         double goal = r == 0 ? asinh(target / scale) : target;
@@ -129,7 +133,10 @@ public final class DiodeSolver {
             double slope;
             if (r == 0) {
                 f = asinh(i / scale) - goal;
-                slope = g / Math.hypot(i, scale);
+                // sqrt of the sum of squares where neither square can overflow or underflow: Math.hypot gives the
+                // same to an ulp at several times the cost (a tenth of a forward fit's time went there)
+                slope = g / (scale > SQUARE_SAFE_LOW && Math.abs(i) < SQUARE_SAFE_HIGH
+                        ? Math.sqrt(i * i + scale * scale) : Math.hypot(i, scale));
             } else {
                 f = x + r * i - goal;
                 slope = 1 + r * g;

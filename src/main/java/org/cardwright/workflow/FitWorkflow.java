@@ -77,7 +77,8 @@ public final class FitWorkflow {
         // the C-V conditions the files state (or are given) decide the stray capacitance and test frequency
         org.cardwright.fit.CapacitanceOptions capacitance = inputs.capacitanceOptions(request.capacitance());
         ExtractionData data = extractionData(inputs);
-        org.cardwright.fit.ForwardReduction.Reduced forward = org.cardwright.fit.ForwardReduction.reduce(data.forward());
+        org.cardwright.fit.ForwardReduction.Reduced forward = org.cardwright.fit.ForwardReduction.reduce(data.forward(),
+                request.sweepGap());
         if (forward.reduced()) {
             // time and memory stay those of FULL_WEIGHT_LIMIT points; said in a note, as every change to the data
             data = new ExtractionData(forward.points(), data.reverse(), data.capacitance(), data.recovery());

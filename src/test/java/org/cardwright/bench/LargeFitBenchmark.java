@@ -24,7 +24,7 @@ import org.cardwright.model.TemperatureLaws;
 /**
  * The issue 10/12 large-data benchmark (a harness, not a timed unit test): writes one forward I-V file of N rows
  * (default 10^5 and 10^6) and runs the whole {@code cardwright fit} command on it in a child JVM with a fixed
- * heap (default {@code -Xmx512m}), reporting wall time, the child's peak resident memory (VmHWM, polled from
+ * heap (default {@code -Xmx512m}), reporting wall time, the child's CPU time, its peak resident memory (VmHWM, polled from
  * /proc on Linux), the peak Java heap occupancy before a collection (from the child's GC log), the exit code and
  * the fit's summary line.
  *
@@ -34,7 +34,8 @@ import org.cardwright.model.TemperatureLaws;
  *
  * <p>Run: {@code java -cp target/test-classes:target/classes org.cardwright.bench.LargeFitBenchmark [--rows
  * 100000,1000000] [--heap 512m] [--jar target/cardwright.jar] [--work DIR] [--seed N]} after
- * {@code mvn -o package} (or {@code verify/bench/run-large}).
+ * {@code mvn -o package} (or {@code verify/bench/run-large}); {@code --java-option OPTION} (repeatable) passes an
+ * option to the child JVM, e.g. {@code -XX:+UseSerialGC}, the collector the {@code ./cardwright} launcher uses.
  */
 public final class LargeFitBenchmark {
     private static final double[] CELSIUS = {-40, 25, 85, 125};
@@ -53,6 +54,7 @@ public final class LargeFitBenchmark {
         Path jar = Path.of("target", "cardwright.jar");
         Path work = Path.of("target", "large-fit-bench");
         long seed = 10;
+        List<String> javaOptions = new ArrayList<>();
         for (int i = 0; i < args.length; i++) {
             String value = i + 1 < args.length ? args[i + 1] : null;
             if (value == null) {
@@ -64,8 +66,9 @@ public final class LargeFitBenchmark {
                 case "--jar" -> jar = Path.of(value);
                 case "--work" -> work = Path.of(value);
                 case "--seed" -> seed = Long.parseLong(value);
+                case "--java-option" -> javaOptions.add(value);
                 default -> throw new IllegalArgumentException("unknown option " + args[i]
-                        + "; options: --rows N,N --heap SIZE --jar PATH --work DIR --seed N");
+                        + "; options: --rows N,N --heap SIZE --jar PATH --work DIR --seed N --java-option OPTION");
             }
             i++;
         }
@@ -76,12 +79,13 @@ public final class LargeFitBenchmark {
         System.out.printf(Locale.ROOT, "cardwright large fit benchmark: Java %s, %d processors, %s %s, load average %.2f, child heap -Xmx%s%n",
                 System.getProperty("java.version"), Runtime.getRuntime().availableProcessors(),
                 System.getProperty("os.name"), System.getProperty("os.arch"),
-                ManagementFactory.getOperatingSystemMXBean().getSystemLoadAverage(), heap);
-        System.out.println("rows      file MB  exit  wall s   peak RSS MB  peak heap MB  summary");
+                ManagementFactory.getOperatingSystemMXBean().getSystemLoadAverage(), heap + (javaOptions.isEmpty() ? ""
+                        : " " + String.join(" ", javaOptions)));
+        System.out.println("rows      file MB  exit  wall s   CPU s   peak RSS MB  peak heap MB  summary");
         for (int n : rows) {
             Path data = work.resolve("forward-" + n + ".csv");
             write(data, n, seed);
-            run(jar, heap, work, data, n);
+            run(jar, heap, javaOptions, work, data, n);
         }
         System.out.println("work folder (delete at will): " + work.toAbsolutePath());
     }
@@ -112,27 +116,32 @@ public final class LargeFitBenchmark {
         }
     }
 
-    private static void run(Path jar, String heap, Path work, Path data, int n) throws Exception {
+    private static void run(Path jar, String heap, List<String> javaOptions, Path work, Path data, int n) throws Exception {
         Path java = Path.of(System.getProperty("java.home"), "bin", "java");
         Path out = work.resolve("out-" + n);
         Path log = work.resolve("log-" + n + ".txt");
         Path gc = work.resolve("gc-" + n + ".log");
-        List<String> command = new ArrayList<>(List.of(java.toString(), "-Xmx" + heap, "-Xlog:gc:file=" + gc,
-                "-jar", jar.toAbsolutePath().toString(), "fit", data.toString(), "--name", "BIG", "--out",
+        List<String> command = new ArrayList<>(List.of(java.toString(), "-Xmx" + heap, "-Xlog:gc:file=" + gc));
+        command.addAll(javaOptions);
+        command.addAll(List.of("-jar", jar.toAbsolutePath().toString(), "fit", data.toString(), "--name", "BIG", "--out",
                 out.toString(), "--force"));
         long t0 = System.nanoTime();
         Process p = new ProcessBuilder(command).redirectErrorStream(true).redirectOutput(log.toFile()).start();
         long peakKb = 0;
+        double cpu = 0;
         Path status = Path.of("/proc", Long.toString(p.pid()), "status");
+        Path stat = Path.of("/proc", Long.toString(p.pid()), "stat");
         while (p.isAlive()) {
             peakKb = Math.max(peakKb, highWaterMark(status));
+            cpu = Math.max(cpu, cpuSeconds(stat));
             Thread.sleep(50);
         }
         int code = p.waitFor();
         double seconds = (System.nanoTime() - t0) / 1e9;
         String summary = Files.readAllLines(log).stream()
                 .filter(l -> l.startsWith("Model BIG") || l.startsWith("cardwright:")).findFirst().orElse("(see " + log + ")");
-        System.out.printf(Locale.ROOT, "%-9d %7.1f  %4d  %6.1f  %11s  %12d  %s%n", n, Files.size(data) / 1e6, code, seconds,
+        System.out.printf(Locale.ROOT, "%-9d %7.1f  %4d  %6.1f  %6.1f  %11s  %12d  %s%n", n, Files.size(data) / 1e6, code,
+                seconds, cpu,
                 peakKb > 0 ? String.format(Locale.ROOT, "%.0f", peakKb / 1024.0) : "n/a", peakHeapMb(gc), summary);
     }
 
@@ -148,6 +157,21 @@ public final class LargeFitBenchmark {
             return 0;
         }
         return 0;
+    }
+
+    /**
+     * User plus system CPU time of a live process, all its threads (JIT and GC included) [s], from fields 14 and 15
+     * of /proc/PID/stat in clock ticks of 1/100 s (the Linux USER_HZ); 0 when it cannot be read. Polled, so the
+     * last 50 ms of a run may be missing.
+     */
+    private static double cpuSeconds(Path stat) {
+        try {
+            String s = Files.readString(stat);
+            String[] f = s.substring(s.lastIndexOf(')') + 2).split(" ");
+            return (Long.parseLong(f[11]) + Long.parseLong(f[12])) / 100.0;
+        } catch (IOException | RuntimeException e) {
+            return 0;
+        }
     }
 
     /** The largest heap occupancy any collection found on entry, from a -Xlog:gc file [MB]. */
