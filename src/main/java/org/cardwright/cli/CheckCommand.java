@@ -17,11 +17,12 @@ import picocli.CommandLine.Parameters;
 
 /** {@code cardwright check}: does every card of a library still reproduce its data? For CI. */
 @Command(name = "check", mixinStandardHelpOptions = true, sortOptions = false,
+        header = "Re-simulates every card of a library against its part's data.",
         description = {
-            "Re-simulates every card of a model library at its part's measured points and holds it to the",
-            "part's tolerances. Prints one line per card and a summary table; writes a JUnit XML report on",
-            "request. Exits 0 when every card passes, 1 when any card fails, is missing, or is stale (its",
-            "device file, data or templates changed since it was built)."},
+            "Re-simulates every card of a model library at its part's measured points and holds it to the "
+                    + "part's tolerances. Prints one line per card and a summary table; writes a JUnit XML report on "
+                    + "request. Exits 0 when every card passes, 1 when any card fails, is missing, or is out of date "
+                    + "(its device file, data or templates changed since it was made)."},
         footerHeading = "%nExamples%n",
         footer = {
             "  cardwright check fixtures/library",

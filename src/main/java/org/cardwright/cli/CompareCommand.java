@@ -26,12 +26,13 @@ import picocli.CommandLine.Parameters;
 
 /** {@code cardwright compare}: two cards side by side, parameters and behaviour. */
 @Command(name = "compare", mixinStandardHelpOptions = true, sortOptions = false,
+        header = "Compares two cards, parameter by parameter and in simulation.",
         description = {
-            "Compares two diode cards: the parameters side by side, then both cards simulated (the built-in",
-            "engine uses each card's own simulator's equations): forward voltage at each decade of current at",
-            "each temperature, reverse leakage,",
-            "capacitance at a few biases, and the breakdown voltage when a card has BV. Differences beyond",
-            "the limits (a device file's tolerances, or the options below) are flagged; exits 1 when any is."},
+            "Compares two diode cards: the parameters side by side, then both cards simulated (the built-in "
+                    + "engine uses each card's own simulator's equations): forward voltage at each decade of current "
+                    + "at each temperature, reverse leakage, capacitance at a few biases, and the breakdown voltage "
+                    + "when a card has BV. Differences beyond the limits (a device file's tolerances, or the options "
+                    + "below) are flagged; exits 1 when any is."},
         footerHeading = "%nExamples%n",
         footer = {
             "  cardwright compare old/KS1.ngspice.lib new/KS1.ngspice.lib",
@@ -112,10 +113,9 @@ final class CompareCommand implements Callable<Integer> {
         CardComparison c = new CardComparer(Engines.byName(engine, da.flavour()), Engines.capacitanceByName(engine, da.flavour()),
                 Engines.byName(engine, db.flavour()), Engines.capacitanceByName(engine, db.flavour()))
                 .compare(a, shunt[0], Inputs.displayName(cardA), b, shunt[1], Inputs.displayName(cardB), plan);
-        a.notices().forEach(n -> spec.commandLine().getOut().println("note: " + n));
-        b.notices().forEach(n -> spec.commandLine().getOut().println("note: " + n));
-        spec.commandLine().getOut().print(ComparisonText.render(c, plan));
-        spec.commandLine().getOut().flush();
+        a.notices().forEach(n -> Terminal.note(spec, n.toString()));
+        b.notices().forEach(n -> Terminal.note(spec, n.toString()));
+        Terminal.print(spec, ComparisonText.render(c, plan));
         return c.flaggedCount() == 0 ? ExitCodes.OK : ExitCodes.NOT_REPRODUCED;
     }
 
