@@ -6,6 +6,7 @@ import java.math.RoundingMode;
 import java.util.Locale;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
+import org.cardwright.notation.SpiceSuffix;
 
 /**
  * Writing and reading numbers the way SPICE netlists spell them.
@@ -26,9 +27,8 @@ public final class SpiceNumbers {
      */
     public static final int MAX_SIGNIFICANT_DIGITS = 15;
 
-    private static final String[] SUFFIXES = {"f", "p", "n", "u", "m", "", "k", "meg", "g", "t"};
-    private static final int SMALLEST_SUFFIX_EXPONENT = -15;
-    private static final int LARGEST_SUFFIX_EXPONENT = 12;
+    private static final int SMALLEST_SUFFIX_EXPONENT = SpiceSuffix.SMALLEST_POWER;
+    private static final int LARGEST_SUFFIX_EXPONENT = SpiceSuffix.LARGEST_POWER;
 
     /** Mantissa with optional exponent, then an optional tail that starts with a letter. */
     private static final Pattern NUMBER = Pattern.compile(
@@ -70,7 +70,7 @@ public final class SpiceNumbers {
             return exponentForm(rounded, decimalExponent);
         }
         String mantissa = rounded.movePointLeft(engineeringExponent).stripTrailingZeros().toPlainString();
-        return mantissa + SUFFIXES[(engineeringExponent - SMALLEST_SUFFIX_EXPONENT) / 3];
+        return mantissa + SpiceSuffix.ofPower(engineeringExponent).map(SpiceSuffix::text).orElse("");
     }
 
     private static String exponentForm(BigDecimal rounded, int decimalExponent) {
@@ -118,23 +118,10 @@ public final class SpiceNumbers {
     }
 
     private static BigDecimal applySuffix(BigDecimal number, String tail) {
-        if (tail.startsWith("MEG")) {
-            return number.scaleByPowerOfTen(6);
-        }
         if (tail.startsWith("MIL")) {
             return number.multiply(MIL);
         }
-        return switch (tail.charAt(0)) {
-            case 'T' -> number.scaleByPowerOfTen(12);
-            case 'G' -> number.scaleByPowerOfTen(9);
-            case 'K' -> number.scaleByPowerOfTen(3);
-            case 'M' -> number.scaleByPowerOfTen(-3);
-            case 'U' -> number.scaleByPowerOfTen(-6);
-            case 'N' -> number.scaleByPowerOfTen(-9);
-            case 'P' -> number.scaleByPowerOfTen(-12);
-            case 'F' -> number.scaleByPowerOfTen(-15);
-            // ngspice 39 ignores letters that are not a scale factor (units such as V, A, ohm)
-            default -> number;
-        };
+        // ngspice 39 ignores letters that are not a scale factor (units such as V, A, ohm)
+        return SpiceSuffix.leading(tail).map(s -> number.scaleByPowerOfTen(s.power())).orElse(number);
     }
 }
