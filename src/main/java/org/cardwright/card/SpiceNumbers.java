@@ -17,6 +17,12 @@ import org.cardwright.notation.SpiceSuffix;
  * <p>Reading follows ngspice 39: suffixes in any letter case ({@code T G MEG K M MIL U N P F}), letters after the
  * suffix ignored ({@code 10pF} is 1e-11, {@code 1F} is 1e-15, {@code 3k3} is 3000), exponent forms, signs.
  * Both directions are independent of the default locale.
+ *
+ * <p>On a card ({@link #cardValue}), a parameter that spans decades (one fitted on a log scale: the currents IS,
+ * ISR, IKF, IKR, IBV, the capacitance CJO, the time TT, the thermal resistance RTH0) is written with a suffix, as
+ * the trade writes it ({@code IS=15.262f}, {@code IKF=46.40908m}); every other parameter (N, NR, RS, EG, XTI, VJ,
+ * M, FC, BV, NBV, TCV, TRS1, TRS2, TLEV, TNOM) is a plain decimal that reads at a glance ({@code EG=0.6903036},
+ * {@code RS=0.8526463}), in exponent form only below 1e-4 or from 1e6 up ({@code TRS2=1.5e-6}).
  */
 public final class SpiceNumbers {
     /** Fewest significant digits {@link #format} accepts. */
@@ -71,6 +77,46 @@ public final class SpiceNumbers {
         }
         String mantissa = rounded.movePointLeft(engineeringExponent).stripTrailingZeros().toPlainString();
         return mantissa + SpiceSuffix.ofPower(engineeringExponent).map(SpiceSuffix::text).orElse("");
+    }
+
+    /** Smallest magnitude a plain-decimal card value is written without an exponent. */
+    private static final BigDecimal PLAIN_FROM = new BigDecimal("1e-4");
+    /** Magnitude from which a plain-decimal card value is written with an exponent. */
+    private static final BigDecimal PLAIN_BELOW = new BigDecimal("1e6");
+
+    /**
+     * Writes the value of {@code param} as a card states it: with a SPICE suffix when the parameter spans decades
+     * (fitted on a log scale), else as a plain decimal (exponent form outside [1e-4, 1e6)); see the class comment.
+     *
+     * @param param             the parameter, which decides the form
+     * @param value             a finite number, in the card's units
+     * @param significantDigits as for {@link #format}
+     */
+    public static String cardValue(org.cardwright.model.Param param, double value, int significantDigits) {
+        if (param.fitScale() == org.cardwright.model.Param.Scale.LOG) {
+            return format(value, significantDigits);
+        }
+        return plain(value, significantDigits);
+    }
+
+    /**
+     * Writes {@code value} rounded to {@code significantDigits} significant digits as a plain decimal ({@code
+     * 0.6903036}, {@code -0.00220409}, {@code 1200}), or in exponent form ({@code 1.5e-6}) when its magnitude is
+     * below 1e-4 or from 1e6 up; trailing zeros are removed. Reads back with {@link #parse} to the same text.
+     */
+    public static String plain(double value, int significantDigits) {
+        format(value, significantDigits);  // the same checks of value and digits
+        if (value == 0.0) {
+            return "0";
+        }
+        BigDecimal rounded = BigDecimal.valueOf(value)
+                .round(new MathContext(significantDigits, RoundingMode.HALF_UP))
+                .stripTrailingZeros();
+        BigDecimal magnitude = rounded.abs();
+        if (magnitude.compareTo(PLAIN_FROM) < 0 || magnitude.compareTo(PLAIN_BELOW) >= 0) {
+            return exponentForm(rounded, rounded.precision() - rounded.scale() - 1);
+        }
+        return rounded.toPlainString();
     }
 
     private static String exponentForm(BigDecimal rounded, int decimalExponent) {

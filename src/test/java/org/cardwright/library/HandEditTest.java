@@ -71,6 +71,6 @@ class HandEditTest {
         PartOutcome o = new LibraryBuilder(false).build(root, line -> { }).get(0);
         assertEquals(PartOutcome.Status.BUILT, o.status(), o.message());
         assertTrue(o.message().matches(".*worst RMS \\d+\\.\\d{3} -> \\d+\\.\\d{3} mV.*"), o.message());
-        assertTrue(Files.readString(root.resolve("group1/TP03.ngspice.lib")).contains("+ RS=900m\n"));
+        assertTrue(Files.readString(root.resolve("group1/TP03.ngspice.lib")).contains("+ RS=0.9\n"));
     }
 }
