@@ -47,7 +47,8 @@ final class CheckCommand implements Callable<Integer> {
                     + "(after symbolic links are resolved). Without it such paths are refused; see docs/security.md.")
     boolean allowOutsideRoot;
 
-    @Option(names = "--allow-stale", description = "Let cards built from older inputs pass when they reproduce the data.")
+    @Option(names = {"--allow-outdated", "--allow-stale"},
+            description = "Let outdated cards (made from older inputs) pass when they reproduce the data; --allow-stale is the earlier name.")
     boolean allowStale;
 
     @Option(names = "--jobs", paramLabel = "N",
@@ -65,7 +66,7 @@ final class CheckCommand implements Callable<Integer> {
             // the report may replace an old report, never a file of the library
             LibraryInventory inventory = LibraryInventory.of(root, allowOutsideRoot);
             new OutputPlan().inputs("a file of the library", inventory.inputs())
-                    .inputs("a card or build record of the library", inventory.outputs())
+                    .inputs("a card or state file of the library", inventory.outputs())
                     .output("--junit", junit).check();
         }
         PrintWriter out = spec.commandLine().getOut();

@@ -20,8 +20,8 @@ import org.cardwright.workflow.VerifyWorkflow;
 
 /**
  * Checks a library for CI: every card of every part is re-simulated at its part's measured points
- * ({@link VerifyWorkflow}) and held to the part's forward tolerances. A card whose part's recipe no longer matches
- * the build record is reported stale: it was built from other inputs than those in the tree.
+ * ({@link VerifyWorkflow}) and held to the part's forward tolerances. A card whose part's inputs no longer match
+ * its state file is reported outdated: it was made from other inputs than those in the tree.
  */
 public final class LibraryCheck {
     private final String engine;
@@ -151,13 +151,13 @@ public final class LibraryCheck {
                     Optional.of(v), seconds(t0));
         }
         if (stale && !allowStale) {
-            return new CardCheck(name, part.model(), cardName, CardCheck.Status.STALE,
-                    "reproduces its data (" + worst + ") but " + (state.isEmpty() ? "has no build record"
+            return new CardCheck(name, part.model(), cardName, CardCheck.Status.OUTDATED,
+                    "reproduces its data (" + worst + ") but " + (state.isEmpty() ? "has no state file"
                             : "the device file, data or templates changed since it was built") + "; run cardwright build",
                     Optional.of(v), seconds(t0));
         }
         return new CardCheck(name, part.model(), cardName, CardCheck.Status.PASS,
-                worst + (edited ? "; edited by hand since it was built" : "") + (stale ? "; stale (allowed)" : ""),
+                worst + (edited ? "; edited by hand since it was built" : "") + (stale ? "; outdated (allowed)" : ""),
                 Optional.of(v), seconds(t0));
     }
 

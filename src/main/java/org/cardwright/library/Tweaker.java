@@ -95,7 +95,7 @@ final class Tweaker {
     }
 
     private static String card(Tweak t, double si) {
-        return SpiceNumbers.format(t.param().toCardValue(si), 7);
+        return SpiceNumbers.cardValue(t.param(), t.param().toCardValue(si), 7);
     }
 
     /** The part's forward points, as verify sees them. */

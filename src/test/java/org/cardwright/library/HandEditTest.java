@@ -49,7 +49,7 @@ class HandEditTest {
         Files.delete(root.resolve("group1/TP03.state"));
         PartOutcome o = new LibraryBuilder(false).build(root, line -> { }).get(0);
         assertEquals(PartOutcome.Status.REFUSED_EDITED, o.status());
-        assertTrue(o.message().contains("no build record"), o.message());
+        assertTrue(o.message().contains("no state file"), o.message());
     }
 
     @Test
