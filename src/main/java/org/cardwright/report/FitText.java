@@ -79,7 +79,8 @@ public final class FitText {
 
     /** The term's name, with its keywords in brackets. */
     private static String termLabel(TermDecision d) {
-        return d.params().isEmpty() ? d.term() : d.term() + " (" + keywords(d) + ")";
+        String brackets = " (" + keywords(d) + ")";
+        return d.params().isEmpty() || d.term().endsWith(brackets) ? d.term() : d.term() + brackets;
     }
 
     private static String keywords(TermDecision d) {

@@ -42,8 +42,14 @@ public final class Json {
             sb.append(Double.isFinite(d) ? Double.toString(d) : "null");
         } else if (v instanceof Float f) {
             write(sb, f.doubleValue(), indent);
+        } else if (v instanceof java.math.BigDecimal b) {
+            sb.append(b.toString());  // exact, never cut to a long (JSON reads 1.5E-7 and 2E+3 as numbers)
+        } else if (v instanceof java.math.BigInteger b) {
+            sb.append(b.toString());
+        } else if (v instanceof Long || v instanceof Integer || v instanceof Short || v instanceof Byte) {
+            sb.append(((Number) v).longValue());
         } else if (v instanceof Number n) {
-            sb.append(n.longValue());
+            write(sb, n.doubleValue(), indent);  // any other kind of number: its double value, never cut
         } else if (v instanceof Map<?, ?> m) {
             if (m.isEmpty()) {
                 sb.append("{}");
