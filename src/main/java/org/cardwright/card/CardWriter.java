@@ -195,7 +195,7 @@ public final class CardWriter {
             }
             Map<String, String> entry = new LinkedHashMap<>();
             entry.put("keyword", dialect.keyword(p));
-            entry.put("value", SpiceNumbers.format(p.toCardValue(parameters.get(p)), significantDigits));
+            entry.put("value", SpiceNumbers.cardValue(p, p.toCardValue(parameters.get(p)), significantDigits));
             lines.add(entry);
         }
         Map<String, Object> model = new LinkedHashMap<>();

@@ -6,6 +6,7 @@ import java.math.RoundingMode;
 import java.util.Locale;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
+import org.cardwright.notation.SpiceSuffix;
 
 /**
  * Writing and reading numbers the way SPICE netlists spell them.
@@ -16,6 +17,12 @@ import java.util.regex.Pattern;
  * <p>Reading follows ngspice 39: suffixes in any letter case ({@code T G MEG K M MIL U N P F}), letters after the
  * suffix ignored ({@code 10pF} is 1e-11, {@code 1F} is 1e-15, {@code 3k3} is 3000), exponent forms, signs.
  * Both directions are independent of the default locale.
+ *
+ * <p>On a card ({@link #cardValue}), a parameter that spans decades (one fitted on a log scale: the currents IS,
+ * ISR, IKF, IKR, IBV, the capacitance CJO, the time TT, the thermal resistance RTH0) is written with a suffix, as
+ * the trade writes it ({@code IS=15.262f}, {@code IKF=46.40908m}); every other parameter (N, NR, RS, EG, XTI, VJ,
+ * M, FC, BV, NBV, TCV, TRS1, TRS2, TLEV, TNOM) is a plain decimal that reads at a glance ({@code EG=0.6903036},
+ * {@code RS=0.8526463}), in exponent form only below 1e-4 or from 1e6 up ({@code TRS2=1.5e-6}).
  */
 public final class SpiceNumbers {
     /** Fewest significant digits {@link #format} accepts. */
@@ -26,9 +33,8 @@ public final class SpiceNumbers {
      */
     public static final int MAX_SIGNIFICANT_DIGITS = 15;
 
-    private static final String[] SUFFIXES = {"f", "p", "n", "u", "m", "", "k", "meg", "g", "t"};
-    private static final int SMALLEST_SUFFIX_EXPONENT = -15;
-    private static final int LARGEST_SUFFIX_EXPONENT = 12;
+    private static final int SMALLEST_SUFFIX_EXPONENT = SpiceSuffix.SMALLEST_POWER;
+    private static final int LARGEST_SUFFIX_EXPONENT = SpiceSuffix.LARGEST_POWER;
 
     /** Mantissa with optional exponent, then an optional tail that starts with a letter. */
     private static final Pattern NUMBER = Pattern.compile(
@@ -70,7 +76,47 @@ public final class SpiceNumbers {
             return exponentForm(rounded, decimalExponent);
         }
         String mantissa = rounded.movePointLeft(engineeringExponent).stripTrailingZeros().toPlainString();
-        return mantissa + SUFFIXES[(engineeringExponent - SMALLEST_SUFFIX_EXPONENT) / 3];
+        return mantissa + SpiceSuffix.ofPower(engineeringExponent).map(SpiceSuffix::text).orElse("");
+    }
+
+    /** Smallest magnitude a plain-decimal card value is written without an exponent. */
+    private static final BigDecimal PLAIN_FROM = new BigDecimal("1e-4");
+    /** Magnitude from which a plain-decimal card value is written with an exponent. */
+    private static final BigDecimal PLAIN_BELOW = new BigDecimal("1e6");
+
+    /**
+     * Writes the value of {@code param} as a card states it: with a SPICE suffix when the parameter spans decades
+     * (fitted on a log scale), else as a plain decimal (exponent form outside [1e-4, 1e6)); see the class comment.
+     *
+     * @param param             the parameter, which decides the form
+     * @param value             a finite number, in the card's units
+     * @param significantDigits as for {@link #format}
+     */
+    public static String cardValue(org.cardwright.model.Param param, double value, int significantDigits) {
+        if (param.fitScale() == org.cardwright.model.Param.Scale.LOG) {
+            return format(value, significantDigits);
+        }
+        return plain(value, significantDigits);
+    }
+
+    /**
+     * Writes {@code value} rounded to {@code significantDigits} significant digits as a plain decimal ({@code
+     * 0.6903036}, {@code -0.00220409}, {@code 1200}), or in exponent form ({@code 1.5e-6}) when its magnitude is
+     * below 1e-4 or from 1e6 up; trailing zeros are removed. Reads back with {@link #parse} to the same text.
+     */
+    public static String plain(double value, int significantDigits) {
+        format(value, significantDigits);  // the same checks of value and digits
+        if (value == 0.0) {
+            return "0";
+        }
+        BigDecimal rounded = BigDecimal.valueOf(value)
+                .round(new MathContext(significantDigits, RoundingMode.HALF_UP))
+                .stripTrailingZeros();
+        BigDecimal magnitude = rounded.abs();
+        if (magnitude.compareTo(PLAIN_FROM) < 0 || magnitude.compareTo(PLAIN_BELOW) >= 0) {
+            return exponentForm(rounded, rounded.precision() - rounded.scale() - 1);
+        }
+        return rounded.toPlainString();
     }
 
     private static String exponentForm(BigDecimal rounded, int decimalExponent) {
@@ -118,23 +164,10 @@ public final class SpiceNumbers {
     }
 
     private static BigDecimal applySuffix(BigDecimal number, String tail) {
-        if (tail.startsWith("MEG")) {
-            return number.scaleByPowerOfTen(6);
-        }
         if (tail.startsWith("MIL")) {
             return number.multiply(MIL);
         }
-        return switch (tail.charAt(0)) {
-            case 'T' -> number.scaleByPowerOfTen(12);
-            case 'G' -> number.scaleByPowerOfTen(9);
-            case 'K' -> number.scaleByPowerOfTen(3);
-            case 'M' -> number.scaleByPowerOfTen(-3);
-            case 'U' -> number.scaleByPowerOfTen(-6);
-            case 'N' -> number.scaleByPowerOfTen(-9);
-            case 'P' -> number.scaleByPowerOfTen(-12);
-            case 'F' -> number.scaleByPowerOfTen(-15);
-            // ngspice 39 ignores letters that are not a scale factor (units such as V, A, ohm)
-            default -> number;
-        };
+        // ngspice 39 ignores letters that are not a scale factor (units such as V, A, ohm)
+        return SpiceSuffix.leading(tail).map(s -> number.scaleByPowerOfTen(s.power())).orElse(number);
     }
 }

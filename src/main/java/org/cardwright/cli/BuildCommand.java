@@ -12,18 +12,20 @@ import picocli.CommandLine.Parameters;
 
 /** {@code cardwright build}: fit every part of a model library whose inputs changed. */
 @Command(name = "build", mixinStandardHelpOptions = true, sortOptions = false,
+        header = "Fits every part of a model library whose inputs have changed.",
         description = {
-            "Walks a folder tree for device files (*.device.yaml), fits each part whose settings, data or",
-            "templates changed since its last build (by SHA-256, not time stamps), and writes its cards and",
-            "build record (MODEL.state). Cards whose text comes out the same are left untouched. A card",
-            "changed by hand is not replaced unless --replace-edited is given. One line per part, in order;",
-            "parts are fitted in parallel (--jobs), and standard error says as each one finishes."},
+            "Walks a folder tree for device files (*.device.yaml), fits each part whose settings, data or "
+                    + "templates changed since its cards were made (by SHA-256, not time stamps), and writes its "
+                    + "cards and its ledger (MODEL.state). Cards whose text comes out the same are left untouched. "
+                    + "A card changed by hand is not replaced unless --replace-edited is given. One line per part, "
+                    + "in order, on standard output; parts are fitted in parallel (--jobs), and standard error says "
+                    + "as each one finishes."},
         footerHeading = "%nExamples%n",
         footer = {
             "  cardwright build fixtures/library",
             "  cardwright build models --replace-edited",
             "",
-            "Device files: docs/device-files.md. Builds and records: docs/library.md."})
+            "Device files: docs/device-files.md. Builds and ledgers: docs/library.md."})
 final class BuildCommand implements Callable<Integer> {
 
     @Parameters(index = "0", paramLabel = "ROOT", description = "The library folder.")
@@ -64,7 +66,7 @@ final class BuildCommand implements Callable<Integer> {
         }
         if (notes) {
             for (PartOutcome p : parts) {
-                p.notes().forEach(n -> out.println("note: " + p.device() + ": " + n));
+                p.notes().forEach(n -> err.println(Terminal.NOTE + p.device() + ": " + n));
             }
         }
         long built = parts.stream().filter(p -> p.status() == PartOutcome.Status.BUILT).count();

@@ -17,13 +17,14 @@ import picocli.CommandLine.Parameters;
 
 /** {@code cardwright check}: does every card of a library still reproduce its data? For CI. */
 @Command(name = "check", mixinStandardHelpOptions = true, sortOptions = false,
+        header = "Re-simulates every card of a library against its part's data.",
         description = {
             "Re-simulates every card of a model library at every measured point of every data kind its part has "
                     + "(forward, breakdown, C-V, recovery, leakage) and judges each kind as verify does. Prints one line "
                     + "per card and a table with a row per card and kind; writes a JUnit XML report on request. A card "
                     + "whose dialect the engine does not read is reported not checkable (neither pass nor failure). "
-                    + "Exits 0 when every card that was run passes, 1 when any card fails, is missing, or is stale "
-                    + "(its device file, data or templates changed since it was built), or when no card could be run."},
+                    + "Exits 0 when every card that was run passes, 1 when any card fails, is missing, or is out of date "
+                    + "(its device file, data or templates changed since it was made), or when no card could be run."},
         footerHeading = "%nExamples%n",
         footer = {
             "  cardwright check fixtures/library",
@@ -54,7 +55,8 @@ final class CheckCommand implements Callable<Integer> {
                     + "(after symbolic links are resolved). Without it such paths are refused; see docs/security.md.")
     boolean allowOutsideRoot;
 
-    @Option(names = "--allow-stale", description = "Let cards built from older inputs pass when they reproduce the data.")
+    @Option(names = {"--allow-outdated", "--allow-stale"},
+            description = "Let outdated cards (made from older inputs) pass when they reproduce the data; --allow-stale is the earlier name.")
     boolean allowStale;
 
     @Option(names = "--jobs", paramLabel = "N",
@@ -78,7 +80,7 @@ final class CheckCommand implements Callable<Integer> {
             // the report may replace an old report, never a file of the library
             LibraryInventory inventory = LibraryInventory.of(root, allowOutsideRoot);
             new OutputPlan().inputs("a file of the library", inventory.inputs())
-                    .inputs("a card or build record of the library", inventory.outputs())
+                    .inputs("a card or state file of the library", inventory.outputs())
                     .output("--junit", junit).check();
         }
         PrintWriter out = spec.commandLine().getOut();

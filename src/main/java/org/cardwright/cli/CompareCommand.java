@@ -19,6 +19,7 @@ import picocli.CommandLine.Parameters;
 
 /** {@code cardwright compare}: two cards side by side, parameters and behaviour. */
 @Command(name = "compare", mixinStandardHelpOptions = true, sortOptions = false,
+        header = "Compares two cards, parameter by parameter and in simulation.",
         description = {
             "Compares two diode cards: the parameters side by side, then both cards simulated by the same engine (the "
                     + "built-in engine uses each card's own simulator's equations): forward voltage at each decade of "
@@ -130,9 +131,8 @@ final class CompareCommand implements Callable<Integer> {
         CompareWorkflow.Outcome o = new CompareWorkflow().run(request, r -> ComparePage.render(r,
                 org.cardwright.report.PageFacts.command("cardwright", spec.commandLine().getParseResult().originalArgs()),
                 hashes));
-        o.cardNotes().forEach(n -> spec.commandLine().getOut().println("note: " + n));
-        spec.commandLine().getOut().print(ComparisonText.render(o.comparison(), o.plan()));
-        spec.commandLine().getOut().flush();
+        o.cardNotes().forEach(n -> Terminal.note(spec, n));
+        Terminal.print(spec, ComparisonText.render(o.comparison(), o.plan()));
         return o.comparison().flaggedCount() == 0 ? ExitCodes.OK : ExitCodes.NOT_REPRODUCED;
     }
 }

@@ -21,22 +21,25 @@ import picocli.CommandLine.Parameters;
 
 /** {@code cardwright fit}: measurements in, model cards out. */
 @Command(name = "fit", mixinStandardHelpOptions = true, sortOptions = false,
+        header = "Fits one diode card to all the data of a part, in every dialect.",
         description = {
-            "Fits one diode card to everything measured on a part, at every temperature at once: forward I-V,",
-            "reverse breakdown, C-V and reverse-recovery records; series-resistor bench logs are corrected for",
-            "the meter's draw. Writes a card per dialect (default: ngspice and spice3) as OUT/NAME.DIALECT.lib.",
-            "Optional terms (recombination ISR/NR, high injection IKF, TRS1, self-heating RTH0) go in only when",
-            "the data call for them; the summary says which and why."},
+            "Fits one diode card to everything measured on a part, at every temperature at once: forward I-V, "
+                    + "reverse leakage and breakdown, C-V and reverse-recovery records; series-resistor bench logs are "
+                    + "corrected for the meter's draw. Writes a card per dialect (default: ngspice and spice3) as "
+                    + "OUT/NAME.DIALECT.lib. Optional terms (recombination ISR/NR, high injection IKF, TRS1, "
+                    + "self-heating RTH0) go in only when the data call for them; the summary says which and why. "
+                    + "The summary goes to standard output, notes about the data to standard error."},
         footerHeading = "%nExamples%n",
         footer = {
             "  cardwright fit fixtures/demo/ks1-forward-*.csv --name KS1 --out models",
             "  cardwright fit sweep.csv --temp 25 --name D7 --set RS=0.5 --set IKF=off --json d7.json",
             "  cardwright fit cold.csv hot.csv --name D9 --set N=1..2 --set TNOM=25 --dialect ngspice",
             "",
-            "Rules for --set: RS=0.5 holds a value; ISR=free forces a term on; IKF=off keeps it out;",
-            "N=1..2 bounds it; IS=1e-12~ gives a start value. Values take SPICE suffixes (2.5n, 10meg).",
+            "Rules for --set: RS=0.5 holds a value; ISR=free forces a term on; IKF=off keeps it out; "
+                    + "N=1..2 bounds it; IS=1e-12~ gives a start value. Values take SPICE suffixes (2.5n, 10meg).",
             "",
-            "Data: CSV with columns V and I (units in brackets: I [mA]), optional T [degC]; see README."})
+            "Data: CSV with columns V and I (units in brackets: I [mA]), optional T [degC]; see README.md and "
+                    + "docs/formats.md."})
 final class FitCommand implements Callable<Integer> {
 
     @Parameters(arity = "1..*", paramLabel = "DATA", description = "Measurement CSV files.")
@@ -49,7 +52,7 @@ final class FitCommand implements Callable<Integer> {
     Path out;
 
     @Option(names = "--dialect", split = ",", paramLabel = "D",
-            description = "Card dialect(s): ngspice, spice3, gnucap (default: ngspice,spice3).")
+            description = "Card dialect(s), comma-separated: ngspice, spice3, gnucap, xyce (default: ngspice,spice3). Every card but the ngspice one is refitted with its own simulator's equations.")
     List<String> dialects;
 
     @Option(names = "--set", paramLabel = "RULE", description = "A parameter rule, e.g. RS=0.5, ISR=free, IKF=off, N=1..2. Repeatable.")
@@ -151,8 +154,7 @@ final class FitCommand implements Callable<Integer> {
         if (html != null) {
             writePage(outcome);
         }
-        spec.commandLine().getOut().print(FitText.render(name, outcome));
-        spec.commandLine().getOut().flush();
+        Terminal.print(spec, FitText.render(name, outcome));
         return ExitCodes.OK;
     }
 

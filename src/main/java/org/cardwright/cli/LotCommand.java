@@ -30,21 +30,23 @@ import picocli.CommandLine.Parameters;
 
 /** {@code cardwright lot}: many parts of one type in, lot statistics and lot cards out. */
 @Command(name = "lot", mixinStandardHelpOptions = true, sortOptions = false,
+        header = "Fits every part of a lot and writes its statistics and cards.",
         description = {
-            "Fits every part of a lot with the same terms, on all cores, and writes the lot's statistics (log10 for",
-            "IS-like parameters, linear for N, RS, ...), its outliers, datasheet min/typ/max, a typical card, corner",
-            "cards and an ngspice Monte Carlo card into OUT: NAME.lot.json, NAME.lot.html, NAME.parts.csv, NAME.statistics.csv,",
-            "NAME.typical.DIALECT.lib, NAME.vf-low/vf-high/pcK-low/pcK-high.DIALECT.lib, NAME.montecarlo.ngspice.lib,",
-            "and each part's own card in NAME.parts/ (lots of at most 1000 parts, or --part-cards on).",
-            "A killed run started again continues where it stopped (state in OUT/NAME.lot-state)."},
+            "Fits every part of a lot with the same terms, on all cores, and writes the lot's statistics (log10 for "
+                    + "IS-like parameters, linear for N, RS, ...), its outliers, datasheet min/typ/max, a typical card, "
+                    + "corner cards and an ngspice Monte Carlo card into OUT: NAME.lot.json, NAME.lot.html, "
+                    + "NAME.parts.csv, NAME.statistics.csv, NAME.typical.DIALECT.lib, "
+                    + "NAME.vf-low/vf-high/pcK-low/pcK-high.DIALECT.lib, NAME.montecarlo.ngspice.lib, "
+                    + "and each part's own card in NAME.parts/ (lots of at most 1000 parts, or --part-cards on). "
+                    + "A killed run started again continues where it stopped (state in OUT/NAME.lot-state)."},
         footerHeading = "%nExamples%n",
         footer = {
             "  cardwright lot parts/ --name LOT7 --out lot7",
             "  cardwright lot lot7-forward.csv --name LOT7 --out lot7 --jobs 2 --at-if 10m",
             "",
-            "INPUT: a folder with one file or one sub-folder per part (the part is named by the file's stem or the",
-            "folder), or a CSV table with a 'part' column (part, V, I, T or part, V, C). Exit 0 when every part was",
-            "fitted, 1 when some were not (listed in 'failed'), other codes as for fit."})
+            "INPUT: a folder with one file or one sub-folder per part (the part is named by the file's stem or the "
+                    + "folder), or a CSV table with a 'part' column (part, V, I, T or part, V, C). Exit 0 when every "
+                    + "part was fitted, 1 when some were not (listed in 'failed'), other codes as for fit."})
 final class LotCommand implements Callable<Integer> {
 
     @Parameters(arity = "1..*", paramLabel = "INPUT", description = "Folders of parts, or tables with a part column.")
@@ -159,8 +161,7 @@ final class LotCommand implements Callable<Integer> {
         Progress progress = new Progress(spec.commandLine().getErr(), !noProgress);
         LotOutcome outcome = new LotJob().run(request, LotJson::write, LotHtml::write, progress);
         progress.end();
-        spec.commandLine().getOut().print(LotText.render(outcome));
-        spec.commandLine().getOut().flush();
+        Terminal.print(spec, LotText.render(outcome));
         return outcome.failed().isEmpty() ? ExitCodes.OK : ExitCodes.NOT_REPRODUCED;
     }
 

@@ -24,8 +24,7 @@ import picocli.CommandLine.Option;
         footerHeading = "%nExit codes%n",
         footer = {
             "  0  done; for verify: the card reproduces the data",
-            "  1  verify, check: a card does not reproduce its data within the limits; compare: beyond the limits;",
-            "     lot: some parts could not be fitted (listed in the JSON's failed)",
+            "  1  verify, check: not reproduced; compare: over a limit; lot: not all fitted",
             "  2  wrong command line",
             "  3  an input file is unreadable or malformed",
             "  4  the data cannot support a fit",
@@ -33,9 +32,9 @@ import picocli.CommandLine.Option;
             "  6  an output file exists (use --force) or cannot be written",
             " 70  internal error (please report it, with --stack-trace)",
             "",
-            "Bench safety: forward sweeps to amperes heat small parts well past touch-safe temperatures, and",
-            "breakdown and surge tests put high voltage on exposed leads. Set current and voltage compliance",
-            "limits before you connect a part, and follow your local codes and licensed practice."})
+            "Bench safety: forward sweeps to amperes heat small parts well past touch-safe temperatures, and "
+                    + "breakdown and surge tests put high voltage on exposed leads. Set current and voltage compliance "
+                    + "limits before you connect a part, and follow your local codes and licensed practice."})
 public final class Main implements Runnable {
 
     @Option(names = "--stack-trace", scope = CommandLine.ScopeType.INHERIT,
@@ -65,6 +64,7 @@ public final class Main implements Runnable {
         cl.setOut(out);
         cl.setErr(err);
         cl.setExecutionExceptionHandler((ex, commandLine, parseResult) -> handle(ex, commandLine));
+        cl.setParameterExceptionHandler(Main::wrongCommandLine);
         try {
             return cl.execute(args);
         } catch (OutOfMemoryError e) {
@@ -137,7 +137,29 @@ public final class Main implements Runnable {
                 cl.addSubcommand(name, command(name));
             }
         }
+        // a command's header is its one-sentence summary in the command list; its own help opens with the usage
+        for (CommandLine sub : cl.getSubcommands().values()) {
+            java.util.List<String> sections = new java.util.ArrayList<>(sub.getHelpSectionKeys());
+            sections.remove(CommandLine.Model.UsageMessageSpec.SECTION_KEY_HEADER_HEADING);
+            sections.remove(CommandLine.Model.UsageMessageSpec.SECTION_KEY_HEADER);
+            sub.setHelpSectionKeys(sections);
+        }
         return cl;
+    }
+
+    /**
+     * A command line picocli could not read (a missing or unknown option, a bad value): one line naming the
+     * problem, picocli's suggestions for a mistyped option when it has any, and where the help is; never the
+     * whole usage text. Exit 2.
+     */
+    static int wrongCommandLine(CommandLine.ParameterException ex, String[] args) {
+        CommandLine commandLine = ex.getCommandLine();
+        PrintWriter err = commandLine.getErr();
+        err.println("cardwright: " + ex.getMessage());
+        CommandLine.UnmatchedArgumentException.printSuggestions(ex, err);
+        err.println("see '" + commandLine.getCommandSpec().qualifiedName() + " --help'");
+        err.flush();
+        return ExitCodes.USAGE;
     }
 
     /**

@@ -22,10 +22,12 @@ import picocli.CommandLine.Parameters;
 
 /** {@code cardwright verify}: does this card reproduce these measurements? */
 @Command(name = "verify", mixinStandardHelpOptions = true, sortOptions = false,
+        header = "Re-simulates a card at every measured point and judges it.",
         description = {
-            "Re-simulates a card at every measured point and compares, per temperature: forward and breakdown",
-            "I-V by terminal voltage at the measured current (mV), C-V by capacitance (%%). Exits 0 when every",
-            "kind at every temperature is within its limits, 1 when not."},
+            "Re-simulates a card at every measured point and compares, per data kind and temperature: forward and "
+                    + "breakdown I-V by terminal voltage at the measured current (mV), C-V by capacitance (%%), "
+                    + "recovery records by time (ns), leakage by current (decades). Exits 0 when every kind at every "
+                    + "temperature is within its limits, 1 when not."},
         footerHeading = "%nExamples%n",
         footer = {
             "  cardwright verify models/KS1.ngspice.lib fixtures/demo/ks1-forward-*.csv",
@@ -187,8 +189,7 @@ final class VerifyCommand implements Callable<Integer> {
         if (html != null) {
             OutputFiles.writeAtomically(html, HtmlReport.render(v, Inputs.displayName(card), pageFacts()));
         }
-        spec.commandLine().getOut().print(VerificationText.render(v));
-        spec.commandLine().getOut().flush();
+        Terminal.print(spec, VerificationText.render(v));
         return v.pass() ? ExitCodes.OK : ExitCodes.NOT_REPRODUCED;
     }
 }

@@ -1,9 +1,9 @@
 package org.cardwright.data;
 
 import java.math.BigDecimal;
-import java.util.Locale;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
+import org.cardwright.notation.SpiceSuffix;
 
 /**
  * Reads one cell or setting value as a number the way instrument exports and SPICE decks write it: a plain
@@ -22,7 +22,7 @@ import java.util.regex.Pattern;
  */
 final class CellNumber {
     private static final Pattern NUMBER_AND_SUFFIX = Pattern.compile(
-            "([+-]?(?:\\d++(?:[.,]\\d*+)?|[.,]\\d++)(?:[eE][+-]?\\d++)?)((?i:meg|[tgkmunpf]))?");
+            "([+-]?(?:\\d++(?:[.,]\\d*+)?|[.,]\\d++)(?:[eE][+-]?\\d++)?)(" + SpiceSuffix.PATTERN + ")?");
     /**
      * Longest number read [characters]: a double needs at most 17 significant digits and a three-digit
      * exponent, so 100 leaves room for any export's padding while keeping the decimal arithmetic cheap.
@@ -88,18 +88,10 @@ final class CellNumber {
 
     /** The power of ten of a SPICE suffix [1]. */
     static int suffixPower(String suffix) {
-        return switch (suffix.toLowerCase(Locale.ROOT)) {
-            case "" -> 0;
-            case "t" -> 12;
-            case "g" -> 9;
-            case "meg" -> 6;
-            case "k" -> 3;
-            case "m" -> -3;
-            case "u" -> -6;
-            case "n" -> -9;
-            case "p" -> -12;
-            case "f" -> -15;
-            default -> throw new IllegalArgumentException("not a SPICE suffix: '" + suffix + "'");
-        };
+        if (suffix.isEmpty()) {
+            return 0;
+        }
+        return SpiceSuffix.of(suffix).orElseThrow(() -> new IllegalArgumentException("not a SPICE suffix: '" + suffix + "'"))
+                .power();
     }
 }

@@ -376,7 +376,8 @@ public final class JunctionExtraction {
         warnings.add(0, String.format(Locale.ROOT,
                 "self-heating: the junction ran %.1f K above the stated temperature at %s A (%s), RTH0 = %s K/W; "
                         + "the ngspice card carries RTH0, which acts only on an instance with a thermal node: D1 anode cathode tj NAME thermal. "
-                        + "To fit without the heated points instead, pass --self-heating exclude",
+                        + "To fit without the heated points instead, pass --self-heating exclude. "
+                        + "Caution: a part that warms itself this much is hot to the touch at those currents; let it cool before handling it",
                 rise, num(hottest.current()), hottest.where(), num(p.get(Param.RTH0))));
     }
 

@@ -64,9 +64,9 @@ public record BuildState(String recipe, Map<String, Set<String>> cards, Map<Stri
     /** The record as text; cards and pending hashes sorted, so the text depends only on the content. */
     public String text(String model) {
         StringBuilder sb = new StringBuilder();
-        sb.append("# cardwright build record of model ").append(model).append(": written by cardwright build; do not edit.\n");
-        sb.append("# It says what made the cards beside it, so that a build can skip what has not changed and notice hand edits.\n");
-        sb.append("recipe ").append(recipe).append('\n');
+        sb.append("# cardwright state file of model ").append(model).append(": written by cardwright build; do not edit.\n");
+        sb.append("# It says what the cards beside it were made from, so that a build can skip what has not changed and notice hand edits.\n");
+        sb.append("inputs ").append(recipe).append('\n');
         for (Map.Entry<String, Set<String>> e : cards.entrySet()) {
             List<String> hashes = new ArrayList<>(e.getValue());
             hashes.sort(null);
@@ -106,23 +106,23 @@ public record BuildState(String recipe, Map<String, Set<String>> cards, Map<Stri
             }
             String[] f = line.split(" ");
             boolean ok = switch (f[0]) {
-                case "recipe" -> f.length == 2 && HEX.matcher(f[1]).matches();
+                case "inputs", "recipe" -> f.length == 2 && HEX.matcher(f[1]).matches();  // "recipe": the earlier word
                 case "card", "pending" -> f.length == 3 && HEX.matcher(f[2]).matches();
                 case "residual" -> f.length == 5;
                 default -> false;
             };
             if (!ok) {
-                throw new IOException(file + ":" + (i + 1) + ": not a line of a cardwright build record: '" + line
-                        + "'; delete the record to rebuild the part from scratch");
+                throw new IOException(file + ":" + (i + 1) + ": not a line of a cardwright state file: '" + line
+                        + "'; delete the state file to rebuild the part from scratch");
             }
             switch (f[0]) {
-                case "recipe" -> recipe = f[1];
+                case "inputs", "recipe" -> recipe = f[1];
                 case "card", "pending" -> cards.computeIfAbsent(f[1], k -> new LinkedHashSet<>()).add(f[2]);
                 default -> residuals.computeIfAbsent(f[1], k -> new ArrayList<>()).add(new Residual(f[2], f[3], f[4]));
             }
         }
         if (recipe == null) {
-            throw new IOException(file + ":0: build record without a recipe line; delete it to rebuild the part from scratch");
+            throw new IOException(file + ":0: state file without an inputs line; delete it to rebuild the part from scratch");
         }
         return Optional.of(new BuildState(recipe, cards, residuals));
     }

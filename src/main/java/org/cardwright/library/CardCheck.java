@@ -32,7 +32,7 @@ public record CardCheck(String device, String model, String card, Status status,
         /** The card does not reproduce its data within the part's tolerances. */
         FAIL,
         /** The card reproduces its data, but the device file, data or templates changed since it was built. */
-        STALE,
+        OUTDATED,
         /** The card does not exist. */
         MISSING,
         /** The device file, the card or the data could not be read, or the simulator failed. */

@@ -15,7 +15,7 @@ import org.cardwright.verify.TemperatureVerdict;
  * {@code testsuite} element with {@code tests}, {@code failures}, {@code errors}, {@code skipped}, {@code time};
  * one {@code testcase} per card with {@code classname}, {@code name}, {@code time}; {@code failure} or
  * {@code error} children with {@code message} and {@code type}). One test case per card: the class name is the
- * device file's path with dots, the name is the card's file name. FAIL, STALE and MISSING are failures; ERROR is
+ * device file's path with dots, the name is the card's file name. FAIL, OUTDATED and MISSING are failures; ERROR is
  * an error; NOT_CHECKABLE (the engine does not speak the card's dialect) is skipped.
  */
 public final class CheckReport {
@@ -58,7 +58,7 @@ public final class CheckReport {
     /** The JUnit XML report; {@code suiteName} names the check, e.g. {@code cardwright check models}. */
     public static String junitXml(String suiteName, List<CardCheck> checks) {
         long failures = checks.stream().filter(c -> c.status() == CardCheck.Status.FAIL
-                || c.status() == CardCheck.Status.STALE || c.status() == CardCheck.Status.MISSING).count();
+                || c.status() == CardCheck.Status.OUTDATED || c.status() == CardCheck.Status.MISSING).count();
         long errors = checks.stream().filter(c -> c.status() == CardCheck.Status.ERROR).count();
         long skipped = checks.stream().filter(CardCheck::notCheckable).count();
         double total = checks.stream().mapToDouble(CardCheck::seconds).sum();

@@ -161,7 +161,7 @@ public final class LibraryBuilder {
                 }
             }
             if (!edited.isEmpty() && !replaceEdited) {
-                String why = state.isEmpty() ? "exists but has no build record (" + LibraryPaths.display(root, part.statePath())
+                String why = state.isEmpty() ? "exists but has no state file (" + LibraryPaths.display(root, part.statePath())
                         + "), so it was not written by cardwright build" : "was changed since cardwright wrote it";
                 return failed(name, part.model(), PartOutcome.Status.REFUSED_EDITED, String.join(", ", edited) + " " + why
                         + "; to keep the change, put it in the device file (e.g. a rule such as RS=0.5) and build again;"

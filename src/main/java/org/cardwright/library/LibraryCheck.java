@@ -28,8 +28,8 @@ import org.cardwright.workflow.VerifyWorkflow;
  * uncertainty ({@link VerdictBasis#NOISE}), except for a part whose device file sets its own limits (has a
  * {@code tolerance} block), which is judged by those fixed limits; {@link #verdict} sets one basis for every
  * part. A card fails when any kind fails. A card whose dialect the engine does not
- * speak ({@link Engines#speaks}) is not run and reported not checkable. A card whose part's recipe no longer matches
- * the build record is reported stale: it was built from other inputs than those in the tree.
+ * speak ({@link Engines#speaks}) is not run and reported not checkable. A card whose part's inputs no longer match
+ * its state file is reported outdated: it was made from other inputs than those in the tree.
  */
 public final class LibraryCheck {
     private final String engine;
@@ -190,13 +190,13 @@ public final class LibraryCheck {
                     v, seconds(t0), Optional.of(all));
         }
         if (stale && !allowStale) {
-            return new CardCheck(name, part.model(), cardName, CardCheck.Status.STALE,
-                    "reproduces its data (" + worst + ") but " + (state.isEmpty() ? "has no build record"
+            return new CardCheck(name, part.model(), cardName, CardCheck.Status.OUTDATED,
+                    "reproduces its data (" + worst + ") but " + (state.isEmpty() ? "has no state file"
                             : "the device file, data or templates changed since it was built") + "; run cardwright build",
                     v, seconds(t0), Optional.of(all));
         }
         return new CardCheck(name, part.model(), cardName, CardCheck.Status.PASS,
-                worst + (edited ? "; edited by hand since it was built" : "") + (stale ? "; stale (allowed)" : ""),
+                worst + (edited ? "; edited by hand since it was built" : "") + (stale ? "; outdated (allowed)" : ""),
                 v, seconds(t0), Optional.of(all));
     }
 

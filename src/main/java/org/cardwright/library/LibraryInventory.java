@@ -122,7 +122,7 @@ public final class LibraryInventory {
         for (Dialect d : part.dialects()) {
             plan.output("the " + d.shortName() + " card", part.cardPath(d));
         }
-        plan.output("the build record", part.statePath());
+        plan.output("the state file", part.statePath());
         return plan;
     }
 

@@ -276,7 +276,7 @@ final class PartFitter {
                     dialect.shortName(), leftOut.stream().map(Param::keyword).collect(Collectors.joining(" ")),
                     leftOutCost));
         }
-        lines.add("recipe sha256 " + recipe.sha256());
+        lines.add("inputs sha256 " + recipe.sha256());
         lines.add("check: cardwright check <library root>");
         return lines;
     }

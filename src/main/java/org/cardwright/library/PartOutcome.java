@@ -37,7 +37,7 @@ public record PartOutcome(String device, String model, Status status, String mes
         BAD_INPUT,
         /** The data cannot support a fit. */
         FIT_FAILED,
-        /** A card or the build record could not be written. */
+        /** A card or the state file could not be written. */
         WRITE_FAILED
     }
 

@@ -135,8 +135,8 @@ public record TweakReport(String model, String tweak, String parameter, String f
             }
         }
         return new TweakReport(part.model(), tweak.text(), tweak.param().keyword(),
-                SpiceNumbers.format(tweak.param().toCardValue(r.fittedValue()), 7),
-                SpiceNumbers.format(tweak.param().toCardValue(r.newValue()), 7), costs, r.notes(), written);
+                SpiceNumbers.cardValue(tweak.param(), tweak.param().toCardValue(r.fittedValue()), 7),
+                SpiceNumbers.cardValue(tweak.param(), tweak.param().toCardValue(r.newValue()), 7), costs, r.notes(), written);
     }
 
     /** The report as terminal text. */

@@ -140,7 +140,7 @@ final class Tweaker {
     }
 
     private static String card(Tweak t, double si) {
-        return SpiceNumbers.format(t.param().toCardValue(si), 7);
+        return SpiceNumbers.cardValue(t.param(), t.param().toCardValue(si), 7);
     }
 
     /** Every data kind of the part, read as the fit reads it. */

@@ -226,7 +226,7 @@ public final class LotCards {
                 sb.append("+ ").append(p.name()).append("={")
                         .append(p.fitScale() == Param.Scale.LOG ? "exp(2.302585092994046*" + v + ")" : v).append("}\n");
             } else if (typ.isGiven(p)) {
-                sb.append("+ ").append(p.name()).append('=').append(SpiceNumbers.format(p.toCardValue(typ.get(p)), digits)).append('\n');
+                sb.append("+ ").append(p.name()).append('=').append(SpiceNumbers.cardValue(p, p.toCardValue(typ.get(p)), digits)).append('\n');
             }
         }
         sb.append("+ )\n");

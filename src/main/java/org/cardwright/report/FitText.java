@@ -29,8 +29,12 @@ public final class FitText {
                 Units.engineering(sh.resistance(), "ohm"),
                 Double.isFinite(sh.standardError()) ? String.format(Locale.ROOT, " +/- %.3g %%", 100 * sh.standardError() / sh.resistance()) : "")));
         sb.append("\nOptional terms\n");
+        int termWidth = 28;
         for (TermDecision d : r.terms()) {
-            sb.append(String.format(Locale.ROOT, "  %-28s %-4s %s%n", d.params().isEmpty() ? d.term() : d.term() + " (" + keywords(d) + ")",
+            termWidth = Math.max(termWidth, termLabel(d).length());
+        }
+        for (TermDecision d : r.terms()) {
+            sb.append(String.format(Locale.ROOT, "  %-" + termWidth + "s %-4s %s%n", termLabel(d),
                     d.included() ? "yes" : "no", d.reason()));
         }
         sb.append("\nResiduals, model minus measured terminal voltage\n");
@@ -71,6 +75,12 @@ public final class FitText {
             sb.append(")\n");
         }
         return sb.toString();
+    }
+
+    /** The term's name, with its keywords in brackets. */
+    private static String termLabel(TermDecision d) {
+        String brackets = " (" + keywords(d) + ")";
+        return d.params().isEmpty() || d.term().endsWith(brackets) ? d.term() : d.term() + brackets;
     }
 
     private static String keywords(TermDecision d) {

@@ -42,6 +42,19 @@ public final class VerificationJson {
             Map<String, Object> rec = Json.object();
             rec.put("pass", v.pass());
             rec.put("temperatures", temps);
+            List<Object> pts = Json.array();
+            for (RecoveryVerification.Modelled m : v.records()) {
+                Map<String, Object> o = Json.object();
+                o.put("source", m.record().where());
+                o.put("temperature", m.record().temperature());
+                o.put("forward_current", m.record().forwardCurrent());
+                o.put("reverse_current", m.record().reverseCurrent());
+                o.put("measured_time", m.record().recoveryTime());
+                o.put("modelled_time", m.modelled());
+                o.put("residual_ns", (m.modelled() - m.record().recoveryTime()) * 1e9);
+                pts.add(o);
+            }
+            rec.put("points", pts);
             root.put("recovery", rec);
         });
         all.leakage().ifPresent(v -> {
@@ -60,6 +73,18 @@ public final class VerificationJson {
             lk.put("pass", v.pass());
             lk.put("temperatures", temps);
             lk.put("notes", List.copyOf(v.notes()));
+            List<Object> pts = Json.array();
+            for (LeakageVerification.Simulated s : v.points()) {
+                Map<String, Object> o = Json.object();
+                o.put("source", s.point().source() + ":" + s.point().line());
+                o.put("temperature", s.point().temperature());
+                o.put("voltage", s.point().voltage());
+                o.put("measured_current", s.point().current());
+                o.put("simulated_current", s.simulated());
+                o.put("residual_decades", Math.log10(s.simulated() / s.point().current()));
+                pts.add(o);
+            }
+            lk.put("points", pts);
             root.put("leakage", lk);
         });
         root.put("notes", List.copyOf(all.notes()));

@@ -35,10 +35,11 @@ public final class VerificationText {
         sb.append(String.format(Locale.ROOT, "Limits per temperature: RMS %.2f %%, any point %.2f %%; stray %s subtracted, test frequency %s%n",
                 v.tolerance().rmsPercent(), v.tolerance().maxPercent(), Units.engineering(v.strayCapacitance(), "F"),
                 Units.engineering(v.frequency(), "Hz")));
-        sb.append(String.format(Locale.ROOT, "  %8s %6s %9s %9s  %-10s %-28s %-6s %s%n", "T [degC]", "points", "RMS [%]",
+        String where = where(v.perTemperature().stream().map(CapacitanceVerdict::worstSource));
+        sb.append(String.format(Locale.ROOT, "  %8s %6s %9s %9s  %-10s " + where + " %-6s %s%n", "T [degC]", "points", "RMS [%]",
                 "max [%]", "largest at", "where", "result", "against the data's uncertainty; fixed limits"));
         for (CapacitanceVerdict t : v.perTemperature()) {
-            sb.append(String.format(Locale.ROOT, "  %8s %6d %9.3f %9.3f  %-10s %-28s %-6s %s; limits %s%n", Units.celsius(t.temperature()),
+            sb.append(String.format(Locale.ROOT, "  %8s %6d %9.3f %9.3f  %-10s " + where + " %-6s %s; limits %s%n", Units.celsius(t.temperature()),
                     t.points(), t.rmsPercent(), t.maxPercent(), Units.engineering(t.worstVoltage(), "V"), t.worstSource(),
                     t.pass() ? "pass" : "FAIL", t.noise().describe(1, "%"), t.fixedPass() ? "within" : "exceeded"));
         }
@@ -49,10 +50,11 @@ public final class VerificationText {
         StringBuilder sb = new StringBuilder("Reverse recovery: trr = TT ln(1 + IF/|IR|) against the records\n");
         sb.append(String.format(Locale.ROOT, "Limits per temperature: RMS %.0f %%, any record %.0f %% of the measured time%n",
                 100 * RecoveryVerification.RMS_FRACTION, 100 * RecoveryVerification.MAX_FRACTION));
-        sb.append(String.format(Locale.ROOT, "  %8s %6s %9s %9s  %-28s %s%n", "T [degC]", "records", "RMS [ns]", "max [ns]",
+        String where = where(v.perTemperature().stream().map(RecoveryVerification.Verdict::worst));
+        sb.append(String.format(Locale.ROOT, "  %8s %7s %9s %9s  " + where + " %s%n", "T [degC]", "records", "RMS [ns]", "max [ns]",
                 "where", "result"));
         for (RecoveryVerification.Verdict t : v.perTemperature()) {
-            sb.append(String.format(Locale.ROOT, "  %8s %6d %9.3f %9.3f  %-28s %s%n", Units.celsius(t.temperature()),
+            sb.append(String.format(Locale.ROOT, "  %8s %7d %9.3f %9.3f  " + where + " %s%n", Units.celsius(t.temperature()),
                     t.points(), t.rmsNs(), t.maxNs(), t.worst(), t.pass() ? "pass" : "FAIL"));
         }
         return sb.append('\n').toString();
@@ -66,10 +68,11 @@ public final class VerificationText {
         sb.append("Reverse leakage below breakdown: current at the measured voltage, log10(simulated/measured)\n");
         sb.append(String.format(Locale.ROOT, "Limits per temperature: RMS %.1f decade, any point %.1f decade%n",
                 LeakageVerification.RMS_DECADES, LeakageVerification.MAX_DECADES));
-        sb.append(String.format(Locale.ROOT, "  %8s %6s %10s %10s  %-28s %s%n", "T [degC]", "points", "RMS [dec]", "max [dec]",
+        String where = where(v.perTemperature().stream().map(LeakageVerification.Verdict::worst));
+        sb.append(String.format(Locale.ROOT, "  %8s %6s %10s %10s  " + where + " %s%n", "T [degC]", "points", "RMS [dec]", "max [dec]",
                 "where", "result"));
         for (LeakageVerification.Verdict t : v.perTemperature()) {
-            sb.append(String.format(Locale.ROOT, "  %8s %6d %10.3f %10.3f  %-28s %s%n", Units.celsius(t.temperature()),
+            sb.append(String.format(Locale.ROOT, "  %8s %6d %10.3f %10.3f  " + where + " %s%n", Units.celsius(t.temperature()),
                     t.points(), t.rmsDecades(), t.maxDecades(), t.worst(), t.pass() ? "pass" : "FAIL"));
         }
         return sb.append('\n').toString();
@@ -84,10 +87,11 @@ public final class VerificationText {
         sb.append(title).append(": card ").append(v.cardName()).append(" re-simulated with ").append(v.engine()).append('\n');
         sb.append(String.format(Locale.ROOT, "Limits per temperature: RMS %s mV, any point %s mV%n",
                 Units.millivolts(v.tolerance().rms(), 2), Units.millivolts(v.tolerance().max(), 2)));
-        sb.append(String.format(Locale.ROOT, "  %8s %6s %9s %9s  %-10s %-28s %-6s %s%n", "T [degC]", "points", "RMS [mV]",
+        String where = where(v.perTemperature().stream().map(TemperatureVerdict::worstSource));
+        sb.append(String.format(Locale.ROOT, "  %8s %6s %9s %9s  %-10s " + where + " %-6s %s%n", "T [degC]", "points", "RMS [mV]",
                 "max [mV]", "largest at", "where", "result", "against the data's uncertainty; fixed limits"));
         for (TemperatureVerdict t : v.perTemperature()) {
-            sb.append(String.format(Locale.ROOT, "  %8s %6d %9s %9s  %-10s %-28s %-6s %s; limits %s%n", Units.celsius(t.temperature()),
+            sb.append(String.format(Locale.ROOT, "  %8s %6d %9s %9s  %-10s " + where + " %-6s %s; limits %s%n", Units.celsius(t.temperature()),
                     t.points(), Units.millivolts(t.rms(), 3), Units.millivolts(t.max(), 3),
                     Units.engineering(t.worstCurrent(), "A"), t.worstSource(), t.pass() ? "pass" : "FAIL",
                     t.noise().describe(1e3, "mV"), t.fixedPass() ? "within" : "exceeded"));
@@ -99,5 +103,17 @@ public final class VerificationText {
             }
         }
         return sb.append('\n').toString();
+    }
+
+    /** Narrowest "where" column. */
+    private static final int WHERE_WIDTH = 28;
+
+    /**
+     * The format of a table's "where" column (file:line of the worst point): as wide as its longest entry, at
+     * least {@value #WHERE_WIDTH}, so that the columns after it stay aligned however long the paths are.
+     */
+    private static String where(java.util.stream.Stream<String> entries) {
+        int width = Math.max(WHERE_WIDTH, entries.mapToInt(String::length).max().orElse(0));
+        return "%-" + width + "s";
     }
 }

@@ -200,20 +200,15 @@ public final class GnucapEngine implements SimulationEngine {
     }
 
     private static double scale(String suffix, String text) {
-        switch (suffix.toLowerCase(Locale.ROOT)) {
-            case "": return 1;
-            case "a": return 1e-18;
-            case "f": return 1e-15;
-            case "p": return 1e-12;
-            case "n": return 1e-9;
-            case "u": return 1e-6;
-            case "m": return 1e-3;
-            case "k": return 1e3;
-            case "meg": return 1e6;
-            case "g": return 1e9;
-            case "t": return 1e12;
-            default: throw new NumberFormatException("unknown scale letter in gnucap number '" + text + "'");
+        if (suffix.isEmpty()) {
+            return 1;
         }
+        if (suffix.equalsIgnoreCase("a")) {
+            return 1e-18;  // gnucap prints atto, which SPICE decks do not use
+        }
+        org.cardwright.notation.SpiceSuffix s = org.cardwright.notation.SpiceSuffix.of(suffix).orElseThrow(
+                () -> new NumberFormatException("unknown scale letter in gnucap number '" + text + "'"));
+        return Double.parseDouble("1e" + s.power());
     }
 
     private static String lastLine(List<String> lines) {

@@ -351,11 +351,18 @@ public final class FitWorkflow {
         return Optional.empty();
     }
 
-    /** The options a verify of this card needs to read the data as the fit did. */
+    /**
+     * The options a verify of this card needs to read the card and the data as the fit did: the dialect, stated
+     * even where the file name would give it (a renamed card still reads right), and the reading conditions. Every
+     * value in a form the option takes ({@code --temp} is a plain number).
+     */
     private static String verifyOptions(FitRequest request, Dialect d) {
         StringBuilder sb = new StringBuilder();
+        if (d != Dialect.NGSPICE) {
+            sb.append(" --dialect ").append(d.shortName());
+        }
         request.temperature().ifPresent(t -> sb.append(" --temp ").append(
-                org.cardwright.card.SpiceNumbers.format(t - org.cardwright.model.Ngspice39.CELSIUS_TO_KELVIN, 6)));
+                org.cardwright.card.SpiceNumbers.plain(t - org.cardwright.model.Ngspice39.CELSIUS_TO_KELVIN, 6)));
         if (request.capacitance().strayCapacitance() != 0) {
             sb.append(" --stray-capacitance ").append(org.cardwright.card.SpiceNumbers.format(request.capacitance().strayCapacitance(), 6));
         }

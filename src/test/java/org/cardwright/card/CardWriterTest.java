@@ -54,12 +54,12 @@ class CardWriterTest {
                 .model dsw1 D(
                 + IS=2.5n
                 + N=1.8
-                + RS=50m
+                + RS=0.05
                 + ISR=1p
                 + IKF=10m
                 + CJO=200p
-                + VJ=600m
-                + M=450m
+                + VJ=0.6
+                + M=0.45
                 + TT=5u
                 + BV=100
                 + IBV=5u

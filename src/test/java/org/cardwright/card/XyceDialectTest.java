@@ -23,7 +23,7 @@ class XyceDialectTest {
     void breakdownTempcoIsWrittenAsTbv1RelativeToBvAndReadBack() {
         CardWriter.Rendered r = new CardWriter(Optional.empty()).render(new ModelCard("Z1", ZENER, List.of("test")),
                 Dialect.XYCE, 7);
-        assertTrue(r.text().contains("+ TBV1=354.8387u"), r.text()); // 2.2e-3 / 6.2 = 3.548387e-4 per K
+        assertTrue(r.text().contains("+ TBV1=0.0003548387"), r.text()); // 2.2e-3 / 6.2 = 3.548387e-4 per K
         assertFalse(r.text().contains("TCV"), "Xyce does not know TCV");
         assertTrue(r.text().contains("+ NR=1"), "NR stated, as Xyce's own default is 2");
         ParsedCard back = new CardReader().parse(r.text(), "z1.xyce.lib", Dialect.XYCE);

@@ -49,7 +49,7 @@ class HandEditTest {
         Files.delete(root.resolve("group1/TP03.state"));
         PartOutcome o = new LibraryBuilder(false).build(root, line -> { }).get(0);
         assertEquals(PartOutcome.Status.REFUSED_EDITED, o.status());
-        assertTrue(o.message().contains("no build record"), o.message());
+        assertTrue(o.message().contains("no state file"), o.message());
     }
 
     @Test
@@ -71,6 +71,6 @@ class HandEditTest {
         PartOutcome o = new LibraryBuilder(false).build(root, line -> { }).get(0);
         assertEquals(PartOutcome.Status.BUILT, o.status(), o.message());
         assertTrue(o.message().matches(".*worst RMS \\d+\\.\\d{3} -> \\d+\\.\\d{3} mV.*"), o.message());
-        assertTrue(Files.readString(root.resolve("group1/TP03.ngspice.lib")).contains("+ RS=900m\n"));
+        assertTrue(Files.readString(root.resolve("group1/TP03.ngspice.lib")).contains("+ RS=0.9\n"));
     }
 }

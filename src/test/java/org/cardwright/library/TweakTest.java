@@ -57,7 +57,7 @@ class TweakTest {
         Path out = device.getParent().resolve("try");
         TweakReport r = TweakReport.run(device, Tweak.parse("RS=0.5", true), Optional.of(out), false);
         assertEquals(1, r.written().size());
-        assertTrue(Files.readString(out.resolve("TP05.ngspice.lib")).contains("+ RS=500m\n"));
+        assertTrue(Files.readString(out.resolve("TP05.ngspice.lib")).contains("+ RS=0.5\n"));
         Exception e = assertThrows(org.cardwright.workflow.OutputException.class,
                 () -> TweakReport.run(device, Tweak.parse("RS=0.5", true), Optional.of(device.getParent()), false));
         assertTrue(e.getMessage().contains("run cardwright build"), e.getMessage());
