@@ -41,11 +41,11 @@ final class CheckCommand implements Callable<Integer> {
             description = "Who simulates: " + Engines.NAMES + " (default: ${DEFAULT-VALUE}).")
     String engine;
 
-    @Option(names = "--verdict", paramLabel = "BASIS",
+    @Option(names = "--verdict", paramLabel = "BASIS", converter = OptionConverters.Verdict.class,
             description = "What decides pass or fail for each data kind, as in verify: noise (the residual RMS against the "
                     + "data's own uncertainty) or fixed (the engineering limits). Default: noise, except for a part whose "
                     + "device file sets its own tolerance limits, which is judged by them.")
-    String verdict;
+    org.cardwright.verify.VerdictBasis verdict;
 
     @Option(names = "--junit", paramLabel = "FILE", description = "Also write a JUnit XML report (replaced if it exists).")
     Path junit;
@@ -70,12 +70,7 @@ final class CheckCommand implements Callable<Integer> {
     public Integer call() throws Exception {
         simulatorTimeLimit.apply();
         Engines.byName(engine);
-        java.util.Optional<org.cardwright.verify.VerdictBasis> basis = verdict == null ? java.util.Optional.empty()
-                : java.util.Optional.of(Main.option(() -> switch (verdict.trim().toLowerCase(java.util.Locale.ROOT)) {
-                    case "noise" -> org.cardwright.verify.VerdictBasis.NOISE;
-                    case "fixed" -> org.cardwright.verify.VerdictBasis.FIXED;
-                    default -> throw new IllegalArgumentException("--verdict takes noise or fixed, not '" + verdict + "'");
-                }));
+        java.util.Optional<org.cardwright.verify.VerdictBasis> basis = java.util.Optional.ofNullable(verdict);
         if (junit != null) {
             // the report may replace an old report, never a file of the library
             LibraryInventory inventory = LibraryInventory.of(root, allowOutsideRoot);

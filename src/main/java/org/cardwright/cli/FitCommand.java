@@ -79,10 +79,10 @@ final class FitCommand implements Callable<Integer> {
             description = "Take bench-log currents as (Vsupply - Vmeter)/Rseries, without removing the meter's draw (for comparison only).")
     boolean noMeterCorrection;
 
-    @Option(names = "--self-heating", paramLabel = "HOW", defaultValue = "fit",
+    @Option(names = "--self-heating", paramLabel = "HOW", defaultValue = "fit", converter = OptionConverters.SelfHeating.class,
             description = "When the junction warms itself at high current: fit (carry RTH0 on the card) or exclude "
                     + "(leave out the points whose voltage the warming moves by more than 0.1 mV, fit without RTH0). Default: ${DEFAULT-VALUE}.")
-    String selfHeating;
+    FitSettings.SelfHeatingRemedy selfHeating;
 
     @Option(names = "--sweep-gap", paramLabel = "KELVIN", defaultValue = "1",
             description = "Logged temperatures further apart than this start a new sweep; closer ones (a chamber logger's wander) "
@@ -101,14 +101,6 @@ final class FitCommand implements Callable<Integer> {
 
     @picocli.CommandLine.Spec
     picocli.CommandLine.Model.CommandSpec spec;
-
-    private static FitSettings.SelfHeatingRemedy selfHeatingRemedy(String text) {
-        return switch (text.trim().toLowerCase(java.util.Locale.ROOT)) {
-            case "fit" -> FitSettings.SelfHeatingRemedy.FIT;
-            case "exclude" -> FitSettings.SelfHeatingRemedy.EXCLUDE;
-            default -> throw new IllegalArgumentException("--self-heating takes fit or exclude, not '" + text + "'");
-        };
-    }
 
     /**
      * The evidence page of the first card written: verified against the same data by the built-in engine with the
@@ -176,6 +168,6 @@ final class FitCommand implements Callable<Integer> {
                 DeviceKind.byOptionName(kind), parsed, digits, force, Optional.ofNullable(templates),
                 reading.capacitance(),
                 reading.bench(!noMeterCorrection),
-                selfHeatingRemedy(selfHeating), robust, sweepGap).withConditions(reading.perFile(data));
+                selfHeating, robust, sweepGap).withConditions(reading.perFile(data));
     }
 }

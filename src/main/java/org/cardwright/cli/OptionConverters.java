@@ -13,11 +13,20 @@ final class OptionConverters {
     private OptionConverters() {
     }
 
+    /** The enum's own message as picocli's whole message ("unknown ... 'x'; valid names: ..."), no class names. */
+    private static <T> T named(java.util.function.Supplier<T> lookup) {
+        try {
+            return lookup.get();
+        } catch (IllegalArgumentException e) {
+            throw new picocli.CommandLine.TypeConversionException(e.getMessage());
+        }
+    }
+
     /** A {@link Dialect} by its short name: ngspice, spice3, gnucap, xyce. */
     static final class DialectName implements ITypeConverter<Dialect> {
         @Override
         public Dialect convert(String value) {
-            return Dialect.byName(value);
+            return named(() -> Dialect.byName(value));
         }
     }
 
@@ -36,7 +45,23 @@ final class OptionConverters {
     static final class Engine implements ITypeConverter<EngineChoice> {
         @Override
         public EngineChoice convert(String value) {
-            return EngineChoice.byName(value);
+            return named(() -> EngineChoice.byName(value));
+        }
+    }
+
+    /** A {@link org.cardwright.verify.VerdictBasis} by name: noise, fixed. */
+    static final class Verdict implements ITypeConverter<org.cardwright.verify.VerdictBasis> {
+        @Override
+        public org.cardwright.verify.VerdictBasis convert(String value) {
+            return named(() -> org.cardwright.verify.VerdictBasis.byName(value));
+        }
+    }
+
+    /** A {@link org.cardwright.fit.FitSettings.SelfHeatingRemedy} by name: fit, exclude. */
+    static final class SelfHeating implements ITypeConverter<org.cardwright.fit.FitSettings.SelfHeatingRemedy> {
+        @Override
+        public org.cardwright.fit.FitSettings.SelfHeatingRemedy convert(String value) {
+            return named(() -> org.cardwright.fit.FitSettings.SelfHeatingRemedy.byName(value));
         }
     }
 }

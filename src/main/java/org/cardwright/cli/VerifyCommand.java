@@ -71,10 +71,10 @@ final class VerifyCommand implements Callable<Integer> {
             description = "Largest residual at any point, in mV (default: ${DEFAULT-VALUE}).")
     double limitMax;
 
-    @Option(names = "--verdict", paramLabel = "BASIS", defaultValue = "noise",
+    @Option(names = "--verdict", paramLabel = "BASIS", defaultValue = "noise", converter = OptionConverters.Verdict.class,
             description = "What decides pass or fail: noise (the residual RMS against the data's own uncertainty, stated or "
                     + "estimated from the residuals' point-to-point scatter) or fixed (the engineering limits). Both figures are printed. Default: ${DEFAULT-VALUE}.")
-    String verdict;
+    org.cardwright.verify.VerdictBasis verdict;
 
     @Option(names = "--json", paramLabel = "FILE", description = "Also write the result, point by point, as JSON.")
     Path json;
@@ -104,14 +104,6 @@ final class VerifyCommand implements Callable<Integer> {
             }
         }
         return Dialect.NGSPICE;
-    }
-
-    private static org.cardwright.verify.VerdictBasis verdictBasis(String text) {
-        return switch (text.trim().toLowerCase(java.util.Locale.ROOT)) {
-            case "noise" -> org.cardwright.verify.VerdictBasis.NOISE;
-            case "fixed" -> org.cardwright.verify.VerdictBasis.FIXED;
-            default -> throw new IllegalArgumentException("--verdict takes noise or fixed, not '" + text + "'");
-        };
     }
 
     /** The command as given, the data files' hashes and the card's parameters, for the evidence page. */
@@ -184,7 +176,7 @@ final class VerifyCommand implements Callable<Integer> {
                 reading.temperatureKelvin(),
                 new Tolerance(limitRms * 1e-3, limitMax * 1e-3), Optional.ofNullable(json), force,
                 reading.capacitance(),
-                reading.bench(true), verdictBasis(verdict)).withConditions(merged(fromDevice, reading.perFile(data))));
+                reading.bench(true), verdict).withConditions(merged(fromDevice, reading.perFile(data))));
         JunctionVerification v = new VerifyWorkflow().runAll(request, r -> VerificationJson.write(r, Inputs.displayName(card)));
         if (html != null) {
             OutputFiles.writeAtomically(html, HtmlReport.render(v, Inputs.displayName(card), pageFacts()));

@@ -62,6 +62,17 @@ public record FitSettings(Map<Param, ParameterRule> rules, DeviceKind kind, doub
          */
         EXCLUDE;
 
+        /** The remedy a user names, in any case: fit or exclude. */
+        public static SelfHeatingRemedy byName(String name) {
+            String n = name == null ? "" : name.trim();
+            for (SelfHeatingRemedy r : values()) {
+                if (r.name().equalsIgnoreCase(n)) {
+                    return r;
+                }
+            }
+            throw new IllegalArgumentException("unknown self-heating remedy '" + name + "'; valid names: fit, exclude");
+        }
+
         /**
          * Points whose voltage self-heating moves by more than this are left out by {@link #EXCLUDE}: well under
          * a bench meter's noise, so what stays fits as if isothermal [V].

@@ -5,5 +5,16 @@ public enum VerdictBasis {
     /** The residual RMS against the data's own uncertainty ({@link DataUncertainty}). */
     NOISE,
     /** The fixed engineering limits ({@link Tolerance}, {@link CapacitanceTolerance}). */
-    FIXED
+    FIXED;
+
+    /** The basis a user names, in any case: noise or fixed. */
+    public static VerdictBasis byName(String name) {
+        String n = name == null ? "" : name.trim();
+        for (VerdictBasis b : values()) {
+            if (b.name().equalsIgnoreCase(n)) {
+                return b;
+            }
+        }
+        throw new IllegalArgumentException("unknown verdict basis '" + name + "'; valid names: noise, fixed");
+    }
 }

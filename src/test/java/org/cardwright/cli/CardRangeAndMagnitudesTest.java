@@ -64,6 +64,12 @@ class CardRangeAndMagnitudesTest {
             Files.copy(src, part.resolve(src.getFileName()));
             yaml.append("  - file: ").append(src.getFileName()).append('\n');
         }
+        // C-V data, so that VJ is on the card (a tweak changes a stated value; it adds no term)
+        for (String t : List.of("25", "85")) {
+            Path src = DEMO.resolve("ksz6-cv-" + t + "C.csv");
+            Files.copy(src, part.resolve(src.getFileName()));
+            yaml.append("  - file: ").append(src.getFileName()).append("\n    kind: cv\n");
+        }
         yaml.append("dialects: [ngspice]\n");
         Files.writeString(part.resolve("Z1.device.yaml"), yaml, StandardCharsets.UTF_8);
         CliRun r = CliRun.of("tweak", part.resolve("Z1.device.yaml").toString(), "--set", "VJ=0.15", "--render-only");

@@ -239,6 +239,32 @@ class DemoFixturesTest {
         assertRelative(ZENER_TT, fitted.get(Param.TT), TT_TOLERANCE, "TT");
     }
 
+    /**
+     * The self-heating demo (README, "--self-heating"): ngspice 39 with a thermal node made hx-forward.csv from
+     * RTH0 = 150 K/W, RS = 0.3 ohm (hx-generating-netlist.cir); the fit must give RTH0 and RS back. RS and RTH0
+     * trade along the top decade (r about 0.998), so the tolerance is wider than the standard errors alone.
+     */
+    @Test
+    void fitOfTheHeatingFileGivesBackRth0() throws Exception {
+        Path file = Simulators.projectDir().resolve("fixtures/demo/hx-forward.csv");
+        Path out = Simulators.tempDir("demo-fit-hx");
+        FitRequest request = new FitRequest(List.of(file), "HX", List.of(Dialect.NGSPICE), out, Optional.empty(),
+                OptionalDouble.empty(), DeviceKind.SILICON_PN, List.of(), 7, true, Optional.empty());
+        DiodeParameters fitted = new FitWorkflow().prepare(request).fit().parameters();
+        assertRelative(HX_RTH0, fitted.get(Param.RTH0), HX_THERMAL_TOLERANCE, "RTH0");
+        assertRelative(HX_RS, fitted.get(Param.RS), HX_THERMAL_TOLERANCE, "RS");
+        assertRelative(HX_N, fitted.get(Param.N), HX_N_TOLERANCE, "N");
+    }
+
+    /** The HX generating card (fixtures/demo/hx-generating-netlist.cir). */
+    private static final double HX_RTH0 = 150;
+    private static final double HX_RS = 0.3;
+    private static final double HX_N = 1.02;
+    /** RTH0 and RS within 5 %: measured 2.6 % and 1.4 % off, about 1.3 of their standard errors (2.0 %, 1.1 %). */
+    private static final double HX_THERMAL_TOLERANCE = 0.05;
+    /** N within 0.1 %: its standard error is 0.016 %. */
+    private static final double HX_N_TOLERANCE = 0.001;
+
     @Test
     void everyDemoFileSaysItIsInvented() throws IOException {
         Path demo = Simulators.projectDir().resolve("fixtures/demo");
@@ -248,7 +274,9 @@ class DemoFixturesTest {
                     "KS-1: four forward files and one reverse file: " + csvs);
             assertEquals(9, csvs.stream().filter(p -> p.getFileName().toString().startsWith("ksz6-")).count(),
                     "KS-Z6: three forward, three reverse, two C-V and one recovery file: " + csvs);
-            assertEquals(14, csvs.size(), "no other CSV files: " + csvs);
+            assertEquals(1, csvs.stream().filter(p -> p.getFileName().toString().startsWith("hx-")).count(),
+                    "HX: one forward file with self-heating: " + csvs);
+            assertEquals(15, csvs.size(), "no other CSV files: " + csvs);
             for (Path csv : csvs) {
                 String first = Files.readAllLines(csv, StandardCharsets.UTF_8).get(0);
                 assertEquals("# Invented demo data, not a measurement.", first, csv.toString());
