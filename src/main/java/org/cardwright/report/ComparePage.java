@@ -506,10 +506,7 @@ public final class ComparePage {
     }
 
     private String temperatureCell(double kelvin) {
-        return "<td class=\"text temp\">" + colours.plottedColour(kelvin)
-                .map(c -> "<svg class=\"swatch\" viewBox=\"0 0 12 12\" aria-hidden=\"true\"><path stroke=\"" + c + "\" d=\""
-                        + colours.plottedShape(kelvin).orElseThrow().path(6, 6, 4) + "\"/></svg>").orElse("")
-                + Units.celsius(kelvin) + "</td>";
+        return HtmlReport.temperatureCell(colours, kelvin);
     }
 
     /** The comparison the terminal prints, as tables: the cards at the plan's conditions, flagged rows marked. */

@@ -340,6 +340,11 @@ public final class HtmlReport {
 
     /** The temperature, with its plot colour and marker shape when the page plots it. */
     private String temperatureCell(double kelvin) {
+        return temperatureCell(plots, kelvin);
+    }
+
+    /** The temperature, with the colour and marker shape {@code plots} gave it when they plot it (also the compare page). */
+    static String temperatureCell(EvidencePlots plots, double kelvin) {
         return "<td class=\"text temp\">" + plots.plottedColour(kelvin)
                 .map(c -> "<svg class=\"swatch\" viewBox=\"0 0 12 12\" aria-hidden=\"true\"><path stroke=\"" + c + "\" d=\""
                         + plots.plottedShape(kelvin).orElseThrow().path(6, 6, 4) + "\"/></svg>").orElse("")

@@ -228,12 +228,17 @@ class LotAcceptanceTest {
     }
 
     private static List<String> run(Path ngspice, Path deck) throws Exception {
-        Process p = new ProcessBuilder(ngspice.toString(), "-b", deck.toString()).redirectErrorStream(true).start();
+        // stderr to its own file: ngspice's progress lines ("Reference value : ...") on stderr must not interleave
+        // with the values echoed on stdout
+        Path err = Files.createTempFile(deck.getParent(), "ngspice-", ".err");
+        Process p = new ProcessBuilder(ngspice.toString(), "-b", deck.toString())
+                .redirectError(ProcessBuilder.Redirect.to(err.toFile())).start();
         byte[] out = p.getInputStream().readAllBytes();
         assertTrue(p.waitFor(120, TimeUnit.SECONDS));
         String text = new String(out, StandardCharsets.UTF_8);
-        assertEquals(0, p.exitValue(), text);
-        assertTrue(!text.toLowerCase(Locale.ROOT).contains("error"), text);
+        String all = text + Files.readString(err, StandardCharsets.UTF_8);
+        assertEquals(0, p.exitValue(), all);
+        assertTrue(!all.toLowerCase(Locale.ROOT).contains("error"), all);
         return List.of(text.split("\n"));
     }
 

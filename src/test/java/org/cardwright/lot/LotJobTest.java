@@ -258,7 +258,10 @@ class LotJobTest {
         deck.append("quit\n.endc\n.end\n");
         Path cir = out.resolve("part-cards.cir");
         Files.writeString(cir, deck.toString(), StandardCharsets.US_ASCII);
-        Process p = new ProcessBuilder(ngspice.toString(), "-b", cir.toString()).redirectErrorStream(true).start();
+        // stderr kept apart: ngspice's progress lines there must not interleave with the values echoed on stdout
+        Path err = out.resolve("part-cards.err");
+        Process p = new ProcessBuilder(ngspice.toString(), "-b", cir.toString())
+                .redirectError(ProcessBuilder.Redirect.to(err.toFile())).start();
         String text = new String(p.getInputStream().readAllBytes(), StandardCharsets.UTF_8);
         assertTrue(p.waitFor(120, java.util.concurrent.TimeUnit.SECONDS) && p.exitValue() == 0, text);
         int measuredCol = header.indexOf("VF measured [V]");

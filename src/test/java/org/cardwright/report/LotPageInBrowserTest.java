@@ -12,10 +12,8 @@ import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
-import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
-import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 import org.cardwright.cli.Main;
 import org.cardwright.testsupport.Browser;
@@ -74,7 +72,7 @@ class LotPageInBrowserTest {
         for (int width : WIDTHS) {
             String where = "lot page at " + width + " px";
             String dom = browser.dumpDom(probe, width, PROBE_HEIGHT);
-            Map<String, Double> measured = probe(dom, where);
+            Map<String, Double> measured = PageInBrowserTest.probe(dom, where);
             System.out.println(where + ": " + measured);
             if (measured.get("scrollWidth") > measured.get("innerWidth")) {
                 problems.add(where + ": scrolls sideways (" + measured.get("scrollWidth") + " px in " + measured.get("innerWidth") + " px)");
@@ -94,11 +92,11 @@ class LotPageInBrowserTest {
     }
 
     private static void assertParts(String dom, JsonNode json, String where) {
-        assertEquals(json.get("statistics").size(), count(dom, "<svg[^>]*class=\"hist\""), where + ": one histogram per parameter");
+        assertEquals(json.get("statistics").size(), PageInBrowserTest.count(dom, "<svg[^>]*class=\"hist\""), where + ": one histogram per parameter");
         // the scatter matrix: a cell of points below the diagonal and the coefficient above it for every pair
         int k = Math.min(LotHtml.SCATTER_PARAMETERS, json.get("correlation").size());
         assertTrue(Pattern.compile("<svg[^>]*class=\"plot scatter\"[^>]*id=\"scatter-matrix\"").matcher(dom).find(), where + ": scatter matrix");
-        assertEquals(k * (k - 1) / 2, count(dom, "<g data-pair=\""), where + ": scatter cells");
+        assertEquals(k * (k - 1) / 2, PageInBrowserTest.count(dom, "<g data-pair=\""), where + ": scatter cells");
         List<String> keys = new ArrayList<>();
         json.get("correlation").fieldNames().forEachRemaining(keys::add);
         for (int i = 0; i < k; i++) {
@@ -111,40 +109,14 @@ class LotPageInBrowserTest {
         // the outlier LT1-17 (RS four times the lot's) is drawn red in the scatter matrix
         assertTrue(dom.contains("<circle class=\"out\""), where + ": an outlier in the scatter matrix");
         // the corners on the measured curves
-        String corners = between(dom, "id=\"lot-corners\"", "</svg>", where);
+        String corners = PageInBrowserTest.between(dom, "id=\"lot-corners\"", "</svg>", where);
         for (String series : List.of("measured", "outliers", "typical", "vf-low", "vf-high")) {
             assertTrue(corners.contains("data-series=\"" + series + "\""), where + ": series " + series);
         }
-        assertTrue(count(corners, "<polyline ") >= 20 + 3, where + ": a curve for each drawn part and card");
-        String datasheet = between(dom, "<h2>Datasheet quantities</h2>", "</table>", where);
+        assertTrue(PageInBrowserTest.count(corners, "<polyline ") >= 20 + 3, where + ": a curve for each drawn part and card");
+        String datasheet = PageInBrowserTest.between(dom, "<h2>Datasheet quantities</h2>", "</table>", where);
         assertTrue(datasheet.contains("<td>VF [V]</td>"), where + ": VF in the datasheet table");
         assertTrue(dom.contains("<b>LT1-17</b>"), where + ": the outlier listed");
-    }
-
-    private static Map<String, Double> probe(String dom, String where) {
-        Matcher m = Pattern.compile("<pre id=\"probe\">([^<]*)</pre>").matcher(dom);
-        assertTrue(m.find(), where + ": the probe script ran");
-        Map<String, Double> out = new LinkedHashMap<>();
-        for (String pair : m.group(1).split(";")) {
-            String[] kv = pair.split("=", 2);
-            out.put(kv[0], Double.parseDouble(kv[1]));
-        }
-        return out;
-    }
-
-    private static int count(String text, String regex) {
-        Matcher m = Pattern.compile(regex).matcher(text);
-        int n = 0;
-        while (m.find()) {
-            n++;
-        }
-        return n;
-    }
-
-    private static String between(String text, String start, String end, String where) {
-        int a = text.indexOf(start);
-        assertTrue(a >= 0, where + ": missing " + start);
-        return text.substring(a, text.indexOf(end, a));
     }
 
     private static int run(String... args) {

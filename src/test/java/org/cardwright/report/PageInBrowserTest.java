@@ -198,7 +198,7 @@ class PageInBrowserTest {
         }
     }
 
-    private static Map<String, Double> probe(String dom, String where) {
+    static Map<String, Double> probe(String dom, String where) {
         Matcher m = Pattern.compile("<pre id=\"probe\">([^<]*)</pre>").matcher(dom);
         assertTrue(m.find(), where + ": the probe script ran");
         Map<String, Double> out = new LinkedHashMap<>();
@@ -209,7 +209,7 @@ class PageInBrowserTest {
         return out;
     }
 
-    private static int count(String text, String regex) {
+    static int count(String text, String regex) {
         Matcher m = Pattern.compile(regex).matcher(text);
         int n = 0;
         while (m.find()) {
@@ -218,7 +218,7 @@ class PageInBrowserTest {
         return n;
     }
 
-    private static String between(String text, String start, String end, String where) {
+    static String between(String text, String start, String end, String where) {
         int a = text.indexOf(start);
         assertTrue(a >= 0, where + ": missing " + start);
         return text.substring(a, text.indexOf(end, a));
