@@ -277,7 +277,7 @@ final class PartFitter {
                     leftOutCost));
         }
         lines.add("inputs sha256 " + recipe.sha256());
-        lines.add("check: cardwright check <library root>");
+        lines.add("check, from the library root: cardwright check .");
         return lines;
     }
 
