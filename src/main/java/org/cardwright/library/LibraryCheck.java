@@ -132,7 +132,8 @@ public final class LibraryCheck {
         }
         boolean stale = state.isEmpty() || !state.get().recipe().equals(recipe.sha256());
         List<CardCheck> out = new ArrayList<>();
-        try (StagedInputs inputs = StagedInputs.of(part, root)) {
+        try {
+            StagedInputs inputs = StagedInputs.of(part, root);
             for (Dialect d : part.dialects()) {
                 long t0 = System.nanoTime();
                 Path card = part.cardPath(d);

@@ -97,7 +97,8 @@ final class PartFitter {
         List<ParameterRule> rules = new ArrayList<>(part.rules());
         rules.addAll(extraRules);
         Path scratch = Files.createTempDirectory("cardwright-fit-");
-        try (StagedInputs inputs = StagedInputs.of(part, root)) {
+        try {
+            StagedInputs inputs = StagedInputs.of(part, root);
             if (inputs.paths().isEmpty()) {
                 throw new DeviceFileException(part.path(), part.data().get(0).line(),
                         "no data file of a kind this version fits (forward, reverse, cv, recovery, bench-log)");
@@ -179,7 +180,8 @@ final class PartFitter {
     static org.cardwright.verify.JunctionVerification check(DeviceFile part, Path root, Dialect dialect, String text)
             throws DeviceFileException, LibraryInputException, IOException {
         Path scratch = Files.createTempDirectory("cardwright-card-");
-        try (StagedInputs inputs = StagedInputs.of(part, root)) {
+        try {
+            StagedInputs inputs = StagedInputs.of(part, root);
             Path card = scratch.resolve(part.cardPath(dialect).getFileName());
             Files.writeString(card, text, java.nio.charset.StandardCharsets.UTF_8);
             org.cardwright.workflow.VerifyRequest request = new org.cardwright.workflow.VerifyRequest(card, inputs.paths(),

@@ -20,10 +20,10 @@ import org.cardwright.data.GivenConditions;
  * files ({@link #conditions}): a file's own statement of a condition still wins (docs/device-files.md).
  * {@link #displayName} maps every path back to its library-relative name.
  *
- * <p>Nothing is copied: earlier versions staged copies with a T column added; the per-file conditions replace
- * them. {@link #close} is kept for callers written for that.
+ * <p>Nothing is copied: the per-file conditions replaced the copies with a T column added that earlier versions
+ * staged.
  */
-final class StagedInputs implements AutoCloseable {
+final class StagedInputs {
     private final List<Path> paths;
     private final OptionalDouble temperature;
     private final Map<String, String> displayNames;
@@ -96,10 +96,5 @@ final class StagedInputs implements AutoCloseable {
             out = out.replace(e.getKey(), e.getValue());
         }
         return out;
-    }
-
-    @Override
-    public void close() {
-        // nothing is staged any more
     }
 }

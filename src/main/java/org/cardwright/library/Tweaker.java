@@ -96,8 +96,8 @@ final class Tweaker {
             return new Result(base, new PartFitter.Fitted(cards, refitted.full(), refitted.points(), refitted.notes(),
                     refitted.warnings()), tweak, fitted, value, notes);
         }
-        List<MeasuredPoint> points = forwardPoints(part, root);
         Inputs all = inputs(part, root);
+        List<MeasuredPoint> points = forwardPoints(all);
         org.cardwright.workflow.CardRange range = org.cardwright.workflow.CardRange.of(
                 org.cardwright.workflow.FitWorkflow.extractionData(all));
         double frequency = capacitanceFrequency(part, all);
@@ -146,17 +146,16 @@ final class Tweaker {
     /** Every data kind of the part, read as the fit reads it. */
     private static Inputs inputs(DeviceFile part, Path root)
             throws DeviceFileException, LibraryInputException, IOException {
-        try (StagedInputs inputs = StagedInputs.of(part, root)) {
-            ReadOptions options = ReadOptions.defaults();
-            if (inputs.temperature().isPresent()) {
-                options = options.withDefaultTemperature(inputs.temperature().getAsDouble());
-            }
-            try {
-                return Inputs.read(inputs.paths(), options, p -> inputs.conditions().getOrDefault(p,
-                        org.cardwright.data.GivenConditions.NONE));
-            } catch (DataFileException e) {
-                throw new LibraryInputException(inputs.displayName(e.getMessage()), e);
-            }
+        StagedInputs inputs = StagedInputs.of(part, root);
+        ReadOptions options = ReadOptions.defaults();
+        if (inputs.temperature().isPresent()) {
+            options = options.withDefaultTemperature(inputs.temperature().getAsDouble());
+        }
+        try {
+            return Inputs.read(inputs.paths(), options, p -> inputs.conditions().getOrDefault(p,
+                    org.cardwright.data.GivenConditions.NONE));
+        } catch (DataFileException e) {
+            throw new LibraryInputException(inputs.displayName(e.getMessage()), e);
         }
     }
 
@@ -170,27 +169,13 @@ final class Tweaker {
     }
 
     /** The part's forward points, as verify sees them. */
-    private static List<MeasuredPoint> forwardPoints(DeviceFile part, Path root)
-            throws DeviceFileException, LibraryInputException, IOException {
-        try (StagedInputs inputs = StagedInputs.of(part, root)) {
-            ReadOptions options = ReadOptions.defaults();
-            if (inputs.temperature().isPresent()) {
-                options = options.withDefaultTemperature(inputs.temperature().getAsDouble());
-            }
-            Inputs read;
-            try {
-                read = Inputs.read(inputs.paths(), options, p -> inputs.conditions().getOrDefault(p,
-                        org.cardwright.data.GivenConditions.NONE));
-            } catch (DataFileException e) {
-                throw new LibraryInputException(inputs.displayName(e.getMessage()), e);
-            }
-            List<MeasuredPoint> out = new ArrayList<>();
-            for (Inputs.Located l : read.forward()) {
-                out.add(new MeasuredPoint(l.point().voltage(), l.point().current(), l.point().temperature(), l.source(),
-                        l.point().line()));
-            }
-            return out;
+    private static List<MeasuredPoint> forwardPoints(Inputs read) {
+        List<MeasuredPoint> out = new ArrayList<>();
+        for (Inputs.Located l : read.forward()) {
+            out.add(new MeasuredPoint(l.point().voltage(), l.point().current(), l.point().temperature(), l.source(),
+                    l.point().line()));
         }
+        return out;
     }
 
     /** Residuals of {@code p} at the points, by the built-in engine (the fit's own model). */

@@ -15,6 +15,11 @@ public final class Celsius {
         return String.format(Locale.ROOT, "%.1f", kelvin - Ngspice39.CELSIUS_TO_KELVIN);
     }
 
+    /** Two decimals, e.g. "85.00": messages that name a temperature taken from the data to the hundredth. */
+    public static String twoDecimals(double kelvin) {
+        return String.format(Locale.ROOT, "%.2f", kelvin - Ngspice39.CELSIUS_TO_KELVIN);
+    }
+
     /**
      * The shortest exact decimal of the Celsius value after rounding to 1e-9 degC, e.g. "25", "-40", "27.5": text that
      * must be canonical (device files, card headers, build records).

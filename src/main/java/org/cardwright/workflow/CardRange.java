@@ -15,7 +15,6 @@ import org.cardwright.model.DiodeParameters;
 import org.cardwright.model.DiodeSolver;
 import org.cardwright.model.JunctionCapacitance;
 import org.cardwright.model.JunctionCurrent;
-import org.cardwright.model.Ngspice39;
 import org.cardwright.model.Param;
 import org.cardwright.model.SimulatorOptions;
 
@@ -138,13 +137,9 @@ public record CardRange(List<Double> temperatures, double lowestVoltage, double 
                 : "";
         return new FitFailedException(String.format(Locale.ROOT,
                 "%s gives %s at %s degC%s, inside the measured range (%s .. %s degC, %s .. %s V): no card is written%s",
-                what, problem, celsius(kelvin), Double.isNaN(volts) ? "" : ", " + num(volts) + " V",
-                celsius(temperatures.get(0)), celsius(temperatures.get(temperatures.size() - 1)), num(lowestVoltage),
+                what, problem, org.cardwright.model.Celsius.twoDecimals(kelvin), Double.isNaN(volts) ? "" : ", " + num(volts) + " V",
+                org.cardwright.model.Celsius.twoDecimals(temperatures.get(0)), org.cardwright.model.Celsius.twoDecimals(temperatures.get(temperatures.size() - 1)), num(lowestVoltage),
                 num(Double.isNaN(highestCvVoltage) ? 0 : Math.max(0, highestCvVoltage)), hint));
-    }
-
-    private static String celsius(double kelvin) {
-        return String.format(Locale.ROOT, "%.2f", kelvin - Ngspice39.CELSIUS_TO_KELVIN);
     }
 
     private static String num(double x) {

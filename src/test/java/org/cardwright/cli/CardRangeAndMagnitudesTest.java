@@ -35,6 +35,17 @@ class CardRangeAndMagnitudesTest {
         return out;
     }
 
+    /** The start of device file Z1 in {@code part}, with the three forward files copied there and listed. */
+    private static StringBuilder forwardPart(Path part) throws IOException {
+        StringBuilder yaml = new StringBuilder("# invented test library\nmodel: Z1\nkind: zener\ndata:\n");
+        for (String f : files("forward")) {
+            Path src = Path.of(f);
+            Files.copy(src, part.resolve(src.getFileName()));
+            yaml.append("  - file: ").append(src.getFileName()).append('\n');
+        }
+        return yaml;
+    }
+
     private static CliRun run(List<String> args) {
         return CliRun.of(args.toArray(new String[0]));
     }
@@ -58,12 +69,7 @@ class CardRangeAndMagnitudesTest {
     void aTweakThatLosesVjInsideTheRangeIsAnError() throws IOException {
         Path root = Simulators.tempDir("card-range-tweak");
         Path part = Files.createDirectories(root.resolve("z"));
-        StringBuilder yaml = new StringBuilder("# invented test library\nmodel: Z1\nkind: zener\ndata:\n");
-        for (String f : files("forward")) {
-            Path src = Path.of(f);
-            Files.copy(src, part.resolve(src.getFileName()));
-            yaml.append("  - file: ").append(src.getFileName()).append('\n');
-        }
+        StringBuilder yaml = forwardPart(part);
         // C-V data, so that VJ is on the card (a tweak changes a stated value; it adds no term)
         for (String t : List.of("25", "85")) {
             Path src = DEMO.resolve("ksz6-cv-" + t + "C.csv");
@@ -136,12 +142,7 @@ class CardRangeAndMagnitudesTest {
     void aDeviceFileStatesTheConventionForAReverseEntry() throws IOException {
         Path root = Simulators.tempDir("magnitudes-device");
         Path part = Files.createDirectories(root.resolve("z"));
-        StringBuilder yaml = new StringBuilder("# invented test library\nmodel: Z1\nkind: zener\ndata:\n");
-        for (String f : files("forward")) {
-            Path src = Path.of(f);
-            Files.copy(src, part.resolve(src.getFileName()));
-            yaml.append("  - file: ").append(src.getFileName()).append('\n');
-        }
+        StringBuilder yaml = forwardPart(part);
         for (String f : magnitudes(Files.createDirectories(part.resolve("rev")), null)) {
             yaml.append("  - file: rev/").append(Path.of(f).getFileName()).append('\n')
                     .append("    kind: reverse\n    options: {reverse-magnitudes: yes}\n");

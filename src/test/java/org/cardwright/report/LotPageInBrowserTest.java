@@ -30,26 +30,13 @@ import org.junit.jupiter.api.Test;
  * Screenshots stay in {@code target/page-screens/}.
  */
 class LotPageInBrowserTest {
-    /** The evidence page's two window widths: a desktop window and a narrow column [px]. */
-    private static final int[] WIDTHS = {1400, 760};
-    /** Window height for the DOM probe [px]. */
-    private static final int PROBE_HEIGHT = 1000;
-    /** Smallest rendered plot text: below about 11 px, labels need effort to read (common practice, no source) [px]. */
-    private static final double MIN_PLOT_FONT_PX = 11.0;
-    /** A plot fills its column: at least this share of its width (the rest is rounding) [1]. */
-    private static final double MIN_FILL = 0.98;
-    /** Tallest screenshot [px]. */
-    private static final int MAX_SHOT_HEIGHT = 16000;
-
-    private static final String PROBE = "<script>(function(){var d=document.documentElement,out=[];"
-            + "out.push('scrollWidth='+d.scrollWidth,'innerWidth='+window.innerWidth,'height='+d.scrollHeight);"
-            + "var minFont=1e9,minFill=1e9;document.querySelectorAll('svg.plot').forEach(function(s){"
-            + "var w=s.getBoundingClientRect().width,col=s.parentElement.clientWidth;minFill=Math.min(minFill,w/col);"
-            + "var k=w/s.viewBox.baseVal.width;s.querySelectorAll('text').forEach(function(t){"
-            + "minFont=Math.min(minFont,parseFloat(getComputedStyle(t).fontSize)*k);});});"
-            + "out.push('minFont='+minFont,'minFill='+minFill);"
-            + "var p=document.createElement('pre');p.id='probe';p.textContent=out.join(';');document.body.appendChild(p);"
-            + "})();</script>";
+    // widths, probe script and limits: the evidence page's (PageInBrowserTest), so every page is held to the same
+    private static final int[] WIDTHS = PageInBrowserTest.WIDTHS;
+    private static final int PROBE_HEIGHT = PageInBrowserTest.PROBE_HEIGHT;
+    private static final double MIN_PLOT_FONT_PX = PageInBrowserTest.MIN_PLOT_FONT_PX;
+    private static final double MIN_FILL = PageInBrowserTest.MIN_FILL;
+    private static final int MAX_SHOT_HEIGHT = PageInBrowserTest.MAX_SHOT_HEIGHT;
+    private static final String PROBE = PageInBrowserTest.PROBE;
 
     @Test
     void theLotPageRendersAtBothWidthsWithAllItsPartsAndTheSameBytesTwice() throws Exception {

@@ -35,21 +35,21 @@ import org.junit.jupiter.api.Test;
  */
 class PageInBrowserTest {
     /** The two window widths of the issue: a desktop window and the narrow column the plots must still fit [px]. */
-    private static final int[] WIDTHS = {1400, 760};
+    static final int[] WIDTHS = {1400, 760};
     /** Window height for the DOM probe; the page scrolls vertically, which is fine [px]. */
-    private static final int PROBE_HEIGHT = 1000;
+    static final int PROBE_HEIGHT = 1000;
     /**
      * Smallest rendered size of any text inside a plot [px]: below about 11 px, sans-serif labels on a screen need
      * effort to read (common practice, no source).
      */
-    private static final double MIN_PLOT_FONT_PX = 11.0;
+    static final double MIN_PLOT_FONT_PX = 11.0;
     /** A plot fills its column: at least this share of the figure's width (the rest is rounding) [1]. */
-    private static final double MIN_FILL = 0.98;
+    static final double MIN_FILL = 0.98;
     /** Tallest screenshot taken; a longer page is cut there, which is still enough to look at [px]. */
-    private static final int MAX_SHOT_HEIGHT = 16000;
+    static final int MAX_SHOT_HEIGHT = 16000;
 
     /** What the probe script records, as "key=value;" pairs in a pre element it appends. */
-    private static final String PROBE = "<script>(function(){var d=document.documentElement,out=[];"
+    static final String PROBE = "<script>(function(){var d=document.documentElement,out=[];"
             + "out.push('scrollWidth='+d.scrollWidth,'innerWidth='+window.innerWidth,'height='+d.scrollHeight);"
             + "var minFont=1e9,minFill=1e9;document.querySelectorAll('svg.plot').forEach(function(s){"
             + "var w=s.getBoundingClientRect().width,col=s.parentElement.clientWidth;minFill=Math.min(minFill,w/col);"
