@@ -307,17 +307,17 @@ public record Inputs(List<MeasurementFile> files, List<Located> forward, List<Lo
      * The index of the highest point of one sweep's floor, or -1 when it shows none. {@code v} ascending [V],
      * {@code current} positive [A], one entry per point.
      *
-     * <p>A junction's current rises with its voltage everywhere in forward bias; noise only makes neighbours
-     * trade places over a few noise widths. So a pair of points is compared only when the lower one lies in the
+     * <p>A junction's current rises with its voltage everywhere in forward bias; noise only makes readings trade
+     * places over a few noise widths. So a pair of points is compared only when the lower one lies in the
      * bottom {@value #FLOOR_DECADES} decades and the voltage between them would raise a junction's current at
      * least e^{@value #FLOOR_REACH} times: (e^{s V2} - 1)/(e^{s V1} - 1), with s the sweep's own slope of ln I
-     * against V in the decade just above those bottom decades (fitted by least squares; the -1 keeps the
-     * comparison honest within a few kT/q of 0 V). When the upper point nonetheless reads no more current, and
-     * the points between the lower one and the middle voltage of the pair do not rise either (their least-squares
-     * slope of ln I against V is at most {@value #FLOOR_FLAT_Z} standard errors above zero, the standard error
-     * from their own scatter; fewer than 3 points are not tested), the current has stopped rising: the pair lies
-     * in the floor. The floor reaches up to the highest upper point of such a pair. The lower point itself is left
-     * out of the slope because choosing the pair chose it for reading high.
+     * against V in the decade just above those bottom decades (least squares; the -1 keeps the comparison honest
+     * within a few kT/q of 0 V) and V1 counted from at least {@value #FLOOR_NOISE_WIDTHS} times the sweep's
+     * voltage scatter ({@link #voltageScatter}). When the upper point nonetheless reads no more current, and the
+     * points between the lower one and the pair's middle voltage do not rise beyond their own scatter either
+     * ({@link #notRising}), the current has stopped rising: the pair lies in the floor. The floor reaches up to
+     * the highest upper point of such a pair. The lower point itself is left out of the test of the points
+     * between, because choosing the pair chose it for reading high. Common practice, no source.
      *
      * <p>The upper point of a pair is the highest point of the sweep whose current is at most the lower one's
      * (a binary search over the running minimum from the top), so the whole sweep costs O(n log n).

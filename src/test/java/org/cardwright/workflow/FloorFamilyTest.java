@@ -4,7 +4,6 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.util.ArrayList;
-import java.util.HashMap;
 import java.util.HashSet;
 import java.util.List;
 import java.util.Locale;
@@ -59,10 +58,50 @@ class FloorFamilyTest {
      */
     static final double ABOVE_FLOOR_LIMIT = 5;
 
+    /**
+     * What the rule did to one member: its forward points, how many it set aside, the deep-floor points and how
+     * many of them it set aside, the highest junction current it set aside and the lowest of the sweep (both
+     * over the floor current; 0 and 1 without a floor).
+     */
+    record Outcome(Member member, int forward, int aside, int deep, int deepAside, double highest, double lowest) {
+    }
+
+    /** Generates the member's sweep from its truth and runs the rule on it. */
+    static Outcome outcome(Member m, double[][] truth) {
+        Sweep s = FloorSweeps.sweep(m, truth);
+        List<Row> forward = s.forward();
+        Set<Integer> aside = setAside(forward, s.kelvin());
+        if (m.floor().kind() == FloorKind.NONE) {
+            return new Outcome(m, forward.size(), aside.size(), 0, 0, 0, 1);
+        }
+        double floor = m.floor().current();
+        int deep = 0;
+        int deepAside = 0;
+        double highest = 0;
+        double lowest = Double.POSITIVE_INFINITY;
+        for (Row r : forward) {
+            lowest = Math.min(lowest, r.trueCurrent() / floor);
+            if (r.trueCurrent() < floor / DEEP_RATIO) {
+                deep++;
+                deepAside += aside.contains(r.line()) ? 1 : 0;
+            }
+            if (aside.contains(r.line())) {
+                highest = Math.max(highest, r.trueCurrent() / floor);
+            }
+        }
+        return new Outcome(m, forward.size(), aside.size(), deep, deepAside, highest, lowest);
+    }
+
     @Test
     void everyMemberOfTheFamilyIsSortedIntoFloorAndJunction() {
         List<Member> family = FloorSweeps.family();
-        Map<String, double[][]> truths = new HashMap<>();
+        // the members are independent: run them on every core, then judge them in order
+        Map<String, double[][]> truths = new java.util.concurrent.ConcurrentHashMap<>();
+        family.parallelStream().map(FloorFamilyTest::truthKey).distinct().forEach(k -> {
+            Member m = family.stream().filter(x -> truthKey(x).equals(k)).findFirst().orElseThrow();
+            truths.put(k, FloorSweeps.truth(m.part(), m.points(), m.mode()));
+        });
+        List<Outcome> outcomes = family.parallelStream().map(m -> outcome(m, truths.get(truthKey(m)))).toList();
         List<String> failures = new ArrayList<>();
         int failedMembers = 0;
         double worstNoFloorShare = 0;
@@ -73,15 +112,11 @@ class FloorFamilyTest {
         String highestAsideMember = "";
         long checkedDeep = 0;
         int[] byKind = new int[3];
-        for (Member m : family) {
-            double[][] truth = truths.computeIfAbsent(m.part().name() + "/" + m.points() + "/" + m.mode(),
-                    k -> FloorSweeps.truth(m.part(), m.points(), m.mode()));
-            Sweep s = FloorSweeps.sweep(m, truth);
-            List<Row> forward = s.forward();
-            Set<Integer> aside = setAside(forward, s.kelvin());
+        for (Outcome o : outcomes) {
+            Member m = o.member();
             List<String> mine = new ArrayList<>();
             if (m.floor().kind() == FloorKind.NONE) {
-                double share = aside.size() / (double) forward.size();
+                double share = o.aside() / (double) o.forward();
                 if (share > worstNoFloorShare) {
                     worstNoFloorShare = share;
                     worstNoFloor = m.toString();
@@ -89,43 +124,29 @@ class FloorFamilyTest {
                 if (share > NO_FLOOR_SHARE) {
                     byKind[0]++;
                     mine.add(String.format(Locale.ROOT, "%s: %d of %d points set aside (%.1f %%) without a floor",
-                            m, aside.size(), forward.size(), 100 * share));
+                            m, o.aside(), o.forward(), 100 * share));
                 }
             } else {
-                double floor = m.floor().current();
-                int deep = 0;
-                int deepAside = 0;
-                double highest = 0;
-                for (Row r : forward) {
-                    if (r.trueCurrent() < floor / DEEP_RATIO) {
-                        deep++;
-                        deepAside += aside.contains(r.line()) ? 1 : 0;
-                    }
-                    if (aside.contains(r.line())) {
-                        highest = Math.max(highest, r.trueCurrent() / floor);
-                    }
-                }
-                if (highest > highestAside) {
-                    highestAside = highest;
+                if (o.highest() > highestAside) {
+                    highestAside = o.highest();
                     highestAsideMember = m.toString();
                 }
-                if (highest > ABOVE_FLOOR_LIMIT) {
+                if (o.highest() > ABOVE_FLOOR_LIMIT) {
                     byKind[1]++;
                     mine.add(String.format(Locale.ROOT, "%s: a point at %.3g times the floor current set aside",
-                            m, highest));
+                            m, o.highest()));
                 }
-                double lowest = forward.stream().mapToDouble(Row::trueCurrent).min().orElse(floor);
-                if (deep >= MIN_DEEP_POINTS && lowest <= floor / DEEP_RATIO / FLOOR_DEPTH) {
+                if (o.deep() >= MIN_DEEP_POINTS && o.lowest() <= 1 / DEEP_RATIO / FLOOR_DEPTH) {
                     checkedDeep++;
-                    double share = deepAside / (double) deep;
+                    double share = o.deepAside() / (double) o.deep();
                     if (share < worstDeepShare) {
                         worstDeepShare = share;
                         worstDeep = m.toString();
                     }
-                    if (share < DEEP_SHARE && deepAside < deep - EDGE_MISSES) {
+                    if (share < DEEP_SHARE && o.deepAside() < o.deep() - EDGE_MISSES) {
                         byKind[2]++;
                         mine.add(String.format(Locale.ROOT, "%s: %d of %d points deep in the floor set aside (%.1f %%)",
-                                m, deepAside, deep, 100 * share));
+                                m, o.deepAside(), o.deep(), 100 * share));
                     }
                 }
             }
@@ -145,6 +166,10 @@ class FloorFamilyTest {
         assertEquals(720, family.size(), "4 parts x 5 densities x 3 noises x 6 meters x 2 modes");
         assertTrue(failures.isEmpty(), failedMembers + " of " + family.size() + " members fail, e.g. "
                 + failures.subList(0, Math.min(5, failures.size())));
+    }
+
+    private static String truthKey(Member m) {
+        return m.part().name() + "/" + m.points() + "/" + m.mode();
     }
 
     /** Runs the rule on the forward rows as one sweep of one file; returns the lines it set aside. */
