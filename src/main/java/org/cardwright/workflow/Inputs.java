@@ -342,7 +342,7 @@ public record Inputs(List<MeasurementFile> files, List<Located> forward, List<Lo
         if (!(slope > 0)) {
             return -1;
         }
-        double lowest0 = FLOOR_NOISE_WIDTHS * voltageScatter(v, ln, current, limit);
+        double lowestCounted = FLOOR_NOISE_WIDTHS * voltageScatter(v, ln, current, limit);
         // running minimum from the top: lowest[k] = min(ln[k..n-1]), ascending in k
         double[] lowest = new double[n];
         lowest[n - 1] = ln[n - 1];
@@ -372,7 +372,7 @@ public record Inputs(List<MeasurementFile> files, List<Located> forward, List<Lo
                 continue;
             }
             int k = lastAtMost(lowest, ln[i]);
-            double from = Math.max(v[i], lowest0);
+            double from = Math.max(v[i], lowestCounted);
             if (k <= i || k <= cut || !(v[k] > from) || junctionRise(slope, from, v[k]) < FLOOR_REACH) {
                 continue;
             }
