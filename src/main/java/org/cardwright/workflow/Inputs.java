@@ -270,9 +270,9 @@ public record Inputs(List<MeasurementFile> files, List<Located> forward, List<Lo
 
     /**
      * Below an instrument's current floor a forward sweep stops rising: a higher voltage reads the same or a
-     * smaller current. Reading down from the top of each sweep (same file and temperature, by voltage), the first
-     * point whose current is not smaller than the point above it, in the bottom {@value #FLOOR_DECADES} decades
-     * of the sweep's currents, marks the floor; it and every point below it are set aside and named.
+     * smaller current, however far up the floor reaches. Within a sweep (same file and temperature, by voltage),
+     * in the bottom {@value #FLOOR_DECADES} decades of its currents, the floor is found by {@link #floorCut}; the
+     * highest point it reaches and every point below it are set aside and named.
      */
     static void setAsideBelowFloor(List<Located> points, List<String> notes) {
         java.util.Map<String, List<Located>> groups = new java.util.LinkedHashMap<>();
@@ -284,19 +284,13 @@ public record Inputs(List<MeasurementFile> files, List<Located> forward, List<Lo
         for (List<Located> g : groups.values()) {
             List<Located> byV = new ArrayList<>(g);
             byV.sort(java.util.Comparator.comparingDouble(l -> l.point().voltage()));
-            double top = byV.stream().mapToDouble(l -> l.point().current()).max().orElse(0);
-            double bottom = byV.stream().mapToDouble(l -> l.point().current()).min().orElse(0);
-            double limit = Math.min(top * Math.pow(10, -FLOOR_DECADES), bottom * 1e3);
-            int cut = -1;
-            for (int i = byV.size() - 1; i > 0; i--) {
-                Located here = byV.get(i);
-                Located below = byV.get(i - 1);
-                if (below.point().current() >= here.point().current() && here.point().current() < limit
-                        && here.point().voltage() - below.point().voltage() > 1e-9) {
-                    cut = i;
-                    break;
-                }
+            double[] v = new double[byV.size()];
+            double[] current = new double[byV.size()];
+            for (int k = 0; k < v.length; k++) {
+                v[k] = byV.get(k).point().voltage();
+                current[k] = byV.get(k).point().current();
             }
+            int cut = floorCut(v, current);
             if (cut > 0) {
                 List<Located> gone = byV.subList(0, cut + 1);
                 floor.addAll(gone);
@@ -307,6 +301,222 @@ public record Inputs(List<MeasurementFile> files, List<Located> forward, List<Lo
             }
         }
         points.removeAll(floor);
+    }
+
+    /**
+     * The index of the highest point of one sweep's floor, or -1 when it shows none. {@code v} ascending [V],
+     * {@code current} positive [A], one entry per point.
+     *
+     * <p>A junction's current rises with its voltage everywhere in forward bias; noise only makes readings trade
+     * places over a few noise widths. So a pair of points is compared only when the lower one lies in the
+     * bottom {@value #FLOOR_DECADES} decades and the voltage between them would raise a junction's current at
+     * least e^{@value #FLOOR_REACH} times: (e^{s V2} - 1)/(e^{s V1} - 1), with s the sweep's own slope of ln I
+     * against V in the decade just above those bottom decades (least squares; the -1 keeps the comparison honest
+     * within a few kT/q of 0 V) and V1 counted from at least {@value #FLOOR_NOISE_WIDTHS} times the sweep's
+     * voltage scatter ({@link #voltageScatter}). When the upper point nonetheless reads no more current, and the
+     * points between the lower one and the pair's middle voltage do not rise beyond their own scatter either
+     * ({@link #notRising}), the current has stopped rising: the pair lies in the floor. The floor reaches up to
+     * the highest upper point of such a pair. The lower point itself is left out of the test of the points
+     * between, because choosing the pair chose it for reading high. Common practice, no source.
+     *
+     * <p>The upper point of a pair is the highest point of the sweep whose current is at most the lower one's
+     * (a binary search over the running minimum from the top), so the whole sweep costs O(n log n).
+     */
+    static int floorCut(double[] v, double[] current) {
+        int n = v.length;
+        if (n < 2) {
+            return -1;
+        }
+        double top = Double.NEGATIVE_INFINITY;
+        double bottom = Double.POSITIVE_INFINITY;
+        for (double c : current) {
+            top = Math.max(top, c);
+            bottom = Math.min(bottom, c);
+        }
+        double limit = Math.min(top * Math.pow(10, -FLOOR_DECADES), bottom * 1e3);
+        double[] ln = new double[n];
+        for (int k = 0; k < n; k++) {
+            ln[k] = Math.log(current[k]);
+        }
+        double slope = referenceSlope(v, ln, current, limit);
+        if (!(slope > 0)) {
+            return -1;
+        }
+        double lowestCounted = FLOOR_NOISE_WIDTHS * voltageScatter(v, ln, current, limit);
+        // running minimum from the top: lowest[k] = min(ln[k..n-1]), ascending in k
+        double[] lowest = new double[n];
+        lowest[n - 1] = ln[n - 1];
+        for (int k = n - 2; k >= 0; k--) {
+            lowest[k] = Math.min(ln[k], lowest[k + 1]);
+        }
+        // prefix sums about the sweep's first point, for the slope of any run of points in O(1)
+        double v0 = v[0];
+        double l0 = ln[0];
+        double[] sx = new double[n + 1];
+        double[] sy = new double[n + 1];
+        double[] sxx = new double[n + 1];
+        double[] sxy = new double[n + 1];
+        double[] syy = new double[n + 1];
+        for (int k = 0; k < n; k++) {
+            double x = v[k] - v0;
+            double y = ln[k] - l0;
+            sx[k + 1] = sx[k] + x;
+            sy[k + 1] = sy[k] + y;
+            sxx[k + 1] = sxx[k] + x * x;
+            sxy[k + 1] = sxy[k] + x * y;
+            syy[k + 1] = syy[k] + y * y;
+        }
+        int cut = -1;
+        for (int i = 0; i < n - 1; i++) {
+            if (!(current[i] < limit) || !(v[i] > 0)) {
+                continue;
+            }
+            int k = lastAtMost(lowest, ln[i]);
+            double from = Math.max(v[i], lowestCounted);
+            if (k <= i || k <= cut || !(v[k] > from) || junctionRise(slope, from, v[k]) < FLOOR_REACH) {
+                continue;
+            }
+            int middle = lastAtMost(v, (v[i] + v[k]) / 2);
+            if (notRising(i + 1, middle, sx, sy, sxx, sxy, syy)) {
+                cut = k;
+            }
+        }
+        return cut;
+    }
+
+    /** The largest index k with {@code ascending[k] <= x}, or -1 [1]. */
+    private static int lastAtMost(double[] ascending, double x) {
+        int lo = 0;
+        int hi = ascending.length - 1;
+        int found = -1;
+        while (lo <= hi) {
+            int mid = (lo + hi) >>> 1;
+            if (ascending[mid] <= x) {
+                found = mid;
+                lo = mid + 1;
+            } else {
+                hi = mid - 1;
+            }
+        }
+        return found;
+    }
+
+    /** ln of the factor by which a junction of slope s [1/V] raises its current from v1 to v2 (0 < v1 < v2) [1]. */
+    private static double junctionRise(double s, double v1, double v2) {
+        return lnExpm1(s * v2) - lnExpm1(s * v1);
+    }
+
+    /** ln(e^x - 1) for x > 0, without overflow [1]. */
+    private static double lnExpm1(double x) {
+        return x > 1 ? x + Math.log1p(-Math.exp(-x)) : Math.log(Math.expm1(x));
+    }
+
+    /**
+     * Whether points {@code from..to} (inclusive) show no rise of ln I with V beyond their own scatter: fewer than 3
+     * points, or a least-squares line whose rise across them is at most {@value #FLOOR_FLAT_RISE} times the
+     * standard deviation of the points about it (plus 1e-9, rounding). Judged by size, not by significance: a
+     * floor's reading still carries the junction's share, a few per cent, which many points would make
+     * significant.
+     */
+    private static boolean notRising(int from, int to, double[] sx, double[] sy, double[] sxx, double[] sxy,
+                                     double[] syy) {
+        int m = to - from + 1;
+        if (m < 3) {
+            return true;
+        }
+        double x = sx[to + 1] - sx[from];
+        double y = sy[to + 1] - sy[from];
+        double xx = sxx[to + 1] - sxx[from] - x * x / m;
+        double xy = sxy[to + 1] - sxy[from] - x * y / m;
+        double yy = syy[to + 1] - syy[from] - y * y / m;
+        if (!(xx > 0)) {
+            return true;
+        }
+        double b = xy / xx;
+        double scatter = Math.sqrt(Math.max(0, yy - b * xy) / (m - 2));
+        double span = Math.sqrt(12 * xx / m);
+        return b * span <= FLOOR_FLAT_RISE * scatter + 1e-9;
+    }
+
+    /**
+     * The scatter of the sweep's voltages about its curve, one sigma [V]: points between {@code limit} and ten times
+     * it (at least 5, else every point at or above {@code limit}), ordered by current; each voltage's departure from
+     * the line through its two neighbours, by the median absolute departure (1.4826 MAD, divided by sqrt(1.5) for
+     * the neighbours' own scatter). 0 with fewer than 3 usable points. It covers noise on the current too, seen
+     * along the voltage.
+     */
+    static double voltageScatter(double[] v, double[] ln, double[] current, double limit) {
+        double[] s = scatterWithin(v, ln, current, limit, 10 * limit);
+        if (s == null) {
+            s = scatterWithin(v, ln, current, limit, Double.POSITIVE_INFINITY);
+        }
+        if (s == null || s.length < 3) {
+            return 0;
+        }
+        java.util.Arrays.sort(s);
+        double median = s.length % 2 == 1 ? s[s.length / 2] : (s[s.length / 2 - 1] + s[s.length / 2]) / 2;
+        return 1.4826 * median / Math.sqrt(1.5);
+    }
+
+    /** |departures| of the points with current in [lo, hi] (see {@link #voltageScatter}); null for fewer than 5 points. */
+    private static double[] scatterWithin(double[] v, double[] ln, double[] current, double lo, double hi) {
+        List<double[]> pts = new ArrayList<>();
+        for (int k = 0; k < v.length; k++) {
+            if (current[k] >= lo && current[k] <= hi) {
+                pts.add(new double[] {ln[k], v[k]});
+            }
+        }
+        if (pts.size() < 5) {
+            return null;
+        }
+        pts.sort((a, b) -> Double.compare(a[0], b[0]));
+        double[] out = new double[pts.size() - 2];
+        int m = 0;
+        for (int k = 1; k + 1 < pts.size(); k++) {
+            double[] a = pts.get(k - 1);
+            double[] here = pts.get(k);
+            double[] b = pts.get(k + 1);
+            if (b[0] > a[0]) {
+                out[m++] = Math.abs(here[1] - (a[1] + (b[1] - a[1]) * (here[0] - a[0]) / (b[0] - a[0])));
+            }
+        }
+        return java.util.Arrays.copyOf(out, m);
+    }
+
+    /**
+     * The sweep's slope of ln I against V [1/V]: least squares over its points between {@code limit} and ten times
+     * it (at least 3 points), else over every point at or above {@code limit}; NaN when there are too few.
+     */
+    private static double referenceSlope(double[] v, double[] ln, double[] current, double limit) {
+        double s = slopeWithin(v, ln, current, limit, 10 * limit);
+        return Double.isNaN(s) ? slopeWithin(v, ln, current, limit, Double.POSITIVE_INFINITY) : s;
+    }
+
+    private static double slopeWithin(double[] v, double[] ln, double[] current, double lo, double hi) {
+        int m = 0;
+        double x = 0;
+        double y = 0;
+        for (int k = 0; k < v.length; k++) {
+            if (current[k] >= lo && current[k] <= hi) {
+                m++;
+                x += v[k];
+                y += ln[k];
+            }
+        }
+        if (m < 3) {
+            return Double.NaN;
+        }
+        x /= m;
+        y /= m;
+        double xx = 0;
+        double xy = 0;
+        for (int k = 0; k < v.length; k++) {
+            if (current[k] >= lo && current[k] <= hi) {
+                xx += (v[k] - x) * (v[k] - x);
+                xy += (v[k] - x) * (ln[k] - y);
+            }
+        }
+        return xx > 0 ? xy / xx : Double.NaN;
     }
 
     /**
@@ -359,6 +569,24 @@ public record Inputs(List<MeasurementFile> files, List<Located> forward, List<Lo
 
     /** The floor is looked for only this many decades above the sweep's smallest current, at most [decades]. */
     static final double FLOOR_DECADES = 3;
+    /**
+     * Two points are compared only when a junction would raise its current e^2 (7.4) times between them [ln 1]:
+     * noise lets neighbours trade places over a few noise widths (3 % on the current and 1 mV at 26 mV per
+     * e-fold swap readings about 0.4 e-folds apart at 4.5 sigma), never this far (common practice, no source).
+     */
+    static final double FLOOR_REACH = 2;
+    /**
+     * The points inside a floor pair rise, along their least-squares line, by at most this many times their own
+     * scatter about it [1]: a floor's reading moves by its wander, not by the junction's share of it (a few per
+     * cent deep in the floor); the slowest forward rise of a junction, where GMIN or a shunt carries its current
+     * (ln I rising as ln V), still rises 2.7 times its scatter over half a pair at 3 % noise.
+     */
+    static final double FLOOR_FLAT_RISE = 1.5;
+    /**
+     * Below this many times the sweep's voltage scatter a voltage reading says little about the junction: the
+     * expected rise of a pair is counted from at least there [1].
+     */
+    static final double FLOOR_NOISE_WIDTHS = 3;
 
     /** Currents this close (relative) count as the same [1]. */
     static final double SAME_CURRENT = 1e-4;
