@@ -16,6 +16,10 @@ import org.junit.jupiter.api.Test;
 class SeriesResistorLogTest {
     /** Double arithmetic against a 30-digit decimal computation: rounding only, well below 1e-12 [1]. */
     private static final double ROUNDING = 1e-12;
+    /** A current of 50-450 nA from one division: a few ulp [A]. */
+    private static final double NANOAMP_ROUNDING_A = 1e-22;
+    /** A current of a few mA from decimal arithmetic: a few ulp [A]. */
+    private static final double MILLIAMP_ROUNDING_A = 1e-18;
     /** Monte Carlo draws per point, as issue 4 asks [1]. */
     private static final int DRAWS = 1000;
     /**
@@ -107,8 +111,8 @@ class SeriesResistorLogTest {
     void withoutTheCorrectionTheMeterCurrentStaysInAndIsStillReported() {
         SeriesResistorLog.Setup off = new SeriesResistorLog.Setup(10e6, 0, 0, 0, null, null, false);
         SeriesResistorLog.Point p = SeriesResistorLog.solve(off, 5, 10e6, 0.5);
-        assertEquals(4.5 / 10e6, p.current(), 1e-22);
-        assertEquals(0.5 / 10e6, p.meterCurrent(), 1e-22);
+        assertEquals(4.5 / 10e6, p.current(), NANOAMP_ROUNDING_A);
+        assertEquals(0.5 / 10e6, p.meterCurrent(), NANOAMP_ROUNDING_A);
     }
 
     @Test
@@ -118,7 +122,7 @@ class SeriesResistorLogTest {
         assertTrue(Double.isNaN(p.currentSigma()));
         assertTrue(Double.isNaN(p.voltageSigma()));
         assertEquals(0.0, p.correlation());
-        assertEquals(4.3 / 1e3 - 0.7 / 10e6, p.current(), 1e-18);
+        assertEquals(4.3 / 1e3 - 0.7 / 10e6, p.current(), MILLIAMP_ROUNDING_A);
     }
 
     @Test
