@@ -92,6 +92,10 @@ class HtmlReportTest {
     private static final double UNIT_STEP_ROUNDING = 1e-15;
     /** A nice step of order 1e-3 from decimal arithmetic: double rounding only [1]. */
     private static final double MILLI_STEP_ROUNDING = 1e-18;
+    /** The top tick is at least the largest residual, less 1 % for the tick label's rounding [1]. */
+    private static final double TOP_TICK_FRACTION = 0.99;
+    /** A limit line spans more than half the plot's width [1]. */
+    private static final double SPAN_FRACTION = 0.5;
 
     // ---------------------------------------------------------------------------------------------------------
 
@@ -183,7 +187,7 @@ class HtmlReportTest {
                     .mapToDouble(t -> Double.parseDouble(t.getTextContent())).max().orElseThrow();
             double largest = id.startsWith("breakdown") ? 5 : 100 * CV_OFFSET;
             double rmsLimit = id.startsWith("breakdown") ? 30 : CapacitanceTolerance.DEFAULT.rmsPercent();
-            assertTrue(top >= largest * 0.99 && top < rmsLimit, id + ": top tick " + top + " between the largest residual "
+            assertTrue(top >= largest * TOP_TICK_FRACTION && top < rmsLimit, id + ": top tick " + top + " between the largest residual "
                     + largest + " and the RMS limit " + rmsLimit);
             assertEquals(0, byClass(svg, "line", "limit rms").stream().filter(l -> !inLegend(l)).count(),
                     id + ": a limit beyond the scale is not drawn");
@@ -444,7 +448,7 @@ class HtmlReportTest {
         // the lines are horizontal and span the plot
         for (Element l : List.of(rmsLines.get(0), maxLines.get(0))) {
             assertEquals(y(l, "y1"), y(l, "y2"), 0.0, id);
-            assertTrue(y(l, "x2") - y(l, "x1") > SvgPlot.WIDTH / 2.0, id + ": spans the plot");
+            assertTrue(y(l, "x2") - y(l, "x1") > SvgPlot.WIDTH * SPAN_FRACTION, id + ": spans the plot");
         }
     }
 
