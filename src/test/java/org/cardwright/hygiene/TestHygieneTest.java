@@ -107,6 +107,21 @@ class TestHygieneTest {
     }
 
     @Test
+    void aBareFloatingBoundInAnAssertedConditionIsAFinding() {
+        List<Finding> f = TestSourceScanner.scan("A.java", String.join("\n",
+                "class A {",
+                "  void t() {",
+                "    assertTrue(rms < 0.5e-3, \"rms\");",
+                "    assertFalse(ok && v > 0.9 * bv);",
+                "    assertTrue(rms < RMS_LIMIT_V && rows > 60, \"0.5e-3\");",
+                "    assertTrue(x > 0.0 && seconds < 60);",
+                "  }",
+                "}"));
+        assertEquals(List.of(3, 4), lines(f), f.toString());
+        assertTrue(f.stream().allMatch(x -> x.rule().equals("condition-bound")), f.toString());
+    }
+
+    @Test
     void aPathOutsideTheRepositoryIsAFinding() {
         List<Finding> f = TestSourceScanner.scan("x/A.java", String.join("\n",
                 "class A {",

@@ -22,6 +22,11 @@ import java.util.regex.Pattern;
  *   <li><b>Bare bound on a difference</b> (rule {@code abs-bound}). Anywhere in the code, a comparison
  *       ({@code <}, {@code <=}, {@code >}, {@code >=}) of {@code Math.abs(...)} against an operand that contains
  *       a numeric literal other than 0 ({@code Math.abs(a - b) < 1e-3}); the bound must be a named constant.</li>
+ *   <li><b>Bare bound in a condition</b> (rule {@code condition-bound}). In the condition (first argument) of
+ *       {@code assertTrue} or {@code assertFalse}, each part between {@code &&} and {@code ||} that holds a
+ *       comparison must not hold a floating-point literal (one with a decimal point or an exponent) other than
+ *       {@code 0.0}: {@code assertTrue(rms < 0.5e-3)} and {@code assertTrue(v > 0.9 * bv)} are findings. Integer
+ *       literals are counts ({@code rows > 60}, {@code seconds < 60}) and are not.</li>
  *   <li><b>Path outside the repository</b> (rule {@code outside-path}). A string literal or a comment that
  *       names a folder of the machine rather than of the repository: {@code /work/}, {@code /home/},
  *       {@code /root/}, {@code /usr/}, {@code /opt/}, {@code /etc/}, {@code /var/}, {@code /tmp/},
@@ -57,6 +62,9 @@ public final class TestSourceScanner {
     private static final Pattern NAME = Pattern.compile("\\b[A-Z][A-Z0-9_]*[A-Z0-9]\\b");
     /** An array index such as {@code [1]}: a position, not a quantity. */
     private static final Pattern INDEX = Pattern.compile("\\[[^\\[\\]]*\\]");
+    private static final Pattern CONDITION = Pattern.compile("\\b(assertTrue|assertFalse)\\s*\\(");
+    /** A comparison operator: not a shift, not a lambda arrow, not part of {@code <=>}-like text. */
+    private static final Pattern COMPARISON = Pattern.compile("(?<![<>\\-])(<=?|>=?)(?![<>])");
     private static final Pattern ABS = Pattern.compile("\\bMath\\.abs\\s*\\(");
     private static final Pattern OUTSIDE = Pattern.compile(
             "/(work|home|root|usr|opt|etc|var|tmp|mnt|srv|media)/|~/|user\\.home");
@@ -77,6 +85,7 @@ public final class TestSourceScanner {
         List<Finding> out = new ArrayList<>();
         toleranceArguments(file, source, views.code, out);
         absoluteBounds(file, source, views.code, out);
+        conditionBounds(file, source, views.code, out);
         outsidePaths(file, source, views, out);
         out.sort((a, b) -> Integer.compare(a.line(), b.line()));
         return out;
@@ -143,6 +152,47 @@ public final class TestSourceScanner {
                 }
             }
         }
+    }
+
+    private static void conditionBounds(String file, String source, String code, List<Finding> out) {
+        Matcher m = CONDITION.matcher(code);
+        while (m.find()) {
+            List<int[]> args = arguments(code, m.end());
+            if (args.isEmpty()) {
+                continue;
+            }
+            int[] first = args.get(0);
+            String condition = code.substring(first[0], first[1]);
+            for (String atom : condition.split("&&|\\|\\|")) {
+                if (!COMPARISON.matcher(atom).find() || ABS.matcher(atom).find()) {
+                    continue; // no comparison, or one the abs-bound rule already judges
+                }
+                String literal = nonZeroFloat(atom);
+                if (literal != null) {
+                    out.add(new Finding(file, lineOf(source, skipSpace(code, first[0])), "condition-bound",
+                            m.group(1) + " compares against the bare number " + literal + ": '" + oneLine(atom.strip()) + "'"));
+                    break;
+                }
+            }
+        }
+    }
+
+    /** The first floating-point literal (with a decimal point or an exponent) in {@code code} that is not zero, or null. */
+    static String nonZeroFloat(String code) {
+        String outsideIndices = code;
+        for (String before = null; !outsideIndices.equals(before); ) {
+            before = outsideIndices;
+            outsideIndices = INDEX.matcher(outsideIndices).replaceAll(" ");
+        }
+        Matcher n = NUMBER.matcher(outsideIndices);
+        while (n.find()) {
+            String number = n.group(1);
+            boolean floating = number.matches("[^xX]*[.eEdDfF].*");
+            if (floating && !ZERO.matcher(number).matches()) {
+                return number;
+            }
+        }
+        return null;
     }
 
     private static void outsidePaths(String file, String source, Views views, List<Finding> out) {
