@@ -8,7 +8,8 @@ import java.util.regex.Pattern;
 
 /**
  * Reads one test source as text and names the lines that break two house rules (DEVELOPERS.md, "House
- * rules"). It is a plain text scanner, not a Java parser; its rules are kept simple on purpose:
+ * rules": tolerances are named constants; tests read nothing outside the repository). It is a plain text
+ * scanner, not a Java parser; its rules are kept simple on purpose:
  *
  * <ol>
  *   <li><b>Bare tolerance</b> (rule {@code tolerance}). The tolerance argument of {@code assertEquals},
@@ -40,7 +41,8 @@ import java.util.regex.Pattern;
  * </ol>
  *
  * Numbers are read from the code with comments and string contents blanked out, so a number in a message
- * or a comment is never a finding, nor is an array index ({@code v[1]}); paths are read from the string literals and the comments only.
+ * or a comment is never a finding, nor is an array index ({@code v[1]}); paths are read from the string
+ * literals and the comments only.
  */
 public final class TestSourceScanner {
 
