@@ -115,9 +115,14 @@ class TestHygieneTest {
                 "    assertFalse(ok && v > 0.9 * bv);",
                 "    assertTrue(rms < RMS_LIMIT_V && rows > 60, \"0.5e-3\");",
                 "    assertTrue(x > 0.0 && seconds < 60);",
+                "    if (error > half * (1 + 1e-12)) {",
+                "      fail(\"beyond half a unit\");",
+                "    }",
+                "    if (error > 1e-12) throw new AssertionError(error);",
+                "    if (x > 0.5) { y = 1; }",
                 "  }",
                 "}"));
-        assertEquals(List.of(3, 4), lines(f), f.toString());
+        assertEquals(List.of(3, 4, 7, 10), lines(f), f.toString());
         assertTrue(f.stream().allMatch(x -> x.rule().equals("condition-bound")), f.toString());
     }
 

@@ -24,7 +24,8 @@ import java.util.regex.Pattern;
  *       ({@code <}, {@code <=}, {@code >}, {@code >=}) of {@code Math.abs(...)} against an operand that contains
  *       a numeric literal other than 0 ({@code Math.abs(a - b) < 1e-3}); the bound must be a named constant.</li>
  *   <li><b>Bare bound in a condition</b> (rule {@code condition-bound}). In the condition (first argument) of
- *       {@code assertTrue} or {@code assertFalse}, each part between {@code &&} and {@code ||} that holds a
+ *       {@code assertTrue} or {@code assertFalse}, or of an {@code if} whose body starts with {@code fail(...)} or
+ *       {@code throw new AssertionError(...)}, each part between {@code &&} and {@code ||} that holds a
  *       comparison must not hold a floating-point literal (one with a decimal point or an exponent) other than
  *       {@code 0.0}: {@code assertTrue(rms < 0.5e-3)} and {@code assertTrue(v > 0.9 * bv)} are findings. Integer
  *       literals are counts ({@code rows > 60}, {@code seconds < 60}) and are not.</li>
@@ -64,7 +65,9 @@ public final class TestSourceScanner {
     private static final Pattern NAME = Pattern.compile("\\b[A-Z][A-Z0-9_]*[A-Z0-9]\\b");
     /** An array index such as {@code [1]}: a position, not a quantity. */
     private static final Pattern INDEX = Pattern.compile("\\[[^\\[\\]]*\\]");
-    private static final Pattern CONDITION = Pattern.compile("\\b(assertTrue|assertFalse)\\s*\\(");
+    private static final Pattern CONDITION = Pattern.compile("\\b(assertTrue|assertFalse|if)\\s*\\(");
+    /** The start of a body that fails the test at once: {@code fail(...)} or {@code throw new AssertionError(...)}. */
+    private static final Pattern FAILS = Pattern.compile("\\{?\\s*(fail\\s*\\(|throw\\s+new\\s+AssertionError\\b)");
     /** A comparison operator: not a shift, not a lambda arrow, not part of {@code <=>}-like text. */
     private static final Pattern COMPARISON = Pattern.compile("(?<![<>\\-])(<=?|>=?)(?![<>])");
     private static final Pattern ABS = Pattern.compile("\\bMath\\.abs\\s*\\(");
@@ -164,6 +167,9 @@ public final class TestSourceScanner {
                 continue;
             }
             int[] first = args.get(0);
+            if (m.group(1).equals("if") && !failsAfter(code, first[1] + 1)) {
+                continue; // an if whose body does not fail the test at once is ordinary code
+            }
             String condition = code.substring(first[0], first[1]);
             for (String atom : condition.split("&&|\\|\\|")) {
                 if (!COMPARISON.matcher(atom).find() || ABS.matcher(atom).find()) {
@@ -177,6 +183,10 @@ public final class TestSourceScanner {
                 }
             }
         }
+    }
+
+    private static boolean failsAfter(String code, int from) {
+        return FAILS.matcher(code).region(Math.min(skipSpace(code, from), code.length()), code.length()).lookingAt();
     }
 
     /** The first floating-point literal (with a decimal point or an exponent) in {@code code} that is not zero, or null. */
