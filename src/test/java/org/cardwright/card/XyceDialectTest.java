@@ -18,7 +18,7 @@ import org.junit.jupiter.api.Test;
 class XyceDialectTest {
     /** TBV1 is written to 7 significant digits (3.548387e-4): TCV = -TBV1 BV is good to about 1e-10 V/K [V/K]. */
     private static final double TCV_FROM_SEVEN_DIGITS = 1e-9;
-    /** TCV = -TBV1 BV from exact decimal inputs: double rounding only [V/K]. */
+    /** TCV = -TBV1 BV from exact decimal inputs: double rounding only, with room (about 1000 ulp of 5 mV/K) [V/K]. */
     private static final double TCV_ROUNDING = 1e-15;
     private static final DiodeParameters ZENER = DiodeParameters.of(Map.of(Param.IS, 3e-15, Param.N, 1.01,
             Param.ISR, 2e-11, Param.BV, 6.2, Param.IBV, 5e-4, Param.NBV, 3.0, Param.TCV, -2.2e-3, Param.TNOM, 300.15));

@@ -26,11 +26,17 @@ class CompareBiasConventionTest {
     /** Built-in engine against ngspice 39 on the same card: both solve the same equations in double precision,
      * ngspice to its default RELTOL 1e-3 of the branch current, which is a few tens of microvolts in breakdown [V]. */
     private static final double NGSPICE_VOLTS = 1e-3;
-    /** The expected capacitance is checked to ten times PRINTED_RELATIVE: the printout's last decimal and the law's own rounding [1]. */
+    /**
+     * The expected capacitance is checked to ten times PRINTED_RELATIVE: the printout's last decimal and the law's own
+     * rounding [1].
+     */
     private static final double PRINTED_CAPACITANCE_FACTOR = 10;
     /** The printed B/A ratio has 4 significant digits: 1e-3 relative covers its rounding [1]. */
     private static final double PRINTED_RATIO_RELATIVE = 1e-3;
-    /** The closed-form breakdown iteration stops when the current is within 0.1 % of IBV; the voltage then moves far below 0.1 mV [1]. */
+    /**
+     * The closed-form breakdown iteration stops when the current is within 0.1 % of IBV; the voltage then moves far
+     * below 0.1 mV [1].
+     */
     private static final double KNEE_ITERATION_RELATIVE = 1e-3;
     /** The leaky 5.1 V zener's breakdown lies above 5 V; the reported fault gave a point a few mV from zero [V]. */
     private static final double BREAKDOWN_SEEN_V = 5.0;

@@ -40,7 +40,10 @@ class CompareAgainstNgspiceTest {
     /** Relative agreement of leakage and capacitance between the two engines [1]: both solve the same equations
      * to far better than this; ngspice's tight RELTOL 1e-7 is the larger error. */
     private static final double ENGINE_RELATIVE = 1e-5;
-    /** The plan's forward-voltage limit: a difference beyond 5 mV is flagged (an input of this test, not a tolerance) [V]. */
+    /**
+     * The plan's forward-voltage limit: a difference beyond 5 mV is flagged (an input of this test, not a tolerance)
+     * [V].
+     */
     private static final double FORWARD_LIMIT_V = 5e-3;
     /** 1 mV: the two invented cards must differ by more than this somewhere, or the comparison proves nothing [V]. */
     private static final double CARDS_DIFFER_V = 1e-3;

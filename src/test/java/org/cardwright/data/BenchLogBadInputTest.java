@@ -24,7 +24,7 @@ import org.junit.jupiter.params.provider.CsvSource;
  * value, and nothing else: no points are returned.
  */
 class BenchLogBadInputTest {
-    /** A current of a few mA from decimal cells: double rounding only, about 1e-18 A (a few ulp) [A]. */
+    /** A current of about 4.3 mA from decimal cells: double rounding only, about one ulp (8.7e-19 A) [A]. */
     private static final double CURRENT_ROUNDING_A = 1e-18;
 
     private static Path folder() {

@@ -19,11 +19,14 @@ import org.junit.jupiter.api.Test;
 class GivenConditionsTest {
     /** Decimal arithmetic on the cells, then one rounding to double: a few ulps of a volt [V]. */
     private static final double EXACT_V = 1e-12;
-    /** A current of a few mA from decimal arithmetic: a few ulp [A]. */
+    /** A current of about 4.3 mA from decimal arithmetic: double rounding only, with room (about 1000 ulp) [A]. */
     private static final double CURRENT_ROUNDING_A = 1e-15;
-    /** A capacitance of 1.5 pF read from a decimal with a suffix: a few ulp [F]. */
+    /** A capacitance of 1.5 pF read from a decimal with a suffix: double rounding only, about 5 ulp [F]. */
     private static final double CAPACITANCE_ROUNDING_F = 1e-27;
-    /** A frequency of 1 MHz read from a decimal with a unit or suffix: a few ulp [Hz]. */
+    /**
+     * 1 MHz read from a decimal with a unit or suffix: 1 uHz, far above double rounding (ulp 1.2e-10 Hz) and far below
+     * a misread unit [Hz].
+     */
     private static final double FREQUENCY_ROUNDING_HZ = 1e-6;
     private static final String DEVICE = "device file lib/X.device.yaml (data entry at line 7)";
 

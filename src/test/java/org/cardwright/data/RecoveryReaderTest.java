@@ -13,9 +13,15 @@ import org.junit.jupiter.api.Test;
 /** Reading reverse-recovery records. */
 class RecoveryReaderTest {
     private static final Path FIXTURES = Simulators.projectDir().resolve("fixtures");
-    /** 10 mA read from a decimal with a suffix: a few ulp [A]. */
+    /**
+     * 10 mA read from a decimal with a suffix: below one ulp (1.7e-18 A), so the reading must be the nearest double
+     * [A].
+     */
     private static final double CURRENT_ROUNDING_A = 1e-18;
-    /** A recovery time of a few ns read from a decimal with a suffix: a few ulp [s]. */
+    /**
+     * A recovery time of 2.783 ns read from a decimal with a suffix: double rounding only, with room (about 2400 ulp)
+     * [s].
+     */
     private static final double TIME_ROUNDING_S = 1e-21;
 
     @Test

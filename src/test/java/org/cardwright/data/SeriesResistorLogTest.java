@@ -19,9 +19,9 @@ import org.junit.jupiter.api.Test;
 class SeriesResistorLogTest {
     /** Double arithmetic against a 30-digit decimal computation: rounding only, well below 1e-12 [1]. */
     private static final double ROUNDING = 1e-12;
-    /** A current of 50-450 nA from one division: a few ulp [A]. */
+    /** A current of 50-450 nA from one division: double rounding only, 2 to 15 ulp [A]. */
     private static final double NANOAMP_ROUNDING_A = 1e-22;
-    /** A current of a few mA from decimal arithmetic: a few ulp [A]. */
+    /** A current of about 4.3 mA from decimal arithmetic: double rounding only, about one ulp (8.7e-19 A) [A]. */
     private static final double MILLIAMP_ROUNDING_A = 1e-18;
     /** Monte Carlo draws per point, as issue 4 asks [1]. */
     private static final int DRAWS = 1000;

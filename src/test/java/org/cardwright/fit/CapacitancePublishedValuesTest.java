@@ -37,7 +37,7 @@ class CapacitancePublishedValuesTest {
     private static final double M_TOLERANCE = 5e-6;
     /** The table is printed to six significant digits; the check compares to the last printed one of 0.333333. */
     private static final double M_PRINTED_TOLERANCE = 5e-7 + M_TOLERANCE;
-    /** About 1e-29 F is a few ulp of a sigma of 70 fF: double rounding of the stated formula only [F]. */
+    /** Below one ulp of a 70 fF sigma (1.3e-29 F): the code must give the stated formula's own double [F]. */
     private static final double SIGMA_ROUNDING_F = 1e-30;
 
     static List<CapacitancePoint> points(double strayFarads) {

@@ -34,7 +34,10 @@ class CapacitanceRoundTripTest {
     private static final double EXACT_CURVE_TOLERANCE_PERCENT = 1e-4;
     /** Noise-free: parameters back to 1e-5 relative (limited by the optimiser's stopping rule). */
     private static final double EXACT_PARAMETER_TOLERANCE = 1e-5;
-    /** Reduced chi-square within 0.35 of 1: a few times its sampling spread sqrt(2/dof) at this fit's degrees of freedom [1]. */
+    /**
+     * Reduced chi-square within 0.35 of 1: a few times its sampling spread sqrt(2/dof) at this fit's degrees of
+     * freedom [1].
+     */
     private static final double CHI_SQUARE_SPREAD = 0.35;
     /** Test-signal frequency [Hz]. */
     private static final double FREQUENCY = 1e6;

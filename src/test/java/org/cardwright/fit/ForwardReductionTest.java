@@ -42,7 +42,10 @@ class ForwardReductionTest {
      * rows average the 0.15-0.35 mV noise down by two orders of magnitude.
      */
     private static final double FORWARD_TOLERANCE = 30e-6;
-    /** The bin count may differ by 2 from 25 a decade over two sweeps: a decade's edge adds or drops a bin per sweep [bins]. */
+    /**
+     * The bin count may differ by 2 from 25 a decade over two sweeps: a decade's edge adds or drops a bin per sweep
+     * [bins].
+     */
     private static final double BIN_COUNT_SLACK = 2;
 
     @Test

@@ -189,7 +189,10 @@ public final class TestSourceScanner {
         return FAILS.matcher(code).region(Math.min(skipSpace(code, from), code.length()), code.length()).lookingAt();
     }
 
-    /** The first floating-point literal (with a decimal point or an exponent) in {@code code} that is not zero, or null. */
+    /**
+     * The first floating-point literal (with a decimal point or an exponent) in {@code code} that is not zero, or
+     * null.
+     */
     static String nonZeroFloat(String code) {
         String outsideIndices = code;
         for (String before = null; !outsideIndices.equals(before); ) {

@@ -22,9 +22,15 @@ class DeviceFileReaderTest {
     private static final double ZERO_CELSIUS = 273.15;
     /** Tolerance of a temperature read from text and shifted by 273.15 K [K]: a few ulp. */
     private static final double KELVIN_TOLERANCE = 1e-12;
-    /** A number read from the YAML text as a decimal: double rounding only [1, in the value's own unit]. */
+    /**
+     * A number of order 1e-3 to 1e-2 read from the YAML text as a decimal: double rounding only, with room [1, in the
+     * value's own unit].
+     */
     private static final double DECIMAL_ROUNDING = 1e-15;
-    /** 25 degC in kelvin from the device file's temperature: decimal rounding only [K]. */
+    /**
+     * 25 degC in kelvin from the device file's temperature: double rounding only, with room (ulp of 298 K is 5.7e-14
+     * K) [K].
+     */
     private static final double BENCH_LOG_KELVIN_TOLERANCE = 1e-9;
 
     private static final String GOOD = String.join("\n",

@@ -14,7 +14,10 @@ import org.junit.jupiter.api.Test;
 
 /** A device file may list recovery records and bench logs as well as I-V and C-V files; the build fits them all. */
 class LibraryAllKindsTest {
-    /** TT from records with up to 1 % reading error (fixtures/recovery): within 2 % of the 4.0 ns they were written from [1]. */
+    /**
+     * TT from records with up to 1 % reading error (fixtures/recovery): within 2 % of the 4.0 ns they were written
+     * from [1].
+     */
     private static final double TT_RELATIVE = 0.02;
     @Test
     void recoveryRecordsAndBenchLogsReachTheCard() throws Exception {

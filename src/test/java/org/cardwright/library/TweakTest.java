@@ -27,7 +27,7 @@ class TweakTest {
     private static final double SAME_FIT_RELATIVE = 1e-12;
     /** The fitted and tweaked values are printed to 7 significant digits: 1e-6 relative covers their rounding [1]. */
     private static final double SEVEN_DIGITS_RELATIVE = 1e-6;
-    /** A tweak applied to a decimal value: double rounding only [ohm]. */
+    /** A tweak applied to a value of about 2 ohm: double rounding only, about 2 ulp [ohm]. */
     private static final double TWEAK_ROUNDING_OHM = 1e-15;
 
     private static Path part() throws Exception {

@@ -36,7 +36,10 @@ import org.junit.jupiter.api.TestInstance;
 @TestInstance(TestInstance.Lifecycle.PER_CLASS)
 class LotJobTest {
     private static final int PARTS = 16;
-    /** A drawn lot's mean scatters about the stated mean by std/sqrt(n): three standard errors hold it (common practice, no source) [1]. */
+    /**
+     * A drawn lot's mean scatters about the stated mean by std/sqrt(n): three standard errors hold it (common
+     * practice, no source) [1].
+     */
     private static final double STANDARD_ERRORS = 3;
     private Path dir;
     private LotGenerator.Lot lot;

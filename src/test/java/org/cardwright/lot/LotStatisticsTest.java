@@ -11,7 +11,10 @@ class LotStatisticsTest {
     private static final double TABLE_DIGITS = 2e-6;
     /** Jacobi rotations converge to double precision on a 2 x 2 matrix [1]. */
     private static final double EIGEN_TOLERANCE = 1e-12;
-    /** z for 3.1e-5 in the upper tail is about 4.0 (normal table, from memory): a band that any correct quantile falls in [1]. */
+    /**
+     * z for 3.1e-5 in the upper tail is about 4.0 (normal table, from memory): a band that any correct quantile falls
+     * in [1].
+     */
     private static final double Z_TABLE_LOW = 3.9;
     /** Upper end of the band around the normal table's 4.0 [1]. */
     private static final double Z_TABLE_HIGH = 4.2;

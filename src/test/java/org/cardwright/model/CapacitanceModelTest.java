@@ -23,7 +23,10 @@ class CapacitanceModelTest {
     private static final double RELATIVE_TOLERANCE = 1e-6;
     /** Continuity at FC·VJ holds to rounding [1]. */
     private static final double ROUNDING = 1e-13;
-    /** The slip between the exact derivative and ngspice's gd must exceed the tolerance a thousandfold to be told apart [1]. */
+    /**
+     * The slip between the exact derivative and ngspice's gd must exceed the tolerance a thousandfold to be told apart
+     * [1].
+     */
     private static final double SLIP_VISIBLE_FACTOR = 1e3;
 
     /** Invented set with recombination (ISR, so the conductance slip shows), IKF, TT and TNOM != 27. */

@@ -18,11 +18,13 @@ class FlavourTest {
     private static final double DERIVATIVE_FLOOR_S = 1e-18;
     /** Half a unit in the last printed digit of the reference's "2.8e-5 relative" [1]. */
     private static final double KQ_RATIO_TOLERANCE = 0.05e-5;
-    /** Double rounding of a thermal voltage of about 30 mV: a few ulp [V]. */
+    /** Below one ulp of a 30 mV thermal voltage (3.5e-18 V): the same product k/q T must give the same double [V]. */
     private static final double VT_ROUNDING_V = 1e-18;
-    /** Double rounding of a current of about 2e-11 A: a few ulp [A]. */
+    /** A current of about 2e-11 A: double rounding only, with room (about 300 ulp) [A]. */
     private static final double CURRENT_ROUNDING_A = 1e-24;
-    /** 5 %: ngspice's CJO temperature law moves C at 125 degC far more than this (the check only needs "it moves") [1]. */
+    /**
+     * 5 %: ngspice's CJO temperature law moves C at 125 degC far more than this (the check only needs "it moves") [1].
+     */
     private static final double SCALING_SEEN = 0.05;
     private static final DiodeParameters KNEE = DiodeParameters.of(Map.of(Param.IS, 1e-14, Param.IKF, 1e-2));
 

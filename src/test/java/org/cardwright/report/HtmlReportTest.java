@@ -86,11 +86,11 @@ class HtmlReportTest {
     private static final double TWO_ROUNDINGS_PX = 0.2;
     /** Two distances from zero, each of two coordinates rounded to 0.1 px, differ by at most about 0.1 px [px]. */
     private static final double DISTANCE_ROUNDING_PX = 0.11;
-    /** A frame value in farads from decimal tick arithmetic: double rounding only [F]. */
+    /** A frame value of 50-200 pF from decimal tick arithmetic: double rounding only, 40 to 150 ulp [F]. */
     private static final double FARAD_ROUNDING = 1e-24;
-    /** A nice step of order 1 from decimal arithmetic: double rounding only [1]. */
+    /** A nice step of 0.5 from decimal arithmetic: double rounding only, about 9 ulp [1]. */
     private static final double UNIT_STEP_ROUNDING = 1e-15;
-    /** A nice step of order 1e-3 from decimal arithmetic: double rounding only [1]. */
+    /** A nice step of 2e-3 from decimal arithmetic: double rounding only, about 2 ulp [1]. */
     private static final double MILLI_STEP_ROUNDING = 1e-18;
     /** The top tick is at least the largest residual, less 1 % for the tick label's rounding [1]. */
     private static final double TOP_TICK_FRACTION = 0.99;

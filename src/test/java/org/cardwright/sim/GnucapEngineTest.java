@@ -54,9 +54,9 @@ class GnucapEngineTest {
     private static final double FORCED_VOLTAGE_TOLERANCE = 1e-8;
     /** "Far larger": the disagreement without the XTI conversion must exceed the bound by this factor [1]. */
     private static final double FAR_LARGER = 10;
-    /** A picofarad-scale number read from gnucap's suffix form: double rounding only [F]. */
+    /** A number of about 1e-9 read from gnucap's suffix form: double rounding only, about 5 ulp [1]. */
     private static final double PICO_ROUNDING = 1e-24;
-    /** A microampere-scale number read from gnucap's suffix form: double rounding only [A]. */
+    /** A number of about 330 uA read from gnucap's suffix form: double rounding only, about 20 ulp [1]. */
     private static final double MICRO_ROUNDING = 1e-18;
 
     private static final double[] TEMPERATURES_C = {-40, 27, 85, 125};
