@@ -27,6 +27,12 @@ class SpiceNumbersTest {
     /** Shape of a written number: suffix form (mantissa in [1, 1000)) or exponent form; lower-case suffixes. */
     private static final Pattern SUFFIX_FORM = Pattern.compile("-?[1-9][0-9]{0,2}(\\.[0-9]*[1-9])?(f|p|n|u|m|k|meg|g|t)?");
     private static final Pattern EXPONENT_FORM = Pattern.compile("-?[1-9](\\.[0-9]*[1-9])?e-?[0-9]+");
+    /** Smallest magnitude written with a suffix: 1 f (femto) [1]. */
+    private static final double SUFFIX_SMALLEST = 1e-15;
+    /** Magnitudes from 1e15 up are written in exponent form (the largest suffix is t, tera) [1]. */
+    private static final double SUFFIX_BEYOND = 1e15;
+    /** Relative slack on half a unit of the last digit: the decimal half unit itself is rounded to a double [1]. */
+    private static final double HALF_UNIT_ROUNDING = 1e-12;
 
     @ParameterizedTest(name = "{0} with {1} digits -> {2}")
     @CsvSource({
@@ -165,14 +171,14 @@ class SpiceNumbersTest {
             int exponent = exact.precision() - exact.scale() - 1;
             double halfUnit = 0.5 * Math.pow(10, exponent - digits + 1);
             double error = Math.abs(read - value);
-            if (error > halfUnit * (1 + 1e-12) + Math.ulp(value)) {
+            if (error > halfUnit * (1 + HALF_UNIT_ROUNDING) + Math.ulp(value)) {
                 fail("value " + value + " digits " + digits + ": wrote " + written + ", error " + error
                         + " exceeds half a unit " + halfUnit);
             }
             if (!SUFFIX_FORM.matcher(written).matches() && !EXPONENT_FORM.matcher(written).matches()) {
                 fail("value " + value + " digits " + digits + ": unexpected shape " + written);
             }
-            boolean suffixRange = Math.abs(read) >= 1e-15 && Math.abs(read) < 1e15;
+            boolean suffixRange = Math.abs(read) >= SUFFIX_SMALLEST && Math.abs(read) < SUFFIX_BEYOND;
             if (suffixRange != SUFFIX_FORM.matcher(written).matches()) {
                 fail("value " + value + ": " + written + " uses the wrong form for its magnitude");
             }

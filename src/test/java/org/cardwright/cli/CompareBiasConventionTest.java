@@ -26,6 +26,20 @@ class CompareBiasConventionTest {
     /** Built-in engine against ngspice 39 on the same card: both solve the same equations in double precision,
      * ngspice to its default RELTOL 1e-3 of the branch current, which is a few tens of microvolts in breakdown [V]. */
     private static final double NGSPICE_VOLTS = 1e-3;
+    /**
+     * The expected capacitance is checked to ten times PRINTED_RELATIVE: the printout's last decimal and the law's own
+     * rounding [1].
+     */
+    private static final double PRINTED_CAPACITANCE_FACTOR = 10;
+    /** The printed B/A ratio has 4 significant digits: 1e-3 relative covers its rounding [1]. */
+    private static final double PRINTED_RATIO_RELATIVE = 1e-3;
+    /**
+     * The closed-form breakdown iteration stops when the current is within 0.1 % of IBV; the voltage then moves far
+     * below 0.1 mV [1].
+     */
+    private static final double KNEE_ITERATION_RELATIVE = 1e-3;
+    /** The leaky 5.1 V zener's breakdown lies above 5 V; the reported fault gave a point a few mV from zero [V]. */
+    private static final double BREAKDOWN_SEEN_V = 5.0;
 
     /** A leaky 5.1 V zener: IS(125 degC) is about 3 uA, three times its IBV of 1 uA (invented values). */
     private static final String LEAKY = ".model ZLEAK D(IS=1e-8 N=2 BV=5.1 IBV=1e-6 NBV=2 CJO=100p VJ=0.7 M=0.4)\n";
@@ -49,7 +63,7 @@ class CompareBiasConventionTest {
         double pf = column(section(r.out(), "Capacitance"), 27.0, 0);
         // depletion law at TNOM: C = CJO (1 + VR/VJ)^-M (Shockley's abrupt/graded junction, any device text)
         double expected = 100 * Math.pow(1 + 5 / 0.7, -0.4);
-        assertEquals(expected, pf, PRINTED_RELATIVE * expected * 10, r.out());
+        assertEquals(expected, pf, PRINTED_RELATIVE * expected * PRINTED_CAPACITANCE_FACTOR, r.out());
         assertTrue(r.out().contains("VR [V]"), r.out());
     }
 
@@ -79,7 +93,7 @@ class CompareBiasConventionTest {
             double got = column(bd, c, 0);
             double want = leakyBreakdown(c + 273.15, 1e-6);
             assertEquals(want, got, PRINTED_VOLTS, "card A at " + c + " degC (printed to 0.1 mV)\n" + r.out());
-            assertTrue(got > 5.0, "a breakdown voltage, not a point a few mV from zero: " + got);
+            assertTrue(got > BREAKDOWN_SEEN_V, "a breakdown voltage, not a point a few mV from zero: " + got);
         }
         // a note, so on stderr (results on stdout)
         assertTrue(r.err().contains("at 125.0 degC card A's reverse current below the knee"), r.describe());
@@ -111,7 +125,7 @@ class CompareBiasConventionTest {
         double ib = column(leak, 25.0, 1);
         double ratio = column(leak, 25.0, 2);
         assertTrue(ib < ia, "the tight card B leaks less than A");
-        assertEquals(ib / ia, ratio, 1e-3 * ratio, "the column is B over A, below 1 here\n" + r.out());
+        assertEquals(ib / ia, ratio, PRINTED_RATIO_RELATIVE * ratio, "the column is B over A, below 1 here\n" + r.out());
     }
 
     @Test
@@ -152,7 +166,7 @@ class CompareBiasConventionTest {
             for (int k = 0; k < 25; k++) {
                 x = bv - nbv * vt * Math.log(ibv / is + 1 - x / vt);
                 double ix = is * (Math.exp((bv - x) / (nbv * vt)) - 1 + x / vt);
-                if (Math.abs(ix - ibv) <= 1e-3 * ibv) {
+                if (Math.abs(ix - ibv) <= KNEE_ITERATION_RELATIVE * ibv) {
                     break;
                 }
             }

@@ -40,6 +40,15 @@ class CompareAgainstNgspiceTest {
     /** Relative agreement of leakage and capacitance between the two engines [1]: both solve the same equations
      * to far better than this; ngspice's tight RELTOL 1e-7 is the larger error. */
     private static final double ENGINE_RELATIVE = 1e-5;
+    /**
+     * The plan's forward-voltage limit: a difference beyond 5 mV is flagged (an input of this test, not a tolerance)
+     * [V].
+     */
+    private static final double FORWARD_LIMIT_V = 5e-3;
+    /** 1 mV: the two invented cards must differ by more than this somewhere, or the comparison proves nothing [V]. */
+    private static final double CARDS_DIFFER_V = 1e-3;
+    /** Picks the 25 degC row: temperatures are held as kelvin doubles computed the same way [K]. */
+    private static final double SAME_TEMPERATURE_K = 1e-9;
     private static final List<Double> CELSIUS = List.of(-40.0, 25.0, 125.0);
     /** Longest ngspice may take [s]. */
     private static final long NGSPICE_TIMEOUT = 60;
@@ -53,7 +62,7 @@ class CompareAgainstNgspiceTest {
     private static ComparisonPlan plan() {
         List<Double> k = CELSIUS.stream().map(c -> c + Ngspice39.CELSIUS_TO_KELVIN).toList();
         return new ComparisonPlan(k, 1e-9, 1e-1, List.of(1.0, 5.0, 20.0), List.of(0.0, 1.0, 5.0, 10.0),
-                ComparisonPlan.DEFAULT_FREQUENCY, new ComparisonLimits(5e-3, 2, 0.1, 0.02));
+                ComparisonPlan.DEFAULT_FREQUENCY, new ComparisonLimits(FORWARD_LIMIT_V, 2, 0.1, 0.02));
     }
 
     private static CardComparison builtin() throws Exception {
@@ -112,7 +121,7 @@ class CompareAgainstNgspiceTest {
             assertEquals(theirs, ours, AGREEMENT, String.format(Locale.ROOT, "B-A at %.0e A, %.1f K", r.current(), r.temperature()));
         }
         System.out.printf(Locale.ROOT, "compare vs ngspice: largest forward-voltage difference disagreement %.3e V over 27 rows%n", worst);
-        assertTrue(c.forward().stream().anyMatch(r -> Math.abs(r.difference()) > 1e-3), "the cards must differ for the test to mean anything");
+        assertTrue(c.forward().stream().anyMatch(r -> Math.abs(r.difference()) > CARDS_DIFFER_V), "the cards must differ for the test to mean anything");
     }
 
     @Test
@@ -146,7 +155,7 @@ class CompareAgainstNgspiceTest {
         assertEquals(12, c.capacitance().size());
         assertEquals(3, c.breakdown().size());
         for (CardComparison.ForwardRow r : c.forward()) {
-            assertEquals(Math.abs(r.difference()) > 5e-3, r.flagged());
+            assertEquals(Math.abs(r.difference()) > FORWARD_LIMIT_V, r.flagged());
         }
         for (CardComparison.BreakdownRow r : c.breakdown()) {
             // BV 110 V against 105 V: about 4.5 % apart, beyond the 2 % limit
@@ -155,7 +164,7 @@ class CompareAgainstNgspiceTest {
         }
         // zero-bias capacitance at TNOM-like 25 degC: 180 pF against about 170 pF, within 10 %
         CardComparison.CapacitanceRow zero = c.capacitance().stream()
-                .filter(r -> r.reverseVoltage() == 0 && Math.abs(r.temperature() - 298.15) < 1e-9).findFirst().orElseThrow();
+                .filter(r -> r.reverseVoltage() == 0 && Math.abs(r.temperature() - 298.15) < SAME_TEMPERATURE_K).findFirst().orElseThrow();
         assertFalse(zero.flagged(), zero.toString());
     }
 

@@ -24,6 +24,8 @@ import org.junit.jupiter.params.provider.CsvSource;
  * value, and nothing else: no points are returned.
  */
 class BenchLogBadInputTest {
+    /** A current of about 4.3 mA from decimal cells: double rounding only, about one ulp (8.7e-19 A) [A]. */
+    private static final double CURRENT_ROUNDING_A = 1e-18;
 
     private static Path folder() {
         Path folder = BadFixtures.folder().getParent().resolve("bench").resolve("bad");
@@ -90,14 +92,14 @@ class BenchLogBadInputTest {
         MeasurementFile f = new MeasurementReader(ReadOptions.defaults().withMeterResistance(10e6)).read(fixture);
         assertEquals(1, f.iv().size());
         // I = (5 - 0.71348) / 1000 - 0.71348 / 1e7, with Rsource 0 as the file states none
-        assertEquals(4.28652e-3 - 7.1348e-8, f.iv().get(0).current(), 1e-18);
+        assertEquals(4.28652e-3 - 7.1348e-8, f.iv().get(0).current(), CURRENT_ROUNDING_A);
     }
 
     @Test
     void withTheCorrectionOffAMissingMeterResistanceIsNoted() throws Exception {
         Path fixture = folder().resolve("missing-meter-resistance.csv");
         MeasurementFile f = new MeasurementReader(ReadOptions.defaults().withoutMeterLoadingCorrection()).read(fixture);
-        assertEquals(4.28652e-3, f.iv().get(0).current(), 1e-18);
+        assertEquals(4.28652e-3, f.iv().get(0).current(), CURRENT_ROUNDING_A);
         assertTrue(f.notices().stream().anyMatch(n -> n.message().contains("meter loading NOT corrected")
                 && n.message().contains("not known")), f.notices().toString());
     }

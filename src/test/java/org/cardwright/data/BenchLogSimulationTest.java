@@ -33,6 +33,10 @@ class BenchLogSimulationTest {
     private static final double METER_ROUNDING = 0.5e-6;
     /** Series resistance of the top decade in the log [ohm]. */
     private static final double TOP_DECADE = 10e6;
+    /** Slack on METER_ROUNDING for the double rounding of the comparison itself (1 pV) [V]. */
+    private static final double COMPARISON_ROUNDING_V = 1e-12;
+    /** The truth file writes 16 significant digits: equal to the simulated value within 1e-15 relative [1]. */
+    private static final double SIXTEEN_DIGITS = 1e-15;
     /** Time limit for the 28 operating points, which take well under a second here. */
     private static final Duration TIMEOUT = Duration.ofSeconds(60);
 
@@ -67,7 +71,7 @@ class BenchLogSimulationTest {
             double trueCurrent = sim.get(k)[2];
             IvPoint c = corrected.iv().get(k);
             IvPoint r = raw.iv().get(k);
-            assertTrue(Math.abs(c.voltage() - trueVoltage) <= METER_ROUNDING + 1e-12,
+            assertTrue(Math.abs(c.voltage() - trueVoltage) <= METER_ROUNDING + COMPARISON_ROUNDING_V,
                     "line " + c.line() + ": the log's Vmeter is the simulated v(d) rounded to 1 uV");
             double errCorrected = Math.abs(c.current() / trueCurrent - 1);
             double errRaw = Math.abs(r.current() / trueCurrent - 1);
@@ -105,8 +109,8 @@ class BenchLogSimulationTest {
         assertEquals(sim.size(), truth.iv().size());
         for (int k = 0; k < sim.size(); k++) {
             // written with 16 significant digits: equal to the simulated value within 1e-15 relative
-            assertEquals(sim.get(k)[1], truth.iv().get(k).voltage(), 1e-15 * Math.abs(sim.get(k)[1]));
-            assertEquals(sim.get(k)[2], truth.iv().get(k).current(), 1e-15 * Math.abs(sim.get(k)[2]));
+            assertEquals(sim.get(k)[1], truth.iv().get(k).voltage(), SIXTEEN_DIGITS * Math.abs(sim.get(k)[1]));
+            assertEquals(sim.get(k)[2], truth.iv().get(k).current(), SIXTEEN_DIGITS * Math.abs(sim.get(k)[2]));
         }
     }
 

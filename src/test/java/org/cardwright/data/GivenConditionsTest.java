@@ -19,6 +19,15 @@ import org.junit.jupiter.api.Test;
 class GivenConditionsTest {
     /** Decimal arithmetic on the cells, then one rounding to double: a few ulps of a volt [V]. */
     private static final double EXACT_V = 1e-12;
+    /** A current of about 4.3 mA from decimal arithmetic: double rounding only, with room (about 1000 ulp) [A]. */
+    private static final double CURRENT_ROUNDING_A = 1e-15;
+    /** A capacitance of 1.5 pF read from a decimal with a suffix: double rounding only, about 5 ulp [F]. */
+    private static final double CAPACITANCE_ROUNDING_F = 1e-27;
+    /**
+     * 1 MHz read from a decimal with a unit or suffix: 1 uHz, far above double rounding (ulp 1.2e-10 Hz) and far below
+     * a misread unit [Hz].
+     */
+    private static final double FREQUENCY_ROUNDING_HZ = 1e-6;
     private static final String DEVICE = "device file lib/X.device.yaml (data entry at line 7)";
 
     private static Path file(String name, String... lines) throws IOException {
@@ -59,7 +68,7 @@ class GivenConditionsTest {
                 .with(Condition.TEMPERATURE, Condition.TEMPERATURE.parse("85"), DEVICE);
         MeasurementFile f = new MeasurementReader(ReadOptions.defaults()).read(log, given);
         // Kirchhoff's current law at the diode node (docs/bench-logs.md): (5 - 0.65) / 1000 - 0.65 / 10e6
-        assertEquals((5 - 0.65) / 1000 - 0.65 / 10e6, f.iv().get(0).current(), 1e-15);
+        assertEquals((5 - 0.65) / 1000 - 0.65 / 10e6, f.iv().get(0).current(), CURRENT_ROUNDING_A);
         assertEquals(85 + 273.15, f.iv().get(0).temperature(), EXACT_V);
         assertTrue(f.notices().stream().anyMatch(n -> n.toString().contains("every point is at the temperature given by "
                 + DEVICE)), f.notices().toString());
@@ -67,10 +76,10 @@ class GivenConditionsTest {
 
     @Test
     void valuesAreReadAsSettingsAre() {
-        assertEquals(1.5e-12, Condition.STRAY_CAPACITANCE.parse("1.5 pF"), 1e-27);
-        assertEquals(1.5e-12, Condition.STRAY_CAPACITANCE.parse("1.5p"), 1e-27);
-        assertEquals(1e6, Condition.TEST_FREQUENCY.parse("1 MHz"), 1e-6);
-        assertEquals(1e6, Condition.TEST_FREQUENCY.parse("1meg"), 1e-6);
+        assertEquals(1.5e-12, Condition.STRAY_CAPACITANCE.parse("1.5 pF"), CAPACITANCE_ROUNDING_F);
+        assertEquals(1.5e-12, Condition.STRAY_CAPACITANCE.parse("1.5p"), CAPACITANCE_ROUNDING_F);
+        assertEquals(1e6, Condition.TEST_FREQUENCY.parse("1 MHz"), FREQUENCY_ROUNDING_HZ);
+        assertEquals(1e6, Condition.TEST_FREQUENCY.parse("1meg"), FREQUENCY_ROUNDING_HZ);
         assertEquals(1, Condition.REVERSE_MAGNITUDES.parse("yes"));
         assertEquals(0, Condition.REVERSE_MAGNITUDES.parse("No"));
         assertThrows(IllegalArgumentException.class, () -> Condition.TEST_FREQUENCY.parse("0 Hz"));

@@ -4,18 +4,25 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.nio.file.Path;
+import java.util.List;
 import java.util.Random;
+import org.cardwright.testsupport.ReferenceTable;
 import org.cardwright.testsupport.Simulators;
 import org.junit.jupiter.api.Test;
 
 /**
  * Kirchhoff's current law at the diode node of a series-resistor log, and the first-order propagation of the
  * stated tolerances: against the worked example of docs/bench-logs.md (computed apart from this code, with
- * Python's decimal module at 30 digits) and against a Monte Carlo of the same tolerances.
+ * Python's decimal module at 30 digits, by verify/tools/bench_log_worked_example.py) and against a Monte Carlo of
+ * the same tolerances.
  */
 class SeriesResistorLogTest {
     /** Double arithmetic against a 30-digit decimal computation: rounding only, well below 1e-12 [1]. */
     private static final double ROUNDING = 1e-12;
+    /** A current of 50-450 nA from one division: double rounding only, 2 to 15 ulp [A]. */
+    private static final double NANOAMP_ROUNDING_A = 1e-22;
+    /** A current of about 4.3 mA from decimal arithmetic: double rounding only, about one ulp (8.7e-19 A) [A]. */
+    private static final double MILLIAMP_ROUNDING_A = 1e-18;
     /** Monte Carlo draws per point, as issue 4 asks [1]. */
     private static final int DRAWS = 1000;
     /**
@@ -40,15 +47,29 @@ class SeriesResistorLogTest {
             {1, 10, 0.766635}, {10, 10, 1.205293}, {5, 1e3, 0.713480}, {5, 1e5, 0.588291},
             {2, 10e6, 0.427678}, {10, 10e6, 0.483408}};
 
+    /**
+     * The worked example's I, meter current, u(I), u(V) and correlation, from
+     * src/test/resources/reference/bench-log-worked-example.csv (made by verify/tools/bench_log_worked_example.py).
+     */
+    private static final String WORKED_EXAMPLE = "/reference/bench-log-worked-example.csv";
+
+    private static double[] workedExample() {
+        List<double[]> rows = ReferenceTable.rows(WORKED_EXAMPLE);
+        assertEquals(1, rows.size(), WORKED_EXAMPLE);
+        assertEquals(5, rows.get(0).length, WORKED_EXAMPLE);
+        return rows.get(0);
+    }
+
     @Test
     void workedExampleOfTheDocs() {
         SeriesResistorLog.Point p = SeriesResistorLog.solve(FIXTURE_BENCH, 5, 10e6, 0.461941);
-        // docs/bench-logs.md, worked example (Python decimal, 30 digits)
-        assertRelative(4.07611797730970511e-7, p.current(), "I");
-        assertRelative(4.61941e-8, p.meterCurrent(), "meter current");
-        assertRelative(3.91300055837721167e-10, p.currentSigma(), "sigma I");
-        assertRelative(1.22213129704385009e-5, p.voltageSigma(), "sigma V");
-        assertRelative(-0.00624651735033414169, p.correlation(), "correlation");
+        // docs/bench-logs.md, worked example (Python decimal, 30 digits; WORKED_EXAMPLE, source in its header)
+        double[] w = workedExample();
+        assertRelative(w[0], p.current(), "I");
+        assertRelative(w[1], p.meterCurrent(), "meter current");
+        assertRelative(w[2], p.currentSigma(), "sigma I");
+        assertRelative(w[3], p.voltageSigma(), "sigma V");
+        assertRelative(w[4], p.correlation(), "correlation");
         assertEquals(0.461941, p.voltage());
     }
 
@@ -57,10 +78,11 @@ class SeriesResistorLogTest {
         Path log = Simulators.projectDir().resolve("fixtures/bench/simulated-meter-loading.csv");
         MeasurementFile f = new MeasurementReader(ReadOptions.defaults()).read(log);
         IvPoint p = f.iv().stream().filter(x -> x.line() == 45).findFirst().orElseThrow();
-        assertRelative(4.07611797730970511e-7, p.current(), "I");
-        assertRelative(3.91300055837721167e-10, p.currentSigma(), "sigma I");
-        assertRelative(1.22213129704385009e-5, p.voltageSigma(), "sigma V");
-        assertRelative(-0.00624651735033414169, p.voltageCurrentCorrelation(), "correlation");
+        double[] w = workedExample();
+        assertRelative(w[0], p.current(), "I");
+        assertRelative(w[2], p.currentSigma(), "sigma I");
+        assertRelative(w[3], p.voltageSigma(), "sigma V");
+        assertRelative(w[4], p.voltageCurrentCorrelation(), "correlation");
         assertEquals(298.15, p.temperature());
     }
 
@@ -107,8 +129,8 @@ class SeriesResistorLogTest {
     void withoutTheCorrectionTheMeterCurrentStaysInAndIsStillReported() {
         SeriesResistorLog.Setup off = new SeriesResistorLog.Setup(10e6, 0, 0, 0, null, null, false);
         SeriesResistorLog.Point p = SeriesResistorLog.solve(off, 5, 10e6, 0.5);
-        assertEquals(4.5 / 10e6, p.current(), 1e-22);
-        assertEquals(0.5 / 10e6, p.meterCurrent(), 1e-22);
+        assertEquals(4.5 / 10e6, p.current(), NANOAMP_ROUNDING_A);
+        assertEquals(0.5 / 10e6, p.meterCurrent(), NANOAMP_ROUNDING_A);
     }
 
     @Test
@@ -118,7 +140,7 @@ class SeriesResistorLogTest {
         assertTrue(Double.isNaN(p.currentSigma()));
         assertTrue(Double.isNaN(p.voltageSigma()));
         assertEquals(0.0, p.correlation());
-        assertEquals(4.3 / 1e3 - 0.7 / 10e6, p.current(), 1e-18);
+        assertEquals(4.3 / 1e3 - 0.7 / 10e6, p.current(), MILLIAMP_ROUNDING_A);
     }
 
     @Test

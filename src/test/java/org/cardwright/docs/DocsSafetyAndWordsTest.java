@@ -22,6 +22,8 @@ import org.junit.jupiter.api.Test;
 class DocsSafetyAndWordsTest {
     /** The power figure in bench-logs.md is given to 0.1 W [W]. */
     private static final double POWER_ROUNDING = 0.05;
+    /** The current in the caution is given to 3 decimals of an ampere: half a unit of the last [A]. */
+    private static final double CURRENT_ROUNDING_A = 0.0005;
 
     private static String read(String file) throws Exception {
         return Files.readString(Simulators.projectDir().resolve(file));
@@ -55,7 +57,7 @@ class DocsSafetyAndWordsTest {
         double power = current * current * resistor;
         Matcher m = Pattern.compile("dissipates I²R = ([0-9.]+)² × ([0-9]+) ohm ≈ ([0-9.]+) W").matcher(caution);
         assertTrue(m.find(), caution);
-        assertEquals(current, Double.parseDouble(m.group(1)), 0.0005, "the current in the caution");
+        assertEquals(current, Double.parseDouble(m.group(1)), CURRENT_ROUNDING_A, "the current in the caution");
         assertEquals(resistor, Double.parseDouble(m.group(2)));
         assertEquals(power, Double.parseDouble(m.group(3)), POWER_ROUNDING, "the power in the caution");
         assertTrue(caution.contains(String.format(Locale.ROOT, "%.0f V drives", supply)), caution);

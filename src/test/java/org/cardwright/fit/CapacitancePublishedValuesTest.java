@@ -10,17 +10,19 @@ import java.util.Locale;
 import org.cardwright.model.DiodeParameters;
 import org.cardwright.model.Ngspice39;
 import org.cardwright.model.Param;
+import org.cardwright.testsupport.ReferenceTable;
 import org.junit.jupiter.api.Test;
 
 /**
  * The junction-capacitance check values of check-values.md: Cj = CJO/(1 + VR/VJ)^M with CJO = 0.4 pF,
  * VJ = 0.75 V, M = 1/3 (Sedra &amp; Smith, "Microelectronic Circuits", problem set; READ through a solutions
  * page) gives 0.400000, 0.301579, 0.259400, 0.202858, 0.164669 pF at VR = 0, 1, 2, 5, 10 V (COMPUTED, six
- * digits). Refitting these points must return the published parameters.
+ * digits; kept in src/test/resources/reference/depletion-capacitance.csv). Refitting these points must return
+ * the published parameters.
  */
 class CapacitancePublishedValuesTest {
-    private static final double[] REVERSE_VOLTAGE = {0, 1, 2, 5, 10};
-    private static final double[] PICOFARADS = {0.400000, 0.301579, 0.259400, 0.202858, 0.164669};
+    /** The published table: reverse voltage [V] and capacitance [pF], source in the file's header. */
+    private static final List<double[]> TABLE = ReferenceTable.rows("/reference/depletion-capacitance.csv");
     /** The published parameters. */
     private static final double CJO = 0.4e-12;
     private static final double VJ = 0.75;
@@ -35,11 +37,13 @@ class CapacitancePublishedValuesTest {
     private static final double M_TOLERANCE = 5e-6;
     /** The table is printed to six significant digits; the check compares to the last printed one of 0.333333. */
     private static final double M_PRINTED_TOLERANCE = 5e-7 + M_TOLERANCE;
+    /** Below one ulp of a 70 fF sigma (1.3e-29 F): the code must give the stated formula's own double [F]. */
+    private static final double SIGMA_ROUNDING_F = 1e-30;
 
     static List<CapacitancePoint> points(double strayFarads) {
         List<CapacitancePoint> pts = new ArrayList<>();
-        for (int i = 0; i < PICOFARADS.length; i++) {
-            pts.add(CapacitancePoint.withDefaultSigma(-REVERSE_VOLTAGE[i], PICOFARADS[i] * 1e-12 + strayFarads,
+        for (int i = 0; i < TABLE.size(); i++) {
+            pts.add(CapacitancePoint.withDefaultSigma(-TABLE.get(i)[0], TABLE.get(i)[1] * 1e-12 + strayFarads,
                     Ngspice39.REFERENCE_TEMPERATURE, "check-values.md", i + 1));
         }
         return pts;
@@ -100,6 +104,6 @@ class CapacitancePublishedValuesTest {
     @Test
     void defaultUncertaintyIsHalfAPercentPlusTwentyFemtofarads() {
         // an LCR meter's typical basic accuracy (common practice, no source)
-        assertEquals(0.005 * 10e-12 + 20e-15, CapacitancePoint.defaultSigma(10e-12), 1e-30);
+        assertEquals(0.005 * 10e-12 + 20e-15, CapacitancePoint.defaultSigma(10e-12), SIGMA_ROUNDING_F);
     }
 }

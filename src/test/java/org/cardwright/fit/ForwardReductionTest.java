@@ -42,6 +42,11 @@ class ForwardReductionTest {
      * rows average the 0.15-0.35 mV noise down by two orders of magnitude.
      */
     private static final double FORWARD_TOLERANCE = 30e-6;
+    /**
+     * The bin count may differ by 2 from 25 a decade over two sweeps: a decade's edge adds or drops a bin per sweep
+     * [bins].
+     */
+    private static final double BIN_COUNT_SLACK = 2;
 
     @Test
     void dataUpToTheLimitAreFittedUnchanged() {
@@ -60,7 +65,7 @@ class ForwardReductionTest {
         assertTrue(r.reduced());
         assertTrue(r.description().startsWith(n + " forward points"), r.description());
         // two sweeps of 8 decades at 25 bins a decade
-        assertEquals(2 * 8 * ForwardReduction.BINS_PER_DECADE, r.points().size(), 2, r.description());
+        assertEquals(2 * 8 * ForwardReduction.BINS_PER_DECADE, r.points().size(), BIN_COUNT_SLACK, r.description());
         for (FitPoint p : r.points()) {
             assertEquals(quadratic(Math.log(p.current())), p.voltage(), CURVATURE_RESIDUE, p.where());
         }

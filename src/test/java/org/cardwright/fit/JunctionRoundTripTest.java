@@ -33,6 +33,15 @@ class JunctionRoundTripTest {
     private static final double NBV_TOLERANCE = 0.05;
     /** Issue 3: TT from recovery records within 2 % of the relation's value. */
     private static final double TT_TOLERANCE = 0.02;
+    /** The joint fit's TT against the relation's own least-squares TT: the optimiser's convergence [1]. */
+    private static final double SAME_TT_RELATIVE = 1e-6;
+    /**
+     * VJ and M of the joint card within 5 % of the generating values: the curve itself is held to 1 % by CV_TOLERANCE,
+     * and VJ and M trade off along it, so each alone is held more loosely (a judgement, no source) [1].
+     */
+    private static final double CV_PARAMETER_TOLERANCE = 0.05;
+    /** Issue 4's remedy: RS from the cool points alone within 20 % counts as close; else it must be reported [1]. */
+    private static final double COOL_RS_TOLERANCE = 0.2;
 
     private static final double[] CELSIUS = {-20, 27, 100};
     private static final DiodeParameters TRUTH = DiodeParameters.of(Map.of(Param.IS, 1e-13, Param.N, 1.02,
@@ -114,7 +123,7 @@ class JunctionRoundTripTest {
         double got = fit.parameters().get(Param.TT);
         System.out.printf("TT from recovery records: %.4g s (relation's value %.4g s)%n", got, tt);
         assertEquals(tt, got, TT_TOLERANCE * tt);
-        assertEquals(RecoveryBlock.closedForm(rec), got, 1e-6 * got, "the joint fit keeps the relation's own least-squares TT");
+        assertEquals(RecoveryBlock.closedForm(rec), got, SAME_TT_RELATIVE * got, "the joint fit keeps the relation's own least-squares TT");
     }
 
     /** Issue 3: the joint fit's forward residuals no worse than the forward-only fit's by more than this [V]. */
@@ -187,8 +196,8 @@ class JunctionRoundTripTest {
         }
         System.out.printf("  joint card against the noise-free C-V: worst %.3f %%%n", 100 * worst);
         assertTrue(worst < CV_TOLERANCE);
-        assertEquals(truth.get(Param.VJ), joint.parameters().get(Param.VJ), 0.05 * truth.get(Param.VJ));
-        assertEquals(truth.get(Param.M), joint.parameters().get(Param.M), 0.05 * truth.get(Param.M));
+        assertEquals(truth.get(Param.VJ), joint.parameters().get(Param.VJ), CV_PARAMETER_TOLERANCE * truth.get(Param.VJ));
+        assertEquals(truth.get(Param.M), joint.parameters().get(Param.M), CV_PARAMETER_TOLERANCE * truth.get(Param.M));
     }
 
     /** Issue 4: the thermal fit recovers RTH0 within 10 %. */
@@ -221,7 +230,7 @@ class JunctionRoundTripTest {
         assertTrue(fit.points() < pts.size(), "points were left out");
         // what stays was measured below the heating: the cool points alone pin RS only loosely, so the card's RS is
         // either close or reported as undetermined, never silently wrong
-        boolean close = Math.abs(fit.parameters().get(Param.RS) / 0.3 - 1) < 0.2;
+        boolean close = Math.abs(fit.parameters().get(Param.RS) / 0.3 - 1) < COOL_RS_TOLERANCE;
         boolean flagged = fit.warnings().stream().anyMatch(w -> w.startsWith("RS is not determined"));
         assertTrue(close || flagged, "RS " + fit.parameters().get(Param.RS) + " warnings " + fit.warnings());
     }

@@ -14,6 +14,12 @@ import org.junit.jupiter.api.Test;
 
 /** The closed-form start methods against published examples (shared/reference/check-values.md). */
 class StartValuesTest {
+    /** N = 1.679926 is printed to 6 decimals: half a unit of the last [1]. */
+    private static final double N_DIGITS = 5e-7;
+    /** IS = 1.000000e-09 A is printed to 7 significant digits: half a unit of the last [A]. */
+    private static final double IS_DIGITS_A = 5e-16;
+    /** Cheung and Cheung: "a correct implementation lands within 0.1 %" (check-values.md) [1]. */
+    private static final double CHEUNG_RS_RELATIVE = 0.001;
 
     @Test
     void twoPointShockleyLine() {
@@ -25,8 +31,8 @@ class StartValuesTest {
                 new double[] {0.700, Math.log(10e-3)}));
         double n = 1 / (line[1] * vt);
         double is = Math.exp(line[0]);
-        assertEquals(1.679926, n, 5e-7);
-        assertEquals(1.000000e-9, is, 5e-16);
+        assertEquals(1.679926, n, N_DIGITS);
+        assertEquals(1.000000e-9, is, IS_DIGITS_A);
     }
 
     @Test
@@ -45,6 +51,6 @@ class StartValuesTest {
         }
         StartValues.Shockley sh = StartValues.shockley(pts);
         double rs = StartValues.seriesResistance(pts, sh);
-        assertEquals(50.0, rs, 0.001 * 50.0, "RS within 0.1 %");
+        assertEquals(50.0, rs, CHEUNG_RS_RELATIVE * 50.0, "RS within 0.1 %");
     }
 }

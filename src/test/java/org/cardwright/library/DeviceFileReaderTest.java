@@ -22,6 +22,16 @@ class DeviceFileReaderTest {
     private static final double ZERO_CELSIUS = 273.15;
     /** Tolerance of a temperature read from text and shifted by 273.15 K [K]: a few ulp. */
     private static final double KELVIN_TOLERANCE = 1e-12;
+    /**
+     * A number of order 1e-3 to 1e-2 read from the YAML text as a decimal: double rounding only, with room [1, in the
+     * value's own unit].
+     */
+    private static final double DECIMAL_ROUNDING = 1e-15;
+    /**
+     * 25 degC in kelvin from the device file's temperature: double rounding only, with room (ulp of 298 K is 5.7e-14
+     * K) [K].
+     */
+    private static final double BENCH_LOG_KELVIN_TOLERANCE = 1e-9;
 
     private static final String GOOD = String.join("\n",
             "# a part",                                 // 1
@@ -61,17 +71,17 @@ class DeviceFileReaderTest {
         assertEquals(DataKindName.FORWARD, d.data().get(0).kind());
         assertEquals(DataKindName.REVERSE, d.data().get(1).kind());
         assertEquals(DataKindName.BENCH_LOG, d.data().get(2).kind());
-        assertEquals(298.15, d.data().get(2).temperature().getAsDouble(), 1e-9);
+        assertEquals(298.15, d.data().get(2).temperature().getAsDouble(), BENCH_LOG_KELVIN_TOLERANCE);
         assertEquals(7, d.data().get(1).line());
         assertEquals(List.of(Param.RS, Param.N, Param.IKF), d.rules().stream().map(ParameterRule::param).toList());
         assertEquals(ParameterRule.Kind.BOUNDED, d.rules().get(1).kind());
         assertEquals(List.of(Dialect.NGSPICE, Dialect.GNUCAP), d.dialects());
         assertEquals(8, d.digits());
-        assertEquals(3e-3, d.tolerances().forward().rms(), 1e-15);
-        assertEquals(5e-3, d.tolerances().forward().max(), 1e-15, "the default per-point limit");
+        assertEquals(3e-3, d.tolerances().forward().rms(), DECIMAL_ROUNDING);
+        assertEquals(5e-3, d.tolerances().forward().max(), DECIMAL_ROUNDING, "the default per-point limit");
         assertEquals(4, d.tolerances().leakageFactor());
         assertEquals(Tweak.Kind.NUDGE_RELATIVE, d.tweak().orElseThrow().kind());
-        assertEquals(-0.02, d.tweak().orElseThrow().amount(), 1e-15);
+        assertEquals(-0.02, d.tweak().orElseThrow().amount(), DECIMAL_ROUNDING);
         assertTrue(!d.tweak().orElseThrow().refit());
         assertTrue(d.cardPath(Dialect.GNUCAP).endsWith(Path.of("parts/out/X1.gnucap.lib")));
     }
@@ -108,7 +118,7 @@ class DeviceFileReaderTest {
         "missing model | data: [{file: a.csv}]\\n | 1 | missing key 'model'",
         "missing data | model: X1\\n | 1 | missing key 'data'",
         "bad tweak | model: X1\\ndata: [{file: a.csv}]\\ntweak: {set: RS=10%}\\n | 3 | a percentage nudge needs a sign",
-        "absolute cards folder | model: X1\\ndata: [{file: a.csv}]\\ncards: /tmp/x\\n | 3 | cards must be a folder relative to the device file",
+        "absolute cards folder | model: X1\\ndata: [{file: a.csv}]\\ncards: /tmp/x\\n | 3 | cards must be a folder relative to the device file", // hygiene: not a path (an input to refuse)
         "YAML syntax | model: X1\\ndata: [{file: a.csv}\\n | 3 | YAML syntax: while parsing a flow sequence; expected ',' or ']', but got <stream end>",
         "YAML tab indentation | model: X1\\n\tdata: [{file: a.csv}]\\n | 2 | YAML syntax: while scanning for the next token; found character",
         "YAML indentation | model: X1\\ndata:\\n  - file: a.csv\\n   kind: cv\\n | 4 | YAML syntax: while parsing a block collection; expected <block end>",

@@ -14,6 +14,11 @@ import org.junit.jupiter.api.Test;
 
 /** A device file may list recovery records and bench logs as well as I-V and C-V files; the build fits them all. */
 class LibraryAllKindsTest {
+    /**
+     * TT from records with up to 1 % reading error (fixtures/recovery): within 2 % of the 4.0 ns they were written
+     * from [1].
+     */
+    private static final double TT_RELATIVE = 0.02;
     @Test
     void recoveryRecordsAndBenchLogsReachTheCard() throws Exception {
         Path root = Simulators.tempDir("library-all-kinds");
@@ -44,6 +49,6 @@ class LibraryAllKindsTest {
         // fixtures/recovery: records written from TT = 4.0 ns with up to 1 % reading error
         String tt = card.lines().filter(l -> l.startsWith("+ TT=")).findFirst().orElseThrow();
         double value = org.cardwright.card.SpiceNumbers.parse(tt.substring(5));
-        assertEquals(4.0e-9, value, 0.02 * 4.0e-9, tt);
+        assertEquals(4.0e-9, value, TT_RELATIVE * 4.0e-9, tt);
     }
 }

@@ -4,14 +4,17 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.math.BigDecimal;
+import java.util.List;
+import org.cardwright.testsupport.ReferenceTable;
 import org.junit.jupiter.api.Test;
 
 /**
  * Checks of {@link LambertW} against published and independently computed values.
  *
- * <p>Sources named beside each check: "check-values.md" is /work/shared/reference/check-values.md, section
- * "Lambert W" (40-digit values, each verified there by w e^w = x), and section "Diode with series resistance,
- * exact" for the Banwell and Jayakumar number. Corless et al. (1996) is cited from memory.
+ * <p>Sources named beside each check: the table values are in src/test/resources/reference/lambert-w.csv (40-digit
+ * values, each verified by w e^w = x; its header names the source), copied from the project's shared reference
+ * notes ("check-values.md", which also give the Banwell and Jayakumar number, section "Diode with series
+ * resistance, exact"). Corless et al. (1996) is cited from memory.
  *
  * <p>W is dimensionless, so its tolerances are relative or absolute in units of 1; the diode check is in
  * amperes.
@@ -46,51 +49,59 @@ class LambertWTest {
      * ulp in I show as about 1e-14 relative in the residual [1].
      */
     private static final double DIODE_EQUATION_RELATIVE = 1e-13;
+    /** The next double above -1/e lies 4.3e-17 above the true branch point: within 1e-16 of it [1]. */
+    private static final double NEXT_UP_DISTANCE = 1e-16;
+    /** At lnX = 10 ln 1e300 the root sits 8.8 below lnX: more than 8 below shows w is not lnX itself [1]. */
+    private static final double ROOT_BELOW_LNX = 8.0;
+    /** lnX = 10 ln 1e300, an argument whose exponential overflows a double [1]. */
+    private static final double OVERFLOWING_LN_X = Math.log(1e300) * 10;
+
+    /** The table of W values, with its source in its header. */
+    private static final String TABLE = "/reference/lambert-w.csv";
+    /** The table's argument 4.4e-7 above -1/e. */
+    private static final double NEAR_BRANCH_X = -0.367879;
+
+    /** W at x on the branch (0 or -1), from {@link #TABLE}. */
+    private static double reference(int branch, double x) {
+        return ReferenceTable.rows(TABLE).stream().filter(row -> row[0] == branch && row[1] == x)
+                .findFirst().orElseThrow(() -> new AssertionError("no row W" + branch + "(" + x + ") in " + TABLE))[2];
+    }
 
     // ---- published and 40-digit table values -------------------------------------------------------------
 
     @Test
     void principalBranchMatchesTable() {
-        // check-values.md, Lambert W table (COMPUTED with 40-digit arithmetic).
-        double[][] table = {
-            {-0.3, -0.489402227180214969036231251996},
-            {-0.1, -0.11183255915896296483356945682},
-            {0.1, 0.0912765271608622642998957214232},
-            {0.5, 0.35173371124919582602490930093},
-            {2, 0.852605502013725491346472414695},
-            {10, 1.74552800274069938307430126488},
-            {100, 3.38563014029005018488824436453},
-            {1e4, 7.23184603809337270647561850014},
-            {1e10, 20.0286854133049507812343060718},
-            {1e100, 224.843106445118501539373134338},
-            {1e300, 684.24720862976084923958762203},
-        };
+        // src/test/resources/reference/lambert-w.csv (40-digit values, source in its header), principal branch
+        // away from the branch point.
+        List<double[]> table = ReferenceTable.rows(TABLE).stream()
+                .filter(row -> row[0] == 0 && row[1] != NEAR_BRANCH_X && row[1] != 1.0).toList();
+        assertEquals(11, table.size(), "rows of " + TABLE);
         double worst = 0;
         for (double[] row : table) {
-            worst = Math.max(worst, assertRelative(row[1], LambertW.w0(row[0]), TABLE_RELATIVE, "W0(" + row[0] + ")"));
+            worst = Math.max(worst, assertRelative(row[2], LambertW.w0(row[1]), TABLE_RELATIVE, "W0(" + row[1] + ")"));
         }
         System.out.printf("LambertW table W0: max relative error %.2e%n", worst);
     }
 
     @Test
     void principalBranchNearBranchPointMatchesTable() {
-        // check-values.md, Lambert W table (COMPUTED): x = -0.367879, looser tolerance, see NEAR_BRANCH_RELATIVE.
-        double error = assertRelative(-0.998452103780727259318294980306, LambertW.w0(-0.367879),
+        // lambert-w.csv (COMPUTED): x = -0.367879, looser tolerance, see NEAR_BRANCH_RELATIVE.
+        double error = assertRelative(reference(0, NEAR_BRANCH_X), LambertW.w0(NEAR_BRANCH_X),
                 NEAR_BRANCH_RELATIVE, "W0(-0.367879)");
         System.out.printf("LambertW W0(-0.367879): relative error %.2e%n", error);
     }
 
     @Test
     void lowerBranchMatchesTable() {
-        // check-values.md, Lambert W: W-1(-0.1) and W-1(-1e-10) (COMPUTED).
-        assertRelative(-3.57715206395729721840939196351, LambertW.wm1(-0.1), TABLE_RELATIVE, "W-1(-0.1)");
-        assertRelative(-26.2952388192469256941101288219, LambertW.wm1(-1e-10), TABLE_RELATIVE, "W-1(-1e-10)");
+        // lambert-w.csv: W-1(-0.1) and W-1(-1e-10) (COMPUTED).
+        assertRelative(reference(-1, -0.1), LambertW.wm1(-0.1), TABLE_RELATIVE, "W-1(-0.1)");
+        assertRelative(reference(-1, -1e-10), LambertW.wm1(-1e-10), TABLE_RELATIVE, "W-1(-1e-10)");
     }
 
     @Test
     void omegaConstant() {
-        // check-values.md: W0(1) = 0.56714329040978387299996866221 (OEIS A030178, READ).
-        assertRelative(0.56714329040978387299996866221, LambertW.w0(1.0), TABLE_RELATIVE, "W0(1)");
+        // lambert-w.csv: W0(1) = 0.56714329040978387299996866221 (OEIS A030178, READ).
+        assertRelative(reference(0, 1.0), LambertW.w0(1.0), TABLE_RELATIVE, "W0(1)");
     }
 
     @Test
@@ -116,7 +127,7 @@ class LambertWTest {
         double x = Math.nextUp(-Math.exp(-1.0));
         BigDecimal inverseE = new BigDecimal("0.367879441171442321595523770161460867445811131031767834507837");
         double distance = new BigDecimal(x).add(inverseE).doubleValue();
-        assertTrue(distance > 0 && distance < 1e-16, "x is just above -1/e: " + distance);
+        assertTrue(distance > 0 && distance < NEXT_UP_DISTANCE, "x is just above -1/e: " + distance);
         double p = Math.sqrt(2.0 * Math.E * distance);
         assertEquals(-1.0 + p - p * p / 3.0, LambertW.w0(x), ULP_NEAR_MINUS_ONE, "W0 one ulp above -1/e");
         assertEquals(-1.0 - p - p * p / 3.0, LambertW.wm1(x), ULP_NEAR_MINUS_ONE, "W-1 one ulp above -1/e");
@@ -143,11 +154,11 @@ class LambertWTest {
 
     @Test
     void logSpaceMatchesTableBeyondFormedRange() {
-        // check-values.md table: W0(1e100), W0(1e300), reached through lnX = 100 ln 10 and 300 ln 10.
+        // lambert-w.csv: W0(1e100), W0(1e300), reached through lnX = 100 ln 10 and 300 ln 10.
         double ln10 = Math.log(10.0);
-        assertRelative(224.843106445118501539373134338, LambertW.w0OfExp(100 * ln10), TABLE_RELATIVE,
+        assertRelative(reference(0, 1e100), LambertW.w0OfExp(100 * ln10), TABLE_RELATIVE,
                 "w0OfExp(ln 1e100)");
-        assertRelative(684.24720862976084923958762203, LambertW.w0OfExp(300 * ln10), TABLE_RELATIVE,
+        assertRelative(reference(0, 1e300), LambertW.w0OfExp(300 * ln10), TABLE_RELATIVE,
                 "w0OfExp(ln 1e300)");
     }
 
@@ -166,7 +177,7 @@ class LambertWTest {
             worst = Math.max(worst, residual);
         }
         // At lnX = 10 ln 1e300 the root sits 8.8 below lnX, so a w of lnX itself would fail the residual above.
-        assertTrue(Math.log(1e300) * 10 - LambertW.w0OfExp(Math.log(1e300) * 10) > 8.0, "w is not lnX");
+        assertTrue(OVERFLOWING_LN_X - LambertW.w0OfExp(OVERFLOWING_LN_X) > ROOT_BELOW_LNX, "w is not lnX");
         System.out.printf("LambertW w0OfExp log-space residual: max relative %.2e%n", worst);
     }
 

@@ -82,6 +82,20 @@ class HtmlReportTest {
      * distances of tens of pixels a ratio of distances is good to about 0.5 % [1].
      */
     private static final double PIXEL_RATIO_TOLERANCE = 0.005;
+    /** Plot coordinates are written to 0.1 px: a difference of two rounded steps is good to 0.2 px [px]. */
+    private static final double TWO_ROUNDINGS_PX = 0.2;
+    /** Two distances from zero, each of two coordinates rounded to 0.1 px, differ by at most about 0.1 px [px]. */
+    private static final double DISTANCE_ROUNDING_PX = 0.11;
+    /** A frame value of 50-200 pF from decimal tick arithmetic: double rounding only, 40 to 150 ulp [F]. */
+    private static final double FARAD_ROUNDING = 1e-24;
+    /** A nice step of 0.5 from decimal arithmetic: double rounding only, about 9 ulp [1]. */
+    private static final double UNIT_STEP_ROUNDING = 1e-15;
+    /** A nice step of 2e-3 from decimal arithmetic: double rounding only, about 2 ulp [1]. */
+    private static final double MILLI_STEP_ROUNDING = 1e-18;
+    /** The top tick is at least the largest residual, less 1 % for the tick label's rounding [1]. */
+    private static final double TOP_TICK_FRACTION = 0.99;
+    /** A limit line spans more than half the plot's width [1]. */
+    private static final double SPAN_FRACTION = 0.5;
 
     // ---------------------------------------------------------------------------------------------------------
 
@@ -145,7 +159,7 @@ class HtmlReportTest {
         // one decade a point: equal vertical steps on a log axis (within the 0.1 px rounding, twice)
         double step = markerY(circles.get(0)) - markerY(circles.get(1));
         for (int i = 2; i < circles.size(); i++) {
-            assertEquals(step, markerY(circles.get(i - 1)) - markerY(circles.get(i)), 0.2, "decade step " + i);
+            assertEquals(step, markerY(circles.get(i - 1)) - markerY(circles.get(i)), TWO_ROUNDINGS_PX, "decade step " + i);
         }
         // each marker names the file and line it came from
         assertTrue(circles.get(0).getTextContent().startsWith("fwd-25.csv:1,"), circles.get(0).getTextContent());
@@ -173,7 +187,7 @@ class HtmlReportTest {
                     .mapToDouble(t -> Double.parseDouble(t.getTextContent())).max().orElseThrow();
             double largest = id.startsWith("breakdown") ? 5 : 100 * CV_OFFSET;
             double rmsLimit = id.startsWith("breakdown") ? 30 : CapacitanceTolerance.DEFAULT.rmsPercent();
-            assertTrue(top >= largest * 0.99 && top < rmsLimit, id + ": top tick " + top + " between the largest residual "
+            assertTrue(top >= largest * TOP_TICK_FRACTION && top < rmsLimit, id + ": top tick " + top + " between the largest residual "
                     + largest + " and the RMS limit " + rmsLimit);
             assertEquals(0, byClass(svg, "line", "limit rms").stream().filter(l -> !inLegend(l)).count(),
                     id + ": a limit beyond the scale is not drawn");
@@ -224,8 +238,8 @@ class HtmlReportTest {
         assertEquals(8, shortAxis.ticks().stream().filter(t -> !t.major()).count(), "minor ticks 20..90 pF");
         // the frame sits on 1-2-5 values just outside the data, so a narrow range does not sit in an empty decade
         PlotAxis tight = PlotAxis.log(70e-12, 160e-12, "C", "F");
-        assertEquals(50e-12, tight.low(), 1e-24);
-        assertEquals(200e-12, tight.high(), 1e-24);
+        assertEquals(50e-12, tight.low(), FARAD_ROUNDING);
+        assertEquals(200e-12, tight.high(), FARAD_ROUNDING);
         assertEquals(List.of("50 pF", "100 pF", "200 pF"), tight.ticks().stream().map(PlotAxis.Tick::label)
                 .filter(l -> !l.isEmpty()).toList());
         Element residuals = svg(HtmlReport.render(verification(), "c.lib"), "forward-residuals");
@@ -237,8 +251,8 @@ class HtmlReportTest {
         }
         assertTrue(labels.contains("0"), "zero residual tick in " + labels);
         // linear axes tick at 1-2-5 steps
-        assertEquals(0.5, PlotAxis.niceStep(0.37), 1e-15);
-        assertEquals(2e-3, PlotAxis.niceStep(1.2e-3), 1e-18);
+        assertEquals(0.5, PlotAxis.niceStep(0.37), UNIT_STEP_ROUNDING);
+        assertEquals(2e-3, PlotAxis.niceStep(1.2e-3), MILLI_STEP_ROUNDING);
         PlotAxis volts = PlotAxis.linear(0.013, 0.98, "V");
         assertEquals(0.0, volts.low(), 0.0, "an axis of positive data is not padded below zero");
         assertEquals(List.of("0.0", "0.2", "0.4", "0.6", "0.8", "1.0"),
@@ -428,13 +442,13 @@ class HtmlReportTest {
         double maxUp = zero - y(maxLines.get(0), "y1");
         double maxDown = y(maxLines.get(1), "y1") - zero;
         assertTrue(rmsUp > 0 && maxUp > rmsUp, id + ": limits above zero, max beyond RMS");
-        assertEquals(rmsUp, rmsDown, 0.11, id + ": RMS lines symmetric about zero");
-        assertEquals(maxUp, maxDown, 0.11, id + ": max lines symmetric about zero");
+        assertEquals(rmsUp, rmsDown, DISTANCE_ROUNDING_PX, id + ": RMS lines symmetric about zero");
+        assertEquals(maxUp, maxDown, DISTANCE_ROUNDING_PX, id + ": max lines symmetric about zero");
         assertEquals(max / rms, maxUp / rmsUp, PIXEL_RATIO_TOLERANCE * max / rms, id + ": max/RMS distance ratio");
         // the lines are horizontal and span the plot
         for (Element l : List.of(rmsLines.get(0), maxLines.get(0))) {
             assertEquals(y(l, "y1"), y(l, "y2"), 0.0, id);
-            assertTrue(y(l, "x2") - y(l, "x1") > SvgPlot.WIDTH / 2.0, id + ": spans the plot");
+            assertTrue(y(l, "x2") - y(l, "x1") > SvgPlot.WIDTH * SPAN_FRACTION, id + ": spans the plot");
         }
     }
 

@@ -20,6 +20,7 @@ import org.cardwright.model.Param;
 import org.cardwright.model.SimulatorOptions;
 import org.cardwright.model.TemperatureLaws;
 import org.cardwright.sim.process.SimulatorProcess;
+import org.cardwright.testsupport.ReferenceTable;
 import org.cardwright.testsupport.Simulators;
 import org.junit.jupiter.api.Test;
 
@@ -93,9 +94,12 @@ class GnucapCapacitanceTest {
     @Test
     void atTnomGnucapGivesThePublishedDepletionCapacitance() throws Exception {
         // check-values.md: CJO 0.4 pF, VJ 0.75 V, M 1/3 give 0.400000, 0.301579, 0.259400, 0.202858, 0.164669 pF
-        // at VR = 0, 1, 2, 5, 10 V (Sedra & Smith problem set, READ through a solutions page; COMPUTED)
-        double[] reverse = {0, -1, -2, -5, -10};
-        double[] published = {0.400000e-12, 0.301579e-12, 0.259400e-12, 0.202858e-12, 0.164669e-12};
+        // at VR = 0, 1, 2, 5, 10 V (Sedra & Smith problem set, READ through a solutions page; COMPUTED), kept in
+        // src/test/resources/reference/depletion-capacitance.csv
+        List<double[]> table = ReferenceTable.rows("/reference/depletion-capacitance.csv");
+        double[] reverse = table.stream().mapToDouble(r -> 0.0 - r[0]).toArray(); // 0 - VR: +0.0 at zero bias
+        double[] published = table.stream().mapToDouble(r -> r[1] * 1e-12).toArray();
+        assertEquals(5, reverse.length, "rows of depletion-capacitance.csv");
         List<double[]> rows = gnucapCv(reverse, TNOM_C);
         for (int k = 0; k < reverse.length; k++) {
             assertEquals(published[k], rows.get(k)[1], PUBLISHED_ROUNDING, "VR = " + -reverse[k] + " V");

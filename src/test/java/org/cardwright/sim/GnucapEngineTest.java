@@ -54,6 +54,10 @@ class GnucapEngineTest {
     private static final double FORCED_VOLTAGE_TOLERANCE = 1e-8;
     /** "Far larger": the disagreement without the XTI conversion must exceed the bound by this factor [1]. */
     private static final double FAR_LARGER = 10;
+    /** A number of about 1e-9 read from gnucap's suffix form: double rounding only, about 5 ulp [1]. */
+    private static final double PICO_ROUNDING = 1e-24;
+    /** A number of about 330 uA read from gnucap's suffix form: double rounding only, about 20 ulp [1]. */
+    private static final double MICRO_ROUNDING = 1e-18;
 
     private static final double[] TEMPERATURES_C = {-40, 27, 85, 125};
 
@@ -266,11 +270,11 @@ class GnucapEngineTest {
     @Test
     void numbersAreReadAsGnucapPrintsThem() {
         // forms seen in gnucap 2017.10.03 output with numdgt=12..15
-        assertEquals(999.972950837e-12, GnucapEngine.parseNumber("999.972950837p"), 1e-24);
+        assertEquals(999.972950837e-12, GnucapEngine.parseNumber("999.972950837p"), PICO_ROUNDING);
         assertEquals(1e3, GnucapEngine.parseNumber("1.K"), 0.0);
         assertEquals(2.5e9, GnucapEngine.parseNumber("2.5G"), 0.0);
         assertEquals(10e12, GnucapEngine.parseNumber("10.E+12"), 0.0);
-        assertEquals(-330e-6, GnucapEngine.parseNumber("-330.u"), 1e-18);
+        assertEquals(-330e-6, GnucapEngine.parseNumber("-330.u"), MICRO_ROUNDING);
         assertEquals(0.00244980226335, GnucapEngine.parseNumber("0.00244980226335"), 0.0);
         assertEquals(-40, GnucapEngine.parseNumber("-40."), 0.0);
         assertEquals(1.5e6, GnucapEngine.parseNumber("1.5Meg"), 0.0);

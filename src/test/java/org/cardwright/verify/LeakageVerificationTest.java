@@ -20,6 +20,8 @@ import org.junit.jupiter.api.Test;
 /** Leakage below breakdown is held to its own limits, in decades of current. */
 class LeakageVerificationTest {
     private static final DiodeParameters CARD = DiodeParameters.of(Map.of(Param.IS, 1e-12, Param.RS, 1.0));
+    /** Decades of a ratio computed from the same engine's currents: log10 rounding only [decades]. */
+    private static final double DECADE_ROUNDING = 1e-9;
 
     private static List<MeasuredPoint> points(double factor) {
         DiodeAtTemperature d = TemperatureLaws.at(CARD, 300.15, SimulatorOptions.NGSPICE_DEFAULTS);
@@ -36,10 +38,10 @@ class LeakageVerificationTest {
         CardUnderTest card = CardUnderTest.ngspice("x", CARD);
         LeakageVerification same = LeakageVerification.of(engine, card, points(1.0));
         assertTrue(same.pass());
-        assertEquals(0.0, same.perTemperature().get(0).maxDecades(), 1e-9);
+        assertEquals(0.0, same.perTemperature().get(0).maxDecades(), DECADE_ROUNDING);
         LeakageVerification excess = LeakageVerification.of(engine, card, points(100.0));
         assertFalse(excess.pass());
-        assertEquals(2.0, excess.perTemperature().get(0).rmsDecades(), 1e-9, "a factor of 100 is two decades");
+        assertEquals(2.0, excess.perTemperature().get(0).rmsDecades(), DECADE_ROUNDING, "a factor of 100 is two decades");
         assertTrue(excess.notes().get(0).contains("surface or shunt leakage"));
     }
 }

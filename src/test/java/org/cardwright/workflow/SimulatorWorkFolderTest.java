@@ -15,7 +15,7 @@ import org.cardwright.testsupport.Simulators;
 import org.junit.jupiter.api.Test;
 
 /**
- * Issue 10, item 3: the simulator's work folders are private and unpredictable (never /tmp/cardwright-PID), and
+ * Issue 10, item 3: the simulator's work folders are private and unpredictable (never a fixed name such as cardwright-PID in the system's temporary folder), and
  * the time limit grows with the number of points unless --sim-timeout fixes it.
  */
 class SimulatorWorkFolderTest {

@@ -40,6 +40,8 @@ import org.junit.jupiter.api.Test;
 class WholeJunctionCardTest {
     /** Built-in against ngspice on the same card: 1e-6 relative (issue 2 and 3). */
     private static final double RELATIVE = 1e-6;
+    /** The fitted CJO within 1 % of the generating card's (a judgement, no source) [1]. */
+    private static final double CJO_RELATIVE = 0.01;
     private static final DiodeParameters TRUTH = DiodeParameters.of(Map.ofEntries(Map.entry(Param.IS, 4e-14),
             Map.entry(Param.N, 1.03), Map.entry(Param.RS, 1.2), Map.entry(Param.ISR, 3e-12), Map.entry(Param.NR, 2.0),
             Map.entry(Param.BV, 12.0), Map.entry(Param.IBV, 1e-3), Map.entry(Param.NBV, 2.0), Map.entry(Param.TCV, -8e-3),
@@ -117,7 +119,7 @@ class WholeJunctionCardTest {
         System.out.printf("whole-junction card: DC worst relative %.2e, C-V worst relative %.2e%n", worst, worstC);
         assertTrue(worst < RELATIVE, "DC " + worst);
         assertTrue(worstC < RELATIVE, "C-V " + worstC);
-        assertEquals(TRUTH.get(Param.CJO), parsed.parameters().get(Param.CJO), 0.01 * TRUTH.get(Param.CJO));
+        assertEquals(TRUTH.get(Param.CJO), parsed.parameters().get(Param.CJO), CJO_RELATIVE * TRUTH.get(Param.CJO));
     }
 
     private static Path write(Path p, String text) throws IOException {
