@@ -393,6 +393,69 @@ class DocCommandsTest {
         assertEquals(List.of(), found);
     }
 
+    /**
+     * docs/formats.md lists every key {@code verify --json} writes, per section: the section's own keys, the keys of
+     * each {@code temperatures[]} entry and of each {@code points[]} entry (every section has per-point entries).
+     * Run on the demo zener, which has every data kind (forward, breakdown, C-V, recovery, leakage).
+     */
+    @Test
+    void everyVerifyJsonKeyIsDocumented() throws Exception {
+        Path root = Simulators.projectDir();
+        Path work = Simulators.tempDir("doc-verify-json");
+        List<String> data = new ArrayList<>();
+        try (Stream<Path> files = Files.list(root.resolve("fixtures/demo"))) {
+            files.filter(f -> f.getFileName().toString().matches("ksz6-.*\\.csv")).sorted().forEach(f -> data.add(f.toString()));
+        }
+        List<String> fit = new ArrayList<>(List.of("fit", "--kind", "zener", "--name", "Z", "--out", work.toString()));
+        fit.addAll(data);
+        java.io.StringWriter sink = new java.io.StringWriter();
+        assertEquals(0, org.cardwright.cli.Main.execute(new java.io.PrintWriter(sink), new java.io.PrintWriter(sink), fit.toArray(String[]::new)), sink.toString());
+        List<String> verify = new ArrayList<>(List.of("verify", work.resolve("Z.ngspice.lib").toString(), "--json", work.resolve("v.json").toString()));
+        verify.addAll(data);
+        int exit = org.cardwright.cli.Main.execute(new java.io.PrintWriter(sink), new java.io.PrintWriter(sink), verify.toArray(String[]::new));
+        assertTrue(exit == 0 || exit == 1, sink.toString());
+        com.fasterxml.jackson.databind.JsonNode json = new com.fasterxml.jackson.databind.ObjectMapper().readTree(work.resolve("v.json").toFile());
+
+        String formats = Files.readString(root.resolve("docs/formats.md"));
+        String verifyPart = formats.substring(formats.indexOf("## Verify JSON"));
+        Map<String, String> heading = Map.of("forward", "`forward` and `breakdown` have", "breakdown", "`forward` and `breakdown` have",
+                "capacitance", "`capacitance`:", "recovery", "`recovery`:", "leakage", "`leakage`:");
+        List<String> undocumented = new ArrayList<>();
+        int sections = 0;
+        for (var e : heading.entrySet()) {
+            com.fasterxml.jackson.databind.JsonNode section = json.get(e.getKey());
+            assertNotNull(section, "the demo zener's verify JSON has a " + e.getKey() + " section");
+            sections++;
+            int at = verifyPart.indexOf(e.getValue());
+            assertTrue(at >= 0, "docs/formats.md: no table for " + e.getKey());
+            List<String> table = verifyPart.substring(at).lines().skip(1).dropWhile(String::isBlank).takeWhile(l -> l.startsWith("|")).toList();
+            String all = String.join("\n", table);
+            section.fieldNames().forEachRemaining(k -> {
+                if (!all.contains("`" + k + "`") && !all.contains("`" + k + ".") && !all.contains("`" + k + "[]`")) {
+                    undocumented.add(e.getKey() + "." + k);
+                }
+            });
+            for (String list : List.of("temperatures", "points")) {
+                com.fasterxml.jackson.databind.JsonNode entries = section.get(list);
+                assertNotNull(entries, e.getKey() + " has " + list + "[]");
+                assertTrue(entries.size() > 0, e.getKey() + "." + list + " is empty");
+                String row = table.stream().filter(l -> l.startsWith("| `" + list + "[]`")).findFirst().orElse("");
+                entries.get(0).fieldNames().forEachRemaining(k -> {
+                    if (!row.contains("`" + k + "`")) {
+                        undocumented.add(e.getKey() + "." + list + "[]." + k);
+                    }
+                });
+            }
+        }
+        json.fieldNames().forEachRemaining(k -> {
+            if (!verifyPart.contains("| `" + k + "` |")) {
+                undocumented.add(k);
+            }
+        });
+        assertEquals(5, sections);
+        assertEquals(List.of(), undocumented, "keys verify --json writes that docs/formats.md does not list");
+    }
+
     /** The synopsis in docs/lot.md names options the lot command has. */
     @Test
     void everyOptionOfTheLotSynopsisExists() throws Exception {
