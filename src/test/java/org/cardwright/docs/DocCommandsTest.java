@@ -260,7 +260,7 @@ class DocCommandsTest {
             if (w.startsWith("-")) {
                 if (jmh) {
                     assertTrue(JMH_OPTIONS.contains(w), s.where() + ": not a JMH option: " + w);
-                } else {
+                } else if (w.startsWith("--")) {  // a single-dash word is a value, e.g. --java-option -XX:+UseSerialGC
                     assertTrue(accepted.contains(w), s.where() + ": " + script + " does not take " + w + " (it takes " + accepted + ")");
                 }
             } else if (jmh && w.matches("[A-Z][A-Za-z]+") && !words[i - 1].startsWith("-")) {
@@ -454,6 +454,54 @@ class DocCommandsTest {
         });
         assertEquals(5, sections);
         assertEquals(List.of(), undocumented, "keys verify --json writes that docs/formats.md does not list");
+    }
+
+    /**
+     * Commands written inline in the text, e.g. {@code `verify --engine gnucap`} or {@code `verify/bench/run --runs
+     * 60`}: every option named belongs to that command, and a script named is shipped executable and takes the
+     * options shown (checked as the blocks' scripts are).
+     */
+    @Test
+    void everyOptionOfAnInlineCommandExists() throws Exception {
+        Path root = Simulators.projectDir();
+        List<String> shipped = shippedFiles(root);
+        CommandLine cl = org.cardwright.cli.MainAccess.commandLine();
+        List<Path> docs = new ArrayList<>(documents(root));
+        docs.add(root.resolve("README.md"));
+        Pattern command = Pattern.compile("`(?:\\./)?(?:cardwright )?(fit|verify|build|tweak|compare|check|lot)((?: [^`]*)? --[a-z][^`]*)`");
+        Pattern script = Pattern.compile("`((?:verify/bench|scripts|spark)/[a-z-]+)( [^`]*)?`");
+        List<String> wrong = new ArrayList<>();
+        int checked = 0;
+        for (Path d : docs) {
+            String doc = root.relativize(d).toString();
+            List<String> lines = Files.readAllLines(d);
+            for (int n = 0; n < lines.size(); n++) {
+                Matcher m = command.matcher(lines.get(n));
+                while (m.find()) {
+                    CommandLine sub = cl.getSubcommands().get(m.group(1));
+                    Matcher option = Pattern.compile("(?<![\\w-])(--[a-z][a-z-]*)").matcher(m.group(2));
+                    while (option.find()) {
+                        checked++;
+                        if (sub.getCommandSpec().findOption(option.group(1)) == null) {
+                            wrong.add(doc + ":" + (n + 1) + ": " + m.group() + ": " + m.group(1) + " has no option " + option.group(1));
+                        }
+                    }
+                }
+                Matcher s = script.matcher(lines.get(n));
+                while (s.find()) {
+                    if (!shipped.contains(s.group(1))) {
+                        wrong.add(doc + ":" + (n + 1) + ": " + s.group(1) + " is not shipped");
+                        continue;
+                    }
+                    String args = s.group(2) == null ? "" : s.group(2);
+                    args = args.replaceAll("(?<![\\w-])[A-Z]{2,}\\b", "x");  // a placeholder such as INPUT or NAME
+                    checkScript(root, new Shown(doc, n + 1, s.group(), List.of(), false), s.group(1), s.group(1) + args);
+                    checked++;
+                }
+            }
+        }
+        assertEquals(List.of(), wrong);
+        assertTrue(checked >= 30, "inline options checked: " + checked);
     }
 
     /** The synopsis in docs/lot.md names options the lot command has. */
