@@ -504,6 +504,92 @@ class DocCommandsTest {
         assertTrue(checked >= 30, "inline options checked: " + checked);
     }
 
+    /** docs/model.md describes equations only, no bench work, so its breakdown and self-heating sections need none. */
+    private static final Set<String> NO_BENCH_WORK = Set.of("docs/model.md", "docs/bibliography.md", "docs/nomenclature.md");
+
+    /**
+     * Issue 11, "cautions where the danger is", as a rule over every document rather than a list of places: each
+     * section of docs/*.md whose heading names breakdown, recovery, self-heating or series-resistor logs, and each
+     * section that mentions a temperature chamber, holds (itself or in a section enclosing it) a caution that
+     * defers to local codes; the chamber's caution names frost and condensation.
+     */
+    @Test
+    void everyDangerousSectionCarriesItsCaution() throws Exception {
+        Path root = Simulators.projectDir();
+        Pattern danger = Pattern.compile("(?i)breakdown|recovery|self-heating|series-resistor");
+        List<String> missing = new ArrayList<>();
+        int sections = 0;
+        for (Path d : documents(root)) {
+            String doc = root.relativize(d).toString();
+            if (!doc.startsWith("docs/") || NO_BENCH_WORK.contains(doc)) {
+                continue;
+            }
+            List<String> lines = Files.readAllLines(d);
+            for (int i = 0; i < lines.size(); i++) {
+                Matcher h = Pattern.compile("^(#+) (.*)").matcher(lines.get(i));
+                if (!h.find() || insideFence(lines, i)) {
+                    continue;
+                }
+                int level = h.group(1).length();
+                String own = sectionText(lines, i, false);
+                boolean dangerous = danger.matcher(h.group(2)).find();
+                boolean chamber = own.toLowerCase(java.util.Locale.ROOT).contains("chamber");
+                if (!dangerous && !chamber) {
+                    continue;
+                }
+                sections++;
+                // this section with its subsections, or any section enclosing it
+                List<String> scopes = new ArrayList<>(List.of(sectionText(lines, i, true)));
+                for (int j = i - 1, l = level; j >= 0 && l > 2; j--) {  // up to a level-2 section, not the page title
+                    Matcher up = Pattern.compile("^(#+) ").matcher(lines.get(j));
+                    if (up.find() && up.group(1).length() < l && up.group(1).length() >= 2 && !insideFence(lines, j)) {
+                        l = up.group(1).length();
+                        scopes.add(sectionText(lines, j, true));
+                    }
+                }
+                scopes.replaceAll(t -> t.replaceAll("\\s*\\n>?\\s*", " "));  // one line of text, quote markers gone
+                boolean cautioned = scopes.stream().anyMatch(t -> t.contains("Caution") && t.contains("local electrical codes"));
+                if (!cautioned) {
+                    missing.add(doc + ":" + (i + 1) + ": " + lines.get(i) + ": no caution deferring to local electrical codes");
+                }
+                if (chamber && scopes.stream().noneMatch(t -> t.contains("frost") && t.contains("condensation"))) {
+                    missing.add(doc + ":" + (i + 1) + ": " + lines.get(i) + ": a chamber without the frost and condensation caution");
+                }
+            }
+        }
+        assertEquals(List.of(), missing);
+        assertTrue(sections >= 6, "sections with a danger: " + sections);
+    }
+
+    private static boolean insideFence(List<String> lines, int index) {
+        boolean inside = false;
+        for (int i = 0; i < index; i++) {
+            if (lines.get(i).startsWith("```")) {
+                inside = !inside;
+            }
+        }
+        return inside;
+    }
+
+    /** The text of the section whose heading is line {@code start}, to the next heading (of its level or above if {@code nested}). */
+    private static String sectionText(List<String> lines, int start, boolean nested) {
+        int level = lines.get(start).indexOf(' ');
+        StringBuilder sb = new StringBuilder(lines.get(start)).append('\n');
+        boolean fence = false;
+        for (int i = start + 1; i < lines.size(); i++) {
+            String l = lines.get(i);
+            if (l.startsWith("```")) {
+                fence = !fence;
+            }
+            Matcher h = Pattern.compile("^(#+) ").matcher(l);
+            if (!fence && h.find() && (!nested || h.group(1).length() <= level)) {
+                break;
+            }
+            sb.append(l).append('\n');
+        }
+        return sb.toString();
+    }
+
     /** The synopsis in docs/lot.md names options the lot command has. */
     @Test
     void everyOptionOfTheLotSynopsisExists() throws Exception {
