@@ -45,7 +45,7 @@ import picocli.CommandLine;
  * launcher on the PATH. What a command is and how it is checked follows from its first word:
  * <ul>
  *   <li>{@code cardwright}, {@code ./cardwright}, {@code java -jar target/cardwright.jar}, {@code java
- *       verify/tools/X.java}: run; the exit code must be the one the block shows (1 when its output says
+ *       verify/tools/X.java}, and {@code cp} or {@code mkdir} (a copy to work in): run; the exit code must be the one the block shows (1 when its output says
  *       "does NOT reproduce" or "&lt;- beyond limit", else 0), and every {@code wrote ...} or {@code Model ...}
  *       line and the last line of the shown output must be printed;</li>
  *   <li>a shipped script (the benchmarks, scripts/test, spark/run-lot): not run (they build with Maven or run for
@@ -188,6 +188,7 @@ class DocCommandsTest {
                 String p = program(s.command());
                 String first = p.split("\\s+")[0];
                 if (first.equals("cardwright") || first.equals("./cardwright") || p.startsWith("java -jar target/cardwright.jar ")
+                        || first.equals("cp") || first.equals("mkdir")
                         || (first.equals("java") && p.split("\\s+")[1].endsWith(".java"))) {
                     if (p.contains("--engine ngspice") || p.startsWith("java verify/tools/MakeDemoData.java")) {
                         Simulators.requireNgspice();
