@@ -45,8 +45,8 @@ import picocli.CommandLine;
  * launcher on the PATH. What a command is and how it is checked follows from its first word:
  * <ul>
  *   <li>{@code cardwright}, {@code ./cardwright}, {@code java -jar target/cardwright.jar}, {@code java
- *       verify/tools/X.java}, and {@code cp} or {@code mkdir} (a copy to work in): run; the exit code must be the one the block shows (1 when its output says
- *       "does NOT reproduce" or "&lt;- beyond limit", else 0), and every {@code wrote ...} or {@code Model ...}
+ *       verify/tools/X.java}, and {@code cp} or {@code mkdir} (a copy to work in): run; the exit code must be the one the block shows (a shown
+ *       output line {@code [exit N]}; else 1 when its output says "does NOT reproduce" or "&lt;- beyond limit"; else 0), and every {@code wrote ...} or {@code Model ...}
  *       line and the last line of the shown output must be printed;</li>
  *   <li>a shipped script (the benchmarks, scripts/test, spark/run-lot): not run (they build with Maven or run for
  *       minutes), but it must be shipped executable and every option shown must be one it or the harness it
@@ -67,6 +67,8 @@ class DocCommandsTest {
     private static final int MAX_NOT_RUN = 3;
     private static final Pattern FENCE = Pattern.compile("(?ms)^```([a-z]*)\\n(.*?)^```");
     private static final Pattern NOT_RUN = Pattern.compile("<!-- not run: (.+?) -->");
+    /** A shown output line {@code [exit N]}: the exit code the doc states. */
+    private static final Pattern EXIT = Pattern.compile("^\\[exit (\\d+)\\]$");
     /** JMH's own command-line options (jmh-core's {@code -h}) that the docs show after {@code verify/bench/jmh}. */
     private static final Set<String> JMH_OPTIONS = Set.of("-f", "-wi", "-i", "-w", "-r", "-h", "-l", "-prof", "-rf", "-rff");
 
@@ -84,6 +86,10 @@ class DocCommandsTest {
     record Shown(String doc, int line, String command, List<String> output, boolean prompted) {
         int expectedExit() {
             for (String l : output) {
+                Matcher stated = EXIT.matcher(l);
+                if (stated.matches()) {
+                    return Integer.parseInt(stated.group(1));
+                }
                 if (l.contains("does NOT reproduce") || l.contains("<- beyond limit")) {
                     return 1;
                 }
@@ -204,7 +210,7 @@ class DocCommandsTest {
                             shownLines.add(l);
                         }
                     }
-                    s.output().stream().filter(l -> !l.isBlank()).reduce((a, b) -> b).ifPresent(shownLines::add);
+                    s.output().stream().filter(l -> !l.isBlank() && !EXIT.matcher(l).matches()).reduce((a, b) -> b).ifPresent(shownLines::add);
                     for (String l : shownLines) {
                         assertTrue(r.out.lines().anyMatch(l.strip()::equals) || r.err.lines().anyMatch(l.strip()::equals),
                                 s.where() + ": shown line not printed: " + l + "\n" + r);
@@ -303,6 +309,8 @@ class DocCommandsTest {
     /** Top-level names of the repository whose paths the docs may name. */
     private static final Pattern PATH = Pattern.compile(
             "(?<![\\w./-])((?:src|docs|fixtures|verify|scripts|spark|templates|\\.ci)/[\\w.*/-]*[\\w*/])");
+    /** Placeholder names the docs use in paths ({@code templates/NAME.ftl}, {@code verify/tools/X.java}). */
+    private static final String PLACEHOLDERS = "NAME|DIALECT|MODEL|X|DIR|FILE|ROOT|CARDS|INPUT|OUT|LIB|PART";
     private static final Pattern LINK = Pattern.compile("\\]\\(([^)\\s#]+)(#[^)]*)?\\)");
 
     @Test
@@ -330,7 +338,7 @@ class DocCommandsTest {
                 Matcher m = PATH.matcher(line);
                 while (m.find()) {
                     String p = m.group(1).replaceAll("/$", "");
-                    if (p.matches(".*(^|/)target(/.*|$)") || p.matches(".*/[A-Z][A-Z_]+(\\.[a-z]+)?(/.*|$)")) {
+                    if (p.matches(".*(^|/)target(/.*|$)") || p.matches(".*/(" + PLACEHOLDERS + ")(\\.[a-z]+)?(/.*|$)")) {
                         continue;  // a build output, or a placeholder (templates/NAME.ftl)
                     }
                     checked++;
