@@ -375,7 +375,10 @@ class DocCommandsTest {
         return false;
     }
 
-    /** Help text and the developer guide use the project's words too ("device file", "state file", "outdated"). */
+    /**
+     * Help text, the developer guide and the example library's device files use the project's words too ("device
+     * file", "state file", "outdated"); README.md and docs/ are DocsSafetyAndWordsTest's.
+     */
     @Test
     void helpTextAndDeveloperGuideUseOurWords() throws Exception {
         Pattern words = Pattern.compile("(?i)\\brecipes?\\b|\\bstale\\b|build records?");
@@ -392,11 +395,17 @@ class DocCommandsTest {
                 }
             }
         });
-        List<String> lines = Files.readAllLines(Simulators.projectDir().resolve("DEVELOPERS.md"));
-        for (int i = 0; i < lines.size(); i++) {
-            // a Java name (Recipe) or a quoted old keyword may be named
-            if (words.matcher(lines.get(i).replaceAll("`[^`]*`", "")).find()) {
-                found.add("DEVELOPERS.md:" + (i + 1) + ": " + lines.get(i).strip());
+        Path root = Simulators.projectDir();
+        List<String> files = new ArrayList<>(List.of("DEVELOPERS.md"));
+        // the example library's device files are read as examples of the format, comments included
+        shippedFiles(root).stream().filter(f -> f.startsWith("fixtures/library/") && f.endsWith(".yaml")).forEach(files::add);
+        for (String f : files) {
+            List<String> lines = Files.readAllLines(root.resolve(f));
+            for (int i = 0; i < lines.size(); i++) {
+                // a Java name (Recipe) or a quoted old keyword may be named
+                if (words.matcher(lines.get(i).replaceAll("`[^`]*`", "")).find()) {
+                    found.add(f + ":" + (i + 1) + ": " + lines.get(i).strip());
+                }
             }
         }
         assertEquals(List.of(), found);
