@@ -5,9 +5,13 @@ import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertNotNull;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.ObjectMapper;
 import java.io.File;
 import java.io.IOException;
 import java.io.OutputStream;
+import java.io.PrintWriter;
+import java.io.StringWriter;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.FileSystems;
 import java.nio.file.Files;
@@ -28,6 +32,8 @@ import java.util.jar.Manifest;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 import java.util.stream.Stream;
+import org.cardwright.cli.Main;
+import org.cardwright.cli.MainAccess;
 import org.cardwright.testsupport.Simulators;
 import org.junit.jupiter.api.Test;
 import picocli.CommandLine;
@@ -45,9 +51,10 @@ import picocli.CommandLine;
  * launcher on the PATH. What a command is and how it is checked follows from its first word:
  * <ul>
  *   <li>{@code cardwright}, {@code ./cardwright}, {@code java -jar target/cardwright.jar}, {@code java
- *       verify/tools/X.java}, and {@code cp} or {@code mkdir} (a copy to work in): run; the exit code must be the one the block shows (a shown
- *       output line {@code [exit N]}; else 1 when its output says "does NOT reproduce" or "&lt;- beyond limit"; else 0), and every {@code wrote ...} or {@code Model ...}
- *       line and the last line of the shown output must be printed;</li>
+ *       verify/tools/X.java}, and {@code cp} or {@code mkdir} (a copy to work in): run; the exit code must be the
+ *       one the block shows (a shown output line {@code [exit N]}; else 1 when its output says "does NOT
+ *       reproduce" or "&lt;- beyond limit"; else 0), and every {@code wrote ...} or {@code Model ...} line and the
+ *       last line of the shown output must be printed;</li>
  *   <li>a shipped script (the benchmarks, scripts/test, spark/run-lot): not run (they build with Maven or run for
  *       minutes), but it must be shipped executable and every option shown must be one it or the harness it
  *       starts parses;</li>
@@ -187,12 +194,17 @@ class DocCommandsTest {
 
         List<NotRun> notRun = new ArrayList<>();
         Map<String, int[]> perDoc = new TreeMap<>();  // doc -> {run, checked}
-        for (Path d : documents(root)) {
+        List<Path> docs = new ArrayList<>(documents(root));
+        docs.add(root.resolve("README.md"));  // its other commands; ReadmeCommandsTest runs its cardwright lines
+        for (Path d : docs) {
             String doc = root.relativize(d).toString();
             int[] counts = perDoc.computeIfAbsent(doc, k -> new int[2]);
             for (Shown s : commands(doc, Files.readString(d), notRun)) {
                 String p = program(s.command());
                 String first = p.split("\\s+")[0];
+                if (doc.equals("README.md") && (first.equals("cardwright") || first.equals("./cardwright"))) {
+                    continue;
+                }
                 if (first.equals("cardwright") || first.equals("./cardwright") || p.startsWith("java -jar target/cardwright.jar ")
                         || first.equals("cp") || first.equals("mkdir")
                         || (first.equals("java") && p.split("\\s+")[1].endsWith(".java"))) {
@@ -281,7 +293,7 @@ class DocCommandsTest {
 
     private static Set<String> lotOptions() {
         Set<String> names = new LinkedHashSet<>();
-        for (CommandLine.Model.OptionSpec o : org.cardwright.cli.MainAccess.commandLine().getSubcommands().get("lot").getCommandSpec().options()) {
+        for (CommandLine.Model.OptionSpec o : MainAccess.commandLine().getSubcommands().get("lot").getCommandSpec().options()) {
             names.addAll(List.of(o.names()));
         }
         return names;
@@ -382,7 +394,7 @@ class DocCommandsTest {
     @Test
     void helpTextAndDeveloperGuideUseOurWords() throws Exception {
         Pattern words = Pattern.compile("(?i)\\brecipes?\\b|\\bstale\\b|build records?");
-        CommandLine cl = org.cardwright.cli.MainAccess.commandLine();
+        CommandLine cl = MainAccess.commandLine();
         List<String> found = new ArrayList<>();
         Map<String, CommandLine> commands = new LinkedHashMap<>(cl.getSubcommands());
         commands.put("", cl);
@@ -426,13 +438,13 @@ class DocCommandsTest {
         }
         List<String> fit = new ArrayList<>(List.of("fit", "--kind", "zener", "--name", "Z", "--out", work.toString()));
         fit.addAll(data);
-        java.io.StringWriter sink = new java.io.StringWriter();
-        assertEquals(0, org.cardwright.cli.Main.execute(new java.io.PrintWriter(sink), new java.io.PrintWriter(sink), fit.toArray(String[]::new)), sink.toString());
+        StringWriter sink = new StringWriter();
+        assertEquals(0, Main.execute(new PrintWriter(sink), new PrintWriter(sink), fit.toArray(String[]::new)), sink.toString());
         List<String> verify = new ArrayList<>(List.of("verify", work.resolve("Z.ngspice.lib").toString(), "--json", work.resolve("v.json").toString()));
         verify.addAll(data);
-        int exit = org.cardwright.cli.Main.execute(new java.io.PrintWriter(sink), new java.io.PrintWriter(sink), verify.toArray(String[]::new));
+        int exit = Main.execute(new PrintWriter(sink), new PrintWriter(sink), verify.toArray(String[]::new));
         assertTrue(exit == 0 || exit == 1, sink.toString());
-        com.fasterxml.jackson.databind.JsonNode json = new com.fasterxml.jackson.databind.ObjectMapper().readTree(work.resolve("v.json").toFile());
+        JsonNode json = new ObjectMapper().readTree(work.resolve("v.json").toFile());
 
         String formats = Files.readString(root.resolve("docs/formats.md"));
         String verifyPart = formats.substring(formats.indexOf("## Verify JSON"));
@@ -441,7 +453,7 @@ class DocCommandsTest {
         List<String> undocumented = new ArrayList<>();
         int sections = 0;
         for (var e : heading.entrySet()) {
-            com.fasterxml.jackson.databind.JsonNode section = json.get(e.getKey());
+            JsonNode section = json.get(e.getKey());
             assertNotNull(section, "the demo zener's verify JSON has a " + e.getKey() + " section");
             sections++;
             int at = verifyPart.indexOf(e.getValue());
@@ -454,7 +466,7 @@ class DocCommandsTest {
                 }
             });
             for (String list : List.of("temperatures", "points")) {
-                com.fasterxml.jackson.databind.JsonNode entries = section.get(list);
+                JsonNode entries = section.get(list);
                 assertNotNull(entries, e.getKey() + " has " + list + "[]");
                 assertTrue(entries.size() > 0, e.getKey() + "." + list + " is empty");
                 String row = table.stream().filter(l -> l.startsWith("| `" + list + "[]`")).findFirst().orElse("");
@@ -483,7 +495,7 @@ class DocCommandsTest {
     void everyOptionOfAnInlineCommandExists() throws Exception {
         Path root = Simulators.projectDir();
         List<String> shipped = shippedFiles(root);
-        CommandLine cl = org.cardwright.cli.MainAccess.commandLine();
+        CommandLine cl = MainAccess.commandLine();
         List<Path> docs = new ArrayList<>(documents(root));
         docs.add(root.resolve("README.md"));
         Pattern command = Pattern.compile("`(?:\\./)?(?:cardwright )?(fit|verify|build|tweak|compare|check|lot)((?: [^`]*)? --[a-z][^`]*)`");
