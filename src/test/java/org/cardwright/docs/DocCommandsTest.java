@@ -72,7 +72,7 @@ class DocCommandsTest {
     private static final long COMMAND_TIMEOUT_SECONDS = 600;
     /** Illustration-only blocks allowed across all the documents; a larger number means the docs stopped being run. */
     private static final int MAX_NOT_RUN = 3;
-    private static final Pattern FENCE = Pattern.compile("(?ms)^```([a-z]*)\\n(.*?)^```");
+    private static final Pattern FENCE = Pattern.compile("(?ms)^( {0,3})```([a-z]*)\\n(.*?)^\\1```");  // a fence may be indented in a list item
     private static final Pattern NOT_RUN = Pattern.compile("<!-- not run: (.+?) -->");
     /** A shown output line {@code [exit N]}: the exit code the doc states. */
     private static final Pattern EXIT = Pattern.compile("^\\[exit (\\d+)\\]$");
@@ -126,8 +126,9 @@ class DocCommandsTest {
                 notRun.add(new NotRun(doc, line - 1, marker.group(1)));
                 continue;
             }
-            boolean shell = m.group(1).equals("sh") || m.group(1).equals("bash");
-            List<String> lines = m.group(2).lines().toList();
+            boolean shell = m.group(2).equals("sh") || m.group(2).equals("bash");
+            String indent = m.group(1);
+            List<String> lines = m.group(3).lines().map(l -> l.startsWith(indent) ? l.substring(indent.length()) : l).toList();
             for (int i = 0; i < lines.size(); i++) {
                 String l = lines.get(i);
                 if (l.startsWith("$ ")) {
