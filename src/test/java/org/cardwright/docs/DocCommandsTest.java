@@ -118,12 +118,12 @@ class DocCommandsTest {
         List<Shown> shown = new ArrayList<>();
         Matcher m = FENCE.matcher(markdown);
         while (m.find()) {
-            int line = markdown.substring(0, m.start()).split("\n", -1).length + 1;
+            int line = markdown.substring(0, m.start()).split("\n", -1).length + 1;  // the first line inside the fence
             String before = markdown.substring(0, m.start()).stripTrailing();
             String previous = before.substring(before.lastIndexOf('\n') + 1);
             Matcher marker = NOT_RUN.matcher(previous);
             if (marker.find()) {
-                notRun.add(new NotRun(doc, line - 1, marker.group(1)));
+                notRun.add(new NotRun(doc, line - 2, marker.group(1)));
                 continue;
             }
             boolean shell = m.group(2).equals("sh") || m.group(2).equals("bash");
@@ -137,7 +137,7 @@ class DocCommandsTest {
                     for (; j < lines.size() && !lines.get(j).startsWith("$ "); j++) {
                         out.add(lines.get(j));
                     }
-                    shown.add(new Shown(doc, line + 1 + i, stripComment(l.substring(2)), out, true));
+                    shown.add(new Shown(doc, line + i, stripComment(l.substring(2)), out, true));
                 } else if (shell && !l.isBlank() && !l.stripLeading().startsWith("#")) {
                     int start = i;
                     StringBuilder command = new StringBuilder(stripComment(l));
@@ -145,7 +145,7 @@ class DocCommandsTest {
                         command.setLength(command.length() - 1);
                         command.append(' ').append(stripComment(lines.get(++i)).strip());
                     }
-                    shown.add(new Shown(doc, line + 1 + start, command.toString().strip(), List.of(), false));
+                    shown.add(new Shown(doc, line + start, command.toString().strip(), List.of(), false));
                 }
             }
         }
