@@ -219,13 +219,13 @@ class DocCommandsTest {
                     assertEquals(s.expectedExit(), r.exit, s.where() + "\n" + r);
                     List<String> shownLines = new ArrayList<>();
                     for (String l : s.output()) {
-                        if (l.startsWith("wrote ") || l.startsWith("Model ")) {
+                        if (l.strip().startsWith("wrote ") || l.startsWith("Model ")) {
                             shownLines.add(l);
                         }
                     }
                     s.output().stream().filter(l -> !l.isBlank() && !EXIT.matcher(l).matches()).reduce((a, b) -> b).ifPresent(shownLines::add);
                     for (String l : shownLines) {
-                        assertTrue(r.out.lines().anyMatch(l.strip()::equals) || r.err.lines().anyMatch(l.strip()::equals),
+                        assertTrue(Stream.of(r.out, r.err).flatMap(String::lines).map(String::strip).anyMatch(l.strip()::equals),
                                 s.where() + ": shown line not printed: " + l + "\n" + r);
                     }
                     counts[0]++;
