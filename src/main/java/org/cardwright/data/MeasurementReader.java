@@ -436,6 +436,6 @@ public final class MeasurementReader {
 
     /** A temperature for messages, in K and degrees Celsius. */
     static String kelvinText(double kelvin) {
-        return kelvin + " K (" + (float) (kelvin - CELSIUS_ZERO) + " degC)";
+        return (float) kelvin + " K (" + (float) (kelvin - CELSIUS_ZERO) + " degC)";
     }
 }
