@@ -69,6 +69,10 @@ class FakeSimulatorTest {
                 new Fault("setsid-grandchild-left-behind", false,
                         "setsid sh -c 'echo $$ >> \"$PIDS\"; exec sleep 600' </dev/null >/dev/null 2>&1 &\nsleep 1\n"
                                 + "echo 'fake output' > points.raw\nexit 0\n", "no variable count"),
+                // ngspice puts "Model issue on line N :" and the reason on two lines: both reach the user, in one line
+                new Fault("two-line-warning", false, "echo 'Warning: Model issue on line 6 :'\n"
+                        + "echo 'unrecognized parameter (tbv1) - ignored'\nraw 0.65 1e-3 0 > points.raw\n",
+                        "Model issue on line 6 : / unrecognized parameter (tbv1) - ignored"),
                 new Fault("garbage", false, "echo 'this is not a table of numbers' > points.raw\n", "no variable count"),
                 new Fault("binary", false, "raw \"$(printf '\\001\\002\\377')\" 1e-3 0 > points.raw\n", "not a finite number"),
                 new Fault("nan", false, "raw nan nan 0 > points.raw\n", "'nan', not a finite number"),
