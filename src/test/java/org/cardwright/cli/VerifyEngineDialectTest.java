@@ -117,6 +117,17 @@ class VerifyEngineDialectTest {
     }
 
     @Test
+    void compareAppliesTheSameRuleToBothCards() {
+        Simulators.requireNgspice();
+        CliRun r = CliRun.of("compare", card(Dialect.NGSPICE).toString(), card(Dialect.GNUCAP).toString(), "--engine", "ngspice");
+        assertEquals(ExitCodes.USAGE, r.exitCode(), r.describe());
+        assertEquals(List.of("cardwright: " + card(Dialect.GNUCAP) + ": gnucap card not checkable with engine ngspice, which does "
+                + "not read gnucap cards as gnucap 2017.10.03 does; use --engine builtin or --engine gnucap"), r.errLines());
+        CliRun builtin = CliRun.of("compare", card(Dialect.NGSPICE).toString(), card(Dialect.GNUCAP).toString());
+        assertTrue(builtin.exitCode() == ExitCodes.OK || builtin.exitCode() == ExitCodes.NOT_REPRODUCED, builtin.describe());
+    }
+
+    @Test
     void everyBreakdownFigureOfEveryEngineAndDialectIsFiniteAndInRange() {
         for (String engine : ENGINES) {
             requireSimulator(engine);
