@@ -24,7 +24,7 @@ import picocli.CommandLine.Parameters;
                     + "per card and a table with a row per card and kind; writes a JUnit XML report on request. A card "
                     + "whose dialect the engine does not read is reported not checkable (neither pass nor failure). "
                     + "Exits 0 when every card that was run passes, 1 when any card fails, is missing, or is out of date "
-                    + "(its device file, data or templates changed since it was made), or when no card could be run."},
+                    + "(its device file, data, templates or cardwright's version changed since it was made), or when no card could be run."},
         footerHeading = "%nExamples%n",
         footer = {
             "  cardwright check fixtures/library",

@@ -63,7 +63,8 @@ final class CompareCommand implements Callable<Integer> {
     SimulatorTimeLimit simulatorTimeLimit = new SimulatorTimeLimit();
 
     @Option(names = "--engine", paramLabel = "E", defaultValue = "builtin", converter = OptionConverters.Engine.class,
-            description = "Who simulates: ${COMPLETION-CANDIDATES} (default: ${DEFAULT-VALUE}).")
+            description = "Who simulates: ${COMPLETION-CANDIDATES} (default: ${DEFAULT-VALUE}). It must read both cards' "
+                    + "dialects (ngspice: ngspice and spice3 cards; gnucap: gnucap cards; builtin: all), else exit 2.")
     EngineChoice engine;
 
     @Option(names = "--temp", split = ",", paramLabel = "DEGC",

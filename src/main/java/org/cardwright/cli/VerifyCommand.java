@@ -53,7 +53,9 @@ final class VerifyCommand implements Callable<Integer> {
     SimulatorTimeLimit simulatorTimeLimit = new SimulatorTimeLimit();
 
     @Option(names = "--engine", paramLabel = "E", defaultValue = "builtin",
-            description = "Who simulates: " + Engines.NAMES + " (default: ${DEFAULT-VALUE}).")
+            description = "Who simulates: " + Engines.NAMES + " (default: ${DEFAULT-VALUE}). An engine runs only cards of a "
+                    + "dialect it reads (ngspice: ngspice and spice3 cards; gnucap: gnucap cards; builtin: all); any other "
+                    + "card is refused with exit 2, as check reports it not checkable.")
     String engine;
 
     @Option(names = "--model", paramLabel = "NAME", description = "The model name the card must carry (a card file holds one .model).")

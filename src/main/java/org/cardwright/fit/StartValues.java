@@ -236,9 +236,9 @@ final class StartValues {
         return isAtT / factor;
     }
 
+    /** The upper median of the finite values of {@code v[from..to)} ({@link Medians#upperMedian}). */
     private static double median(double[] v, int from, int to) {
-        double[] w = java.util.Arrays.stream(v, from, to).filter(Double::isFinite).sorted().toArray();
-        return w.length == 0 ? Double.NaN : w[w.length / 2];
+        return Medians.upperMedian(v, from, to);
     }
 
     private static double[] regress(List<FitPoint> pts, java.util.function.ToDoubleFunction<FitPoint> fx,

@@ -31,7 +31,7 @@ public record CardCheck(String device, String model, String card, Status status,
         PASS,
         /** The card does not reproduce its data within the part's tolerances. */
         FAIL,
-        /** The card reproduces its data, but the device file, data or templates changed since it was built. */
+        /** The card reproduces its data, but the device file, data, templates or cardwright's version changed since it was built. */
         OUTDATED,
         /** The card does not exist. */
         MISSING,

@@ -165,6 +165,30 @@ public final class LibraryCheck {
         return out;
     }
 
+    /** A version as a card header may state it: plain characters, bounded (a card is data, its text is not trusted). */
+    private static final java.util.regex.Pattern BUILT_BY =
+            java.util.regex.Pattern.compile("^\\* model \\S+: .*, written by cardwright ([0-9A-Za-z.+_-]{1,40}) \\(");
+
+    /**
+     * Why an outdated card's inputs digest differs: when its header says another cardwright version wrote it, that
+     * (the version is part of the digest, docs/library.md); otherwise any of the inputs.
+     */
+    static String outdatedBecause(Path card) {
+        String other = null;
+        try (java.io.BufferedReader in = Files.newBufferedReader(card, java.nio.charset.StandardCharsets.UTF_8)) {
+            String first = in.readLine();
+            java.util.regex.Matcher m = first == null ? null : BUILT_BY.matcher(first);
+            if (m != null && m.find() && !m.group(1).equals(org.cardwright.workflow.ToolVersion.get())) {
+                other = m.group(1);
+            }
+        } catch (IOException e) {
+            other = null;  // the generic reason below; the card itself was read by the check just made
+        }
+        return other != null
+                ? "it was built by cardwright " + other + " and this is cardwright " + org.cardwright.workflow.ToolVersion.get()
+                : "the device file, data, templates or cardwright's version changed since it was built";
+    }
+
     private CardCheck checkCard(DeviceFile part, Dialect d, Path card, String cardName, String name,
                                 StagedInputs inputs, boolean stale, Optional<BuildState> state, long t0) throws IOException {
         JunctionVerification all;
@@ -193,7 +217,7 @@ public final class LibraryCheck {
         if (stale && !allowStale) {
             return new CardCheck(name, part.model(), cardName, CardCheck.Status.OUTDATED,
                     "reproduces its data (" + worst + ") but " + (state.isEmpty() ? "has no state file"
-                            : "the device file, data or templates changed since it was built") + "; run cardwright build",
+                            : outdatedBecause(card)) + "; run cardwright build",
                     v, seconds(t0), Optional.of(all));
         }
         return new CardCheck(name, part.model(), cardName, CardCheck.Status.PASS,

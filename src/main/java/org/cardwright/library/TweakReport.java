@@ -82,7 +82,13 @@ public record TweakReport(String model, String tweak, String parameter, String f
             Path parent = deviceFile.toAbsolutePath().normalize().getParent();
             return parent == null ? Path.of("/") : parent;
         });
-        DeviceFile part = new DeviceFileReader(libraryRoot, allowOutsideRoot).read(deviceFile).withTweak(Optional.of(tweak));
+        DeviceFile asBuilt = new DeviceFileReader(libraryRoot, allowOutsideRoot).read(deviceFile);
+        // a tweak of a term the built card leaves off is refused before any fit (the fit would leave it off again)
+        java.util.Optional<org.cardwright.failure.UsageException> refused = Tweaker.refusedUpFront(asBuilt, tweak);
+        if (refused.isPresent()) {
+            throw refused.get();
+        }
+        DeviceFile part = asBuilt.withTweak(Optional.of(tweak));
         Path root = part.folder();
         if (out.isPresent() && org.cardwright.workflow.OutputPlan.located(out.get())
                 .equals(org.cardwright.workflow.OutputPlan.located(part.cardFolder()))) {

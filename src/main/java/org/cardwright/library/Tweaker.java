@@ -62,11 +62,7 @@ final class Tweaker {
             throws DeviceFileException, LibraryInputException, FitInputException, OutputException, IOException {
         PartFitter.Fitted base = new PartFitter().fit(part, root, recipe, List.of(), List.of());
         if (!base.full().parameters().isGiven(tweak.param())) {
-            String k = tweak.param().keyword();
-            throw new org.cardwright.failure.UsageException("tweak " + tweak.text() + " refused: the fit of "
-                    + part.model() + " (" + part.path().getFileName() + ") left " + k + " off the card, and a tweak "
-                    + "changes a value the card states, it adds no term; to add " + k + ", put a rule in the device file "
-                    + "(rules: - " + k + "=VALUE to fix it, or " + k + "=free to let the fit decide) and run cardwright build");
+            throw absentTerm(part, tweak);
         }
         double fitted = base.full().parameters().get(tweak.param());
         double value = tweak.apply(fitted);
@@ -118,6 +114,49 @@ final class Tweaker {
         }
         return new Result(base, new PartFitter.Fitted(cards, base.full(), base.points(), base.notes(), base.warnings()),
                 tweak, fitted, value, notes);
+    }
+
+    /** The refusal of a tweak of a term the fit left off {@code part}'s card (exit 2). */
+    static org.cardwright.failure.UsageException absentTerm(DeviceFile part, Tweak tweak) {
+        String k = tweak.param().keyword();
+        return new org.cardwright.failure.UsageException("tweak " + tweak.text() + " refused: the fit of "
+                + part.model() + " (" + part.path().getFileName() + ") left " + k + " off the card, and a tweak "
+                + "changes a value the card states, it adds no term; to add " + k + ", put a rule in the device file "
+                + "(rules: - " + k + "=VALUE to fix it, or " + k + "=free to let the fit decide) and run cardwright build");
+    }
+
+    /**
+     * The refusal of a tweak of an absent term, decided before any fit from the part's built ngspice card (the full
+     * fit's card: every other dialect carries a subset of its terms) when that card is up to date: the state file's
+     * inputs digest is {@code asBuilt}'s, and build wrote the card as it is (not edited by hand). A tweak adds no term
+     * and its refit keeps the base fit's terms, so the built card's terms are the base fit's. Empty when the card
+     * does not decide it (no ngspice card, not built, outdated or edited, or the card states the parameter); the
+     * check after the base fit then stands.
+     *
+     * @param asBuilt the part as its device file states it, without the tweak asked for
+     */
+    static java.util.Optional<org.cardwright.failure.UsageException> refusedUpFront(DeviceFile asBuilt, Tweak tweak)
+            throws DeviceFileException, IOException {
+        if (!asBuilt.dialects().contains(org.cardwright.card.Dialect.NGSPICE)) {
+            return java.util.Optional.empty();
+        }
+        Path card = asBuilt.cardPath(org.cardwright.card.Dialect.NGSPICE);
+        java.util.Optional<BuildState> state = BuildState.read(asBuilt.statePath());
+        if (state.isEmpty() || !java.nio.file.Files.isRegularFile(card)
+                || !state.get().wrote(card.getFileName().toString(), org.cardwright.data.Sha256.hex(card))
+                || !state.get().recipe().equals(Recipe.of(asBuilt).sha256())) {
+            return java.util.Optional.empty();
+        }
+        org.cardwright.card.ParsedCard parsed;
+        try {
+            String source = card.toString();
+            parsed = new org.cardwright.card.CardReader().parse(org.cardwright.card.CardReader.readText(card, source),
+                    source, org.cardwright.card.Dialect.NGSPICE, java.util.Optional.of(asBuilt.model()));
+        } catch (org.cardwright.card.CardFormatException e) {
+            return java.util.Optional.empty();  // the fit decides, as before
+        }
+        return parsed.parameters().isGiven(tweak.param()) ? java.util.Optional.empty()
+                : java.util.Optional.of(absentTerm(asBuilt, tweak));
     }
 
     /**

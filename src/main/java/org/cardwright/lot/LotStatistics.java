@@ -224,11 +224,9 @@ public record LotStatistics(Map<Param, Summary> parameters, Map<String, String> 
         return Math.sqrt(s / (x.length - 1));
     }
 
+    /** The median (the mean of the two middle values for an even count), by Commons Math through {@code fit}. */
     static double median(double[] x) {
-        double[] s = x.clone();
-        Arrays.sort(s);
-        int n = s.length;
-        return n % 2 == 1 ? s[n / 2] : 0.5 * (s[n / 2 - 1] + s[n / 2]);
+        return org.cardwright.fit.Medians.median(x);
     }
 
     static double mad(double[] x, double median) {

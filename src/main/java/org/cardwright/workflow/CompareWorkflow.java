@@ -93,6 +93,9 @@ public final class CompareWorkflow {
         Read a = read(request.cardA(), da, request.modelA());
         Read b = read(request.cardB(), db, request.modelB());
         String engine = request.engine().toString();
+        // verify's and check's rule: an engine runs only cards of a dialect it speaks, or it judges other equations
+        Engines.requireSpeaks(engine, da, Inputs.displayName(request.cardA()));
+        Engines.requireSpeaks(engine, db, Inputs.displayName(request.cardB()));
         // the built-in engine evaluates each card with the equations of the simulator it was written for
         CardComparison c = new CardComparer(Engines.byName(engine, da.flavour()), Engines.capacitanceByName(engine, da.flavour()),
                 Engines.byName(engine, db.flavour()), Engines.capacitanceByName(engine, db.flavour()))

@@ -102,6 +102,34 @@ public final class Engines {
         };
     }
 
+    /** The engines that read cards of {@code dialect} as its simulator does ({@link #speaks}), in {@link #NAMES} order. */
+    public static java.util.List<String> speakersOf(org.cardwright.card.Dialect dialect) {
+        java.util.List<String> out = new java.util.ArrayList<>();
+        for (String n : NAMES.split(",\\s*")) {
+            if (speaks(n, dialect)) {
+                out.add(n);
+            }
+        }
+        return out;
+    }
+
+    /**
+     * Refuses to run a card in an engine that does not speak its dialect ({@link #speaks}): the same rule as
+     * {@code check}'s "not checkable", as one line naming the card file, its dialect, the engine and the engines
+     * that can run it. A usage error (exit 2): the engine chosen on the command line does not fit the card.
+     *
+     * @throws org.cardwright.failure.UsageException when {@code engine} does not speak {@code dialect}
+     */
+    public static void requireSpeaks(String engine, org.cardwright.card.Dialect dialect, String cardSource) {
+        if (speaks(engine, dialect)) {
+            return;
+        }
+        java.util.List<String> can = speakersOf(dialect);
+        throw new org.cardwright.failure.UsageException(cardSource + ": " + dialect.shortName() + " card not checkable with "
+                + "engine " + engine.toLowerCase(Locale.ROOT) + ", which does not read " + dialect.shortName() + " cards as "
+                + dialect.simulator() + " does; use " + String.join(" or ", can.stream().map(n -> "--engine " + n).toList()));
+    }
+
     /** The engine called {@code name}; ngspice is looked up on the PATH or in CARDWRIGHT_NGSPICE. */
     public static SimulationEngine byName(String name) throws SimulationException {
         return byName(name, org.cardwright.model.Flavour.NGSPICE_39);

@@ -169,19 +169,37 @@ public final class FitWorkflow {
     }
 
     /**
-     * One extraction. Its failures become fit failures (exit 4) that name the data files: a stage that did not
+     * One extraction. Its own failures become fit failures (exit 4) that name the data files: a stage that did not
      * converge, and the model's own checks (a start value or parameter that is no longer finite, a singular
-     * matrix), which only extreme data reach.
+     * matrix), which the fit itself turns into {@link org.cardwright.fit.FitFailedException} where it evaluates the
+     * model ({@code Optimiser.guarded}). Any other exception (an IllegalArgumentException or ArithmeticException
+     * thrown anywhere else) is a programming error and passes through, to be reported as an internal error (exit 70)
+     * naming its type, never as "the data cannot be fitted".
      */
     private static FitResult extract(FitSettings settings, FitRequest request,
                                      org.cardwright.fit.CapacitanceOptions capacitance, ExtractionData data)
             throws FitInputException {
+        return extracting(request.data(), () -> request.robust()
+                ? new RobustExtraction(settings, capacitance).fit(data)
+                : new JunctionExtraction(settings, capacitance).fit(data));
+    }
+
+    /** An extraction to run: the fit's own failure types only, checked or not. */
+    @FunctionalInterface
+    interface Extraction {
+        FitResult run() throws FitInputException;
+    }
+
+    /**
+     * Runs {@code extraction}; a {@link org.cardwright.fit.FitFailedException} becomes one that names {@code files}
+     * (exit 4), a {@link FitInputException} passes as it is (exit 4, it names its file), anything else passes
+     * untouched (a bug: exit 70 naming its type).
+     */
+    static FitResult extracting(List<java.nio.file.Path> files, Extraction extraction) throws FitInputException {
         try {
-            return request.robust()
-                    ? new RobustExtraction(settings, capacitance).fit(data)
-                    : new JunctionExtraction(settings, capacitance).fit(data);
-        } catch (org.cardwright.fit.FitFailedException | IllegalArgumentException | ArithmeticException e) {
-            throw new org.cardwright.fit.FitFailedException(request.data().stream().map(Inputs::displayName)
+            return extraction.run();
+        } catch (org.cardwright.fit.FitFailedException e) {
+            throw new org.cardwright.fit.FitFailedException(files.stream().map(Inputs::displayName)
                     .collect(Collectors.joining(", ")) + ": the data cannot be fitted: " + e.getMessage());
         }
     }

@@ -41,6 +41,12 @@ public final class VerifyWorkflow {
     public static final double BREAKDOWN_RMS_FRACTION = 0.005;
     /** See {@link #BREAKDOWN_RMS_FRACTION} [1]. */
     public static final double BREAKDOWN_MAX_FRACTION = 0.01;
+    /**
+     * A breakdown point is reached when the card carries its current within twice its measured voltage; beyond that
+     * the card has missed it by 100 % or more, 100 times the breakdown RMS limit, and the point is counted at that
+     * edge ({@link Verifier#withReach}) so that no figure runs off to the I/GMIN of a card without breakdown [1].
+     */
+    public static final double BREAKDOWN_REACH = 2;
 
     /**
      * The forward I-V section alone, for callers that report only forward residuals; prefer {@link #runAll}.
@@ -81,6 +87,9 @@ public final class VerifyWorkflow {
         } else {
             parsed = new CardReader().parse(text, cardSource, request.dialect(), request.model());
         }
+        // the card is read (a malformed card is refused as such), then, before any data are read or anything runs:
+        // an engine that does not speak the card's dialect would judge another simulator's equations
+        Engines.requireSpeaks(request.engine(), request.dialect(), cardSource);
         ReadOptions options = request.readOptions();
         Inputs inputs = Inputs.read(request.data(), options, request::givenFor);
         org.cardwright.fit.CapacitanceOptions capacitanceOptions = inputs.capacitanceOptions(request.capacitance());
@@ -122,7 +131,8 @@ public final class VerifyWorkflow {
             if (!parsed.parameters().isGiven(org.cardwright.model.Param.BV) || !request.dialect().flavour().spiceReverse()) {
                 bdNotes.add("the card carries no breakdown (BV), so it cannot reach these reverse currents at any sensible voltage");
             }
-            breakdown = Optional.of(new Verifier(engine, t, request.verdict()).verify(card, pts, bdNotes));
+            breakdown = Optional.of(new Verifier(engine, t, request.verdict()).withReach(BREAKDOWN_REACH)
+                    .verify(card, pts, bdNotes));
         }
         Optional<LeakageVerification> leakage = Optional.empty();
         if (!split.leakage().isEmpty()) {

@@ -117,13 +117,14 @@ class CheckEveryKindTest {
     }
 
     @Test
-    void aSimulatorsWarningReachesTheUserWhole() throws Exception {
-        Simulators.requireNgspice();
-        // verify runs the card in the engine it is told to; ngspice warns on two lines, and both reach the user
+    void verifyRefusesTheXyceCardInNgspiceAsCheckReportsItNotCheckable() throws Exception {
+        // verify used to run the Xyce card in ngspice, which warned "Model issue on line ... unrecognized parameter
+        // (tbv1)"; it now applies check's rule before anything runs (that a simulator's warning reaches the user whole
+        // is FakeSimulatorTest's "two-line-warning")
         CliRun r = CliRun.of("verify", root.resolve("z/Z6.xyce.lib").toString(), "--engine", "ngspice",
                 root.resolve("z/data/forward-25C.csv").toString());
-        assertEquals(ExitCodes.SIMULATOR_FAILED, r.exitCode(), r.describe());
-        assertTrue(r.err().contains("Model issue on line"), r.describe());
-        assertTrue(r.err().contains("unrecognized parameter (tbv1)"), r.describe());
+        assertEquals(ExitCodes.USAGE, r.exitCode(), r.describe());
+        assertTrue(r.err().contains("xyce card not checkable with engine ngspice"), r.describe());
+        assertFalse(r.err().contains("Model issue"), r.describe());
     }
 }

@@ -84,6 +84,33 @@ class ExitCodeMappingTest {
         }
     }
 
+    /**
+     * Issue 11, left open after its second round: an IllegalArgumentException or ArithmeticException from deep in a
+     * fit read as exit 4, "the data cannot be fitted". What reaches the command line now: the fit's own failure is
+     * exit 4 with its message; any other exception is exit 70, an internal error naming its type.
+     */
+    @Test
+    void onlyTheFitsOwnFailureIsExitFourAndABugIsAnInternalErrorNamingItsType() {
+        Object[][] cases = {
+            {new org.cardwright.fit.FitFailedException("a.csv: the data cannot be fitted: singular matrix"), ExitCodes.FIT_FAILED,
+                "cardwright: a.csv: the data cannot be fitted: singular matrix"},
+            {new org.cardwright.fit.FitInputException("a.csv:3: only 2 forward points"), ExitCodes.FIT_FAILED,
+                "cardwright: a.csv:3: only 2 forward points"},
+            {new IllegalArgumentException("index -1"), ExitCodes.INTERNAL_ERROR,
+                "cardwright: internal error (IllegalArgumentException): index -1; please report it with the output of --stack-trace"},
+            {new ArithmeticException("/ by zero"), ExitCodes.INTERNAL_ERROR,
+                "cardwright: internal error (ArithmeticException): / by zero; please report it with the output of --stack-trace"},
+        };
+        for (Object[] c : cases) {
+            java.io.StringWriter err = new java.io.StringWriter();
+            picocli.CommandLine commandLine = Main.commandLine("fit");
+            commandLine.setErr(new java.io.PrintWriter(err));
+            int code = Main.handle((Exception) c[0], commandLine);
+            assertEquals(c[1], code, c[0].toString());
+            assertEquals(c[2], err.toString().strip(), c[0].toString());
+        }
+    }
+
     @Test
     void aWrongOptionValueIsStillAUsageError() {
         CliRun run = CliRun.of("fit", DEMO.toString(), "--name", "X", "--digits", "99", "--out",
