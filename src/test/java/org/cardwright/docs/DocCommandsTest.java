@@ -347,7 +347,7 @@ class DocCommandsTest {
             List<String> lines = Files.readAllLines(d);
             for (int n = 0; n < lines.size(); n++) {
                 String line = lines.get(n);
-                if (line.contains("/work/") || line.contains("/home/")) {
+                if (line.contains("/work/") || line.contains("/home/")) {  // hygiene: not a path (the words a doc must not contain)
                     missing.add(doc + ":" + (n + 1) + ": names a file outside the repository: " + line.strip());
                 }
                 Matcher m = PATH.matcher(line);
