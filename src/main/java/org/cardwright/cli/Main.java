@@ -50,7 +50,9 @@ public final class Main implements Runnable {
     }
 
     public static void main(String[] args) {
-        System.exit(execute(args));
+        int code = execute(args);
+        StartupTraining.afterCommand();  // only on the launcher's archive-making run
+        System.exit(code);
     }
 
     /** Runs the command line and returns the exit code; never calls System.exit. */
