@@ -50,9 +50,7 @@ public final class Main implements Runnable {
     }
 
     public static void main(String[] args) {
-        int code = execute(args);
-        StartupTraining.afterCommand();  // only on the launcher's archive-making run
-        System.exit(code);
+        System.exit(execute(args));
     }
 
     /** Runs the command line and returns the exit code; never calls System.exit. */
