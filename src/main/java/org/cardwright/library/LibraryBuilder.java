@@ -126,9 +126,12 @@ public final class LibraryBuilder {
     PartOutcome buildPart(Path root, Path device) {
         long start = System.nanoTime();
         String name = LibraryPaths.display(root, device);
-        DeviceFile part;
+        DeviceFile part = inventory == null ? null : inventory.part(device).orElse(null);
         try {
-            part = new DeviceFileReader(root, allowOutsideRoot).read(device);
+            if (part == null) {
+                // not in the inventory (a build of one part), or it did not read there: read it here, for its message
+                part = new DeviceFileReader(root, allowOutsideRoot).read(device);
+            }
         } catch (DeviceFileException e) {
             return failed(name, device.getFileName().toString(), PartOutcome.Status.BAD_INPUT, e.getMessage(), start);
         }
@@ -149,6 +152,7 @@ public final class LibraryBuilder {
             }
             List<String> edited = new ArrayList<>();
             boolean missing = false;
+            Map<Dialect, String> onDisk = new java.util.EnumMap<>(Dialect.class);
             for (Dialect d : part.dialects()) {
                 Path card = part.cardPath(d);
                 if (!Files.exists(card)) {
@@ -156,6 +160,7 @@ public final class LibraryBuilder {
                     continue;
                 }
                 String hash = Sha256.hex(card);
+                onDisk.put(d, hash);
                 if (state.isEmpty() || !state.get().wrote(card.getFileName().toString(), hash)) {
                     edited.add(LibraryPaths.display(root, card));
                 }
@@ -168,7 +173,7 @@ public final class LibraryBuilder {
                         + " to overwrite it, build with --replace-edited", start);
             }
             if (edited.isEmpty() && !missing && state.isPresent() && state.get().recipe().equals(recipe.sha256())
-                    && settled(part, state.get())) {
+                    && settled(part, state.get(), onDisk)) {
                 return new PartOutcome(name, part.model(), PartOutcome.Status.UP_TO_DATE, "", List.of(), List.of(),
                         seconds(start), List.of());
             }
@@ -263,12 +268,16 @@ public final class LibraryBuilder {
                 seconds(start), fitted.notes(), fitted.warnings());
     }
 
-    /** True when every card has exactly one recorded hash (no build was interrupted) and it is the card's. */
-    private static boolean settled(DeviceFile part, BuildState state) throws IOException {
+    /**
+     * True when every card has exactly one recorded hash (no build was interrupted) and it is the card's.
+     *
+     * @param onDisk every card's SHA-256 as just read
+     */
+    private static boolean settled(DeviceFile part, BuildState state, Map<Dialect, String> onDisk) {
         for (Dialect d : part.dialects()) {
             Path card = part.cardPath(d);
             Set<String> hashes = state.cards().getOrDefault(card.getFileName().toString(), Set.of());
-            if (hashes.size() != 1 || !hashes.contains(Sha256.hex(card))) {
+            if (hashes.size() != 1 || !hashes.contains(onDisk.get(d))) {
                 return false;
             }
         }

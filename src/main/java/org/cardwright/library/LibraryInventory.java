@@ -52,6 +52,11 @@ public final class LibraryInventory {
         return inv;
     }
 
+    /** The part read from {@code device} when it read cleanly; empty otherwise (its own read then reports why). */
+    Optional<DeviceFile> part(Path device) {
+        return Optional.ofNullable(parts.get(device));
+    }
+
     /**
      * The one-line error when another device file claims the same model name as {@code device}, naming both files
      * and the line of each one's model key; empty when the name is its own.

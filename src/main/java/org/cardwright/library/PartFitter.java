@@ -27,6 +27,7 @@ import org.cardwright.model.Param;
 import org.cardwright.workflow.FitOutcome;
 import org.cardwright.workflow.FitRequest;
 import org.cardwright.workflow.FitWorkflow;
+import org.cardwright.workflow.Inputs;
 import org.cardwright.workflow.OutputException;
 import org.cardwright.workflow.ToolVersion;
 
@@ -91,6 +92,26 @@ final class PartFitter {
         }
     }
 
+    /**
+     * What a part's fit read, kept so that each card's check reads nothing again.
+     *
+     * @param staged its readable files and the conditions the device file gives them
+     * @param inputs those files read as the fit and verify jobs read them (every data kind)
+     */
+    record Read(StagedInputs staged, Inputs inputs) {
+        /** Reads the data of {@code part} as verify reads them (the default reading conditions, the device file's). */
+        static Read of(DeviceFile part, Path root) throws DeviceFileException, LibraryInputException, IOException {
+            StagedInputs staged = StagedInputs.of(part, root);
+            try {
+                return new Read(staged, Inputs.read(staged.paths(), FitRequest.BenchOptions.DEFAULT.readOptions(staged.temperature()),
+                        p -> staged.conditions().getOrDefault(p, org.cardwright.data.GivenConditions.NONE)
+                                .orElse(Inputs.commandLine(org.cardwright.fit.CapacitanceOptions.DEFAULT))));
+            } catch (DataFileException e) {
+                throw new LibraryInputException(staged.displayName(e.getMessage()), e);
+            }
+        }
+    }
+
     /** Fits {@code part} with extra rules (after the device file's, so they win); {@code extraLines} go on the cards. */
     Fitted fit(DeviceFile part, Path root, Recipe recipe, List<ParameterRule> extraRules, List<String> extraLines)
             throws DeviceFileException, LibraryInputException, FitInputException, OutputException, IOException {
@@ -108,13 +129,17 @@ final class PartFitter {
                     .withConditions(inputs.conditions());
             FitOutcome outcome;
             try {
-                outcome = new FitWorkflow().run(request, o -> "");
+                // the fit job's own cards are not written: the library's are rendered below
+                outcome = new FitWorkflow().prepare(request);
             } catch (DataFileException e) {
                 throw new LibraryInputException(inputs.displayName(e.getMessage()), e);
             } catch (FitInputException e) {
                 throw new FitInputException(inputs.displayName(e.getMessage()));
             }
             checkKinds(part, outcome);
+            // the fit read every kind with the conditions a verify of the part reads them with: each card is checked
+            // against the same inputs, not read again
+            Read read = new Read(inputs, outcome.inputs());
             List<Card> cards = new ArrayList<>();
             for (FitOutcome.WrittenCard w : outcome.cards()) {
                 FitResult forCard = w.refit().orElse(outcome.fit());
@@ -124,7 +149,7 @@ final class PartFitter {
                     // the plain card is the junction alone; its header says so and what that costs, as fit's does
                     w.text().lines().filter(l -> l.startsWith("* junction alone: ")).map(l -> l.substring(2)).forEach(lines::add);
                 }
-                Card plain = checkedRender(part, root, recipe, part.rules(), w.dialect(), forCard.parameters(),
+                Card plain = checkedRender(part, read, recipe, part.rules(), w.dialect(), forCard.parameters(),
                         outcome.fit().points(), Residual.of(forCard), w.leftOut(),
                         w.leftOut().isEmpty() ? "" : forCard.costAgainst(outcome.fit()), lines);
                 cards.add(plain);
@@ -170,34 +195,39 @@ final class PartFitter {
                               DiodeParameters parameters, int points, List<Residual> residuals, List<Param> leftOut,
                               String leftOutCost, List<String> extraLines)
             throws DeviceFileException, LibraryInputException, IOException {
+        return checkedRender(part, Read.of(part, root), recipe, rules, dialect, parameters, points, residuals, leftOut,
+                leftOutCost, extraLines);
+    }
+
+    /** {@link #checkedRender(DeviceFile, Path, Recipe, List, Dialect, DiodeParameters, int, List, List, String, List)} with the part's data already read. */
+    static Card checkedRender(DeviceFile part, Read read, Recipe recipe, List<ParameterRule> rules, Dialect dialect,
+                              DiodeParameters parameters, int points, List<Residual> residuals, List<Param> leftOut,
+                              String leftOutCost, List<String> extraLines)
+            throws LibraryInputException, IOException {
         Card first = render(part, recipe, rules, dialect, parameters, points, residuals, leftOut, leftOutCost, extraLines);
-        org.cardwright.verify.JunctionVerification v = check(part, root, dialect, first.text());
+        org.cardwright.verify.JunctionVerification v = check(part, read, dialect, first.text());
         return render(part, recipe, rules, dialect, parameters, points, residuals, leftOut, leftOutCost, extraLines,
                 Optional.of(v));
     }
 
-    /** {@code text}, a card of {@code part} in {@code dialect}, re-simulated by the built-in engine at every data kind. */
-    static org.cardwright.verify.JunctionVerification check(DeviceFile part, Path root, Dialect dialect, String text)
-            throws DeviceFileException, LibraryInputException, IOException {
-        Path scratch = Files.createTempDirectory("cardwright-card-");
+    /**
+     * {@code text}, a card of {@code part} in {@code dialect}, re-simulated by the built-in engine at every data kind of
+     * {@code read}: the card is parsed from the text as a file of it would be read, and the data are those already read.
+     */
+    static org.cardwright.verify.JunctionVerification check(DeviceFile part, Read read, Dialect dialect, String text)
+            throws LibraryInputException, IOException {
+        StagedInputs inputs = read.staged();
+        org.cardwright.workflow.VerifyRequest request = new org.cardwright.workflow.VerifyRequest(part.cardPath(dialect),
+                inputs.paths(), "builtin", Optional.of(part.model()), dialect, inputs.temperature(), part.tolerances().forward(),
+                Optional.empty(), false, org.cardwright.fit.CapacitanceOptions.DEFAULT, FitRequest.BenchOptions.DEFAULT,
+                LibraryCheck.basis(part, Optional.empty())).withConditions(inputs.conditions());
         try {
-            StagedInputs inputs = StagedInputs.of(part, root);
-            Path card = scratch.resolve(part.cardPath(dialect).getFileName());
-            Files.writeString(card, text, java.nio.charset.StandardCharsets.UTF_8);
-            org.cardwright.workflow.VerifyRequest request = new org.cardwright.workflow.VerifyRequest(card, inputs.paths(),
-                    "builtin", Optional.of(part.model()), dialect, inputs.temperature(), part.tolerances().forward(),
-                    Optional.empty(), false, org.cardwright.fit.CapacitanceOptions.DEFAULT, FitRequest.BenchOptions.DEFAULT,
-                    LibraryCheck.basis(part, Optional.empty())).withConditions(inputs.conditions());
-            try {
-                return new org.cardwright.workflow.VerifyWorkflow().runAll(request, x -> "");
-            } catch (DataFileException e) {
-                throw new LibraryInputException(inputs.displayName(e.getMessage()), e);
-            } catch (org.cardwright.sim.process.SimulationException | OutputException e) {
-                // the built-in engine runs no process and the request writes no file
-                throw new IllegalStateException("the check of the card just written failed: " + e.getMessage(), e);
-            }
-        } finally {
-            deleteTree(scratch);
+            return new org.cardwright.workflow.VerifyWorkflow().runAll(request, text, read.inputs());
+        } catch (DataFileException e) {
+            throw new LibraryInputException(inputs.displayName(e.getMessage()), e);
+        } catch (org.cardwright.sim.process.SimulationException | OutputException e) {
+            // the built-in engine runs no process and the request writes no file
+            throw new IllegalStateException("the check of the card just written failed: " + e.getMessage(), e);
         }
     }
 
@@ -260,7 +290,8 @@ final class PartFitter {
             if (!s.kind().readable()) {
                 sb.append("; not read by this version");
             }
-            sb.append(") sha256 ").append(Sha256.hex(s.resolve(part.folder())));
+            String hash = recipe.dataSha256().get(s.file());
+            sb.append(") sha256 ").append(hash != null ? hash : Sha256.hex(s.resolve(part.folder())));
             lines.add(sb.toString());
         }
         if (!rules.isEmpty()) {

@@ -16,8 +16,14 @@ import org.cardwright.workflow.ToolVersion;
  *
  * @param text the canonical text
  * @param sha256 its SHA-256
+ * @param dataSha256 the SHA-256 of each data file as the text states it, by the file's name as the device file writes
+ *                   it: the cards' provenance names the same hashes without reading the files again
  */
-public record Recipe(String text, String sha256) {
+public record Recipe(String text, String sha256, java.util.Map<String, String> dataSha256) {
+    public Recipe {
+        dataSha256 = java.util.Map.copyOf(dataSha256);
+    }
+
     /** Bump when the meaning of the recipe text changes. */
     static final String FORMAT = "cardwright build recipe 1";
 
@@ -28,6 +34,7 @@ public record Recipe(String text, String sha256) {
         sb.append("tool ").append(ToolVersion.get()).append('\n');
         sb.append("device-file ").append(part.path().getFileName()).append('\n');
         sb.append(part.canonicalSettings());
+        java.util.Map<String, String> hashes = new java.util.HashMap<>();
         for (DataSource s : part.data()) {
             Path p = s.resolve(part.folder());
             if (Files.exists(p) && !Files.isRegularFile(p)) {
@@ -37,13 +44,31 @@ public record Recipe(String text, String sha256) {
             if (!Files.isRegularFile(p)) {
                 throw new DeviceFileException(part.path(), s.line(), "data file not found: " + org.cardwright.card.Excerpts.quoted(s.file()));
             }
-            sb.append("data-sha256 ").append(s.file()).append(' ').append(Sha256.hex(p)).append('\n');
+            String hash = Sha256.hex(p);
+            hashes.put(s.file(), hash);
+            sb.append("data-sha256 ").append(s.file()).append(' ').append(hash).append('\n');
         }
         for (Dialect d : part.dialects()) {
-            sb.append("template ").append(d.shortName()).append(' ').append(Sha256.hex(templateBytes(part, d))).append('\n');
+            sb.append("template ").append(d.shortName()).append(' ').append(templateSha256(part, d)).append('\n');
         }
         String text = sb.toString();
-        return new Recipe(text, Sha256.hex(text));
+        return new Recipe(text, Sha256.hex(text), hashes);
+    }
+
+    /** The bundled templates' SHA-256, by dialect: the same for every part of a run, so read from the jar once. */
+    private static final java.util.Map<Dialect, String> BUNDLED_SHA256 = new java.util.concurrent.ConcurrentHashMap<>();
+
+    /** The SHA-256 of the template the card writer will use for {@code d}. */
+    private static String templateSha256(DeviceFile part, Dialect d) throws IOException {
+        if (part.templates().isEmpty()) {
+            String known = BUNDLED_SHA256.get(d);
+            if (known == null) {
+                known = Sha256.hex(templateBytes(part, d));
+                BUNDLED_SHA256.put(d, known);
+            }
+            return known;
+        }
+        return Sha256.hex(templateBytes(part, d));
     }
 
     /** The template the card writer will use for {@code d}: the part's template folder first, then the bundled one. */

@@ -6,7 +6,6 @@ import java.util.ArrayList;
 import java.util.List;
 import org.cardwright.card.SpiceNumbers;
 import org.cardwright.data.DataFileException;
-import org.cardwright.data.ReadOptions;
 import org.cardwright.fit.FitInputException;
 import org.cardwright.fit.ParameterRule;
 import org.cardwright.model.DiodeParameters;
@@ -92,7 +91,8 @@ final class Tweaker {
             return new Result(base, new PartFitter.Fitted(cards, refitted.full(), refitted.points(), refitted.notes(),
                     refitted.warnings()), tweak, fitted, value, notes);
         }
-        Inputs all = inputs(part, root);
+        PartFitter.Read read = PartFitter.Read.of(part, root);
+        Inputs all = read.inputs();
         List<MeasuredPoint> points = forwardPoints(all);
         org.cardwright.workflow.CardRange range = org.cardwright.workflow.CardRange.of(
                 org.cardwright.workflow.FitWorkflow.extractionData(all));
@@ -109,7 +109,7 @@ final class Tweaker {
             range.check("the " + c.dialect().shortName() + " card of " + part.model() + " with tweak " + tweak.text(), p,
                     new SimulatorOptions(SimulatorOptions.NGSPICE_DEFAULTS.gmin(), SimulatorOptions.NGSPICE_DEFAULTS.reltol(),
                             c.dialect().flavour()), frequency);
-            cards.add(PartFitter.checkedRender(part, root, recipe, part.rules(), c.dialect(), p, base.points(),
+            cards.add(PartFitter.checkedRender(part, read, recipe, part.rules(), c.dialect(), p, base.points(),
                     residuals(part.model(), p, points), c.leftOut(), c.leftOutCost(), List.of(line)));
         }
         return new Result(base, new PartFitter.Fitted(cards, base.full(), base.points(), base.notes(), base.warnings()),
@@ -180,22 +180,6 @@ final class Tweaker {
 
     private static String card(Tweak t, double si) {
         return SpiceNumbers.cardValue(t.param(), t.param().toCardValue(si), 7);
-    }
-
-    /** Every data kind of the part, read as the fit reads it. */
-    private static Inputs inputs(DeviceFile part, Path root)
-            throws DeviceFileException, LibraryInputException, IOException {
-        StagedInputs inputs = StagedInputs.of(part, root);
-        ReadOptions options = ReadOptions.defaults();
-        if (inputs.temperature().isPresent()) {
-            options = options.withDefaultTemperature(inputs.temperature().getAsDouble());
-        }
-        try {
-            return Inputs.read(inputs.paths(), options, p -> inputs.conditions().getOrDefault(p,
-                    org.cardwright.data.GivenConditions.NONE));
-        } catch (DataFileException e) {
-            throw new LibraryInputException(inputs.displayName(e.getMessage()), e);
-        }
     }
 
     /** The C-V test frequency the part's files state or are given [Hz]. */

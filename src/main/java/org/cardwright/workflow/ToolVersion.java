@@ -11,6 +11,15 @@ public final class ToolVersion {
 
     /** e.g. {@code 0.1.0}; {@code unknown} when run from classes without the build's resource. */
     public static String get() {
+        return Read.VERSION;
+    }
+
+    /** The resource is read once per run (a library build asks for every card it writes). */
+    private static final class Read {
+        static final String VERSION = read();
+    }
+
+    private static String read() {
         try (InputStream in = ToolVersion.class.getResourceAsStream("/org/cardwright/version.properties")) {
             if (in == null) {
                 return "unknown";

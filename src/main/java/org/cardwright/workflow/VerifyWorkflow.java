@@ -10,7 +10,6 @@ import java.util.function.Function;
 import org.cardwright.card.CardReader;
 import org.cardwright.card.ParsedCard;
 import org.cardwright.data.DataFileException;
-import org.cardwright.data.ReadOptions;
 import org.cardwright.fit.ExtractionData;
 import org.cardwright.fit.ReverseAnalysis;
 import org.cardwright.fit.ReversePoint;
@@ -70,8 +69,38 @@ public final class VerifyWorkflow {
                     .output("--json", request.json().get()).check();
             OutputFiles.checkWritable(List.of(request.json().get()), request.force());
         }
+        String text = CardReader.readText(request.card(), Inputs.displayName(request.card()));
+        return judge(request, text, () -> Inputs.read(request.data(), request.readOptions(), request::givenFor), jsonRenderer);
+    }
+
+    /**
+     * {@link #runAll(VerifyRequest, Function)} for a card already in memory and data already read, for a caller that
+     * holds both (a library build judges each card it renders against the inputs its fit read): nothing is read
+     * again, and no JSON is written ({@code request.json()} must be empty). The result is the one the file-reading
+     * entry gives for the same card text and files.
+     *
+     * @param cardText the card as its file holds it; {@code request.card()} names it in messages
+     * @param inputs   {@code request.data()} as {@link Inputs#read} reads them with the request's options and
+     *                 conditions
+     */
+    public JunctionVerification runAll(VerifyRequest request, String cardText, Inputs inputs)
+            throws DataFileException, SimulationException, OutputException, IOException {
+        if (request.json().isPresent()) {
+            throw new IllegalArgumentException("a verification of a card in memory writes no JSON");
+        }
+        return judge(request, cardText, () -> inputs, v -> "");
+    }
+
+    /** Reads the data, when the card has been read: a bad card is reported before the data are opened. */
+    @FunctionalInterface
+    private interface DataRead {
+        Inputs read() throws DataFileException;
+    }
+
+    private JunctionVerification judge(VerifyRequest request, String text, DataRead read,
+                                       Function<JunctionVerification, String> jsonRenderer)
+            throws DataFileException, SimulationException, OutputException, IOException {
         String cardSource = Inputs.displayName(request.card());
-        String text = CardReader.readText(request.card(), cardSource);
         ParsedCard parsed;
         double shuntResistance = Double.POSITIVE_INFINITY;
         if (org.cardwright.card.ShuntedCard.isSubcircuit(text, cardSource)) {
@@ -90,8 +119,7 @@ public final class VerifyWorkflow {
         // the card is read (a malformed card is refused as such), then, before any data are read or anything runs:
         // an engine that does not speak the card's dialect would judge another simulator's equations
         Engines.requireSpeaks(request.engine(), request.dialect(), cardSource);
-        ReadOptions options = request.readOptions();
-        Inputs inputs = Inputs.read(request.data(), options, request::givenFor);
+        Inputs inputs = read.read();
         org.cardwright.fit.CapacitanceOptions capacitanceOptions = inputs.capacitanceOptions(request.capacitance());
         ExtractionData data = FitWorkflow.extractionData(inputs);
         List<String> notes = new ArrayList<>(parsed.notices());
