@@ -228,16 +228,21 @@ public final class CapacitanceExtraction {
             double stray = options.strayCapacitance();
             double tnom = settings.nominalTemperature();
             List<CapacitancePoint> reference = referenceSweep(checkInput(points, stray), tnom);
-            CapacitanceStart.Depletion dep = CapacitanceStart.reverse(reference, stray);
-            double m = clampInto(Param.M, dep.gradingCoefficient());
-            double[] nominal = CapacitanceStart.toNominal(dep.junctionCapacitance(), dep.junctionPotential(), m,
-                    reference.get(0).temperature(), tnom);
-            double vj = clampInto(Param.VJ, nominal[1]);
+            // the closed form's own numerical refusals become a fit failure (Optimiser.guarded), nothing wider
+            double[] vjAndM = Optimiser.guarded(() -> {
+                CapacitanceStart.Depletion dep = CapacitanceStart.reverse(reference, stray);
+                double grading = clampInto(Param.M, dep.gradingCoefficient());
+                double[] nominal = CapacitanceStart.toNominal(dep.junctionCapacitance(), dep.junctionPotential(), grading,
+                        reference.get(0).temperature(), tnom);
+                return new double[] {clampInto(Param.VJ, nominal[1]), grading};
+            });
+            double vj = vjAndM[0];
+            double m = vjAndM[1];
             if (!Double.isFinite(vj) || !Double.isFinite(m)) {
                 return Map.of();
             }
             return Map.of(Param.VJ, vj, Param.M, m);
-        } catch (FitInputException | IllegalArgumentException | ArithmeticException e) {
+        } catch (FitInputException | FitFailedException e) {
             // the C-V stage itself reports what is wrong with the data
             return Map.of();
         }

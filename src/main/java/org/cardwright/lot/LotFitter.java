@@ -73,8 +73,6 @@ public final class LotFitter {
             capacitance = inputs.capacitanceOptions(settings.capacitance());
         } catch (DataFileException e) {
             throw new Failure("unreadable: " + part.describe(e));
-        } catch (RuntimeException e) {
-            throw new Failure("unreadable: " + e.getMessage());
         }
         ExtractionData data = FitWorkflow.extractionData(inputs);
         if (data.isEmpty()) {
@@ -84,9 +82,8 @@ public final class LotFitter {
         try {
             r = new JunctionExtraction(settings.fitSettings(lotRules), capacitance).fit(data);
         } catch (FitInputException | FitFailedException e) {
+            // only the fit's own failures make a part "not fitted"; anything else is a bug and stops the lot (exit 70)
             throw new Failure("fit refused: " + e.getMessage());
-        } catch (RuntimeException e) {
-            throw new Failure("fit failed (" + e.getClass().getSimpleName() + "): " + e.getMessage());
         }
         if (r.fitted().stream().noneMatch(FittedParameter::fitted)) {
             throw new Failure("fit refused: the data determine no parameter");

@@ -73,7 +73,8 @@ public record LotPlan(List<ParameterRule> rules, List<String> reasons, Map<Datas
                     }
                 }
             }
-        } catch (RuntimeException e) {
+        } catch (IllegalArgumentException | IndexOutOfBoundsException e) {
+            // a malformed line (an unknown name, a bad number, a missing field): the saved text is not used
             return null;
         }
         return end && Double.isFinite(t) ? new LotPlan(rules, reasons, conditions, t, sample) : null;

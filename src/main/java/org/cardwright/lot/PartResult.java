@@ -108,7 +108,8 @@ public record PartResult(String part, String fingerprint, String reason, Map<Par
                     }
                 }
             }
-        } catch (RuntimeException e) {
+        } catch (IllegalArgumentException | IndexOutOfBoundsException e) {
+            // a malformed line (an unknown name, a bad number, a missing field): the saved text is not used
             return null;
         }
         if (!end || part == null || fingerprint == null) {
