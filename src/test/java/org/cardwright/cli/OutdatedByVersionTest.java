@@ -1,5 +1,6 @@
 package org.cardwright.cli;
 
+import org.cardwright.testsupport.TestCopies;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertNotEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
@@ -7,11 +8,9 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import java.util.stream.Stream;
 import org.cardwright.data.Sha256;
 import org.cardwright.library.DeviceFileReader;
 import org.cardwright.library.Recipe;
-import org.cardwright.testsupport.Simulators;
 import org.cardwright.workflow.ToolVersion;
 import org.junit.jupiter.api.Test;
 
@@ -26,28 +25,12 @@ class OutdatedByVersionTest {
     /** A version this build is not. */
     private static final String OTHER = "0.0.9";
 
-    private static Path copyOfSwitching() throws Exception {
-        Path from = Simulators.projectDir().resolve("fixtures/library/switching");
-        Path to = Simulators.tempDir("outdated-by-version");
-        try (Stream<Path> walk = Files.walk(from)) {
-            for (Path p : walk.toList()) {
-                Path t = to.resolve(from.relativize(p).toString());
-                if (Files.isDirectory(p)) {
-                    Files.createDirectories(t);
-                } else {
-                    Files.copy(p, t);
-                }
-            }
-        }
-        return to;
-    }
-
     @Test
     void aCardAnotherVersionBuiltIsOutdatedAndRebuilt() throws Exception {
         String version = ToolVersion.get();
         assertNotEquals("unknown", version, "the build's version reaches the classes");
         assertNotEquals(OTHER, version);
-        Path dir = copyOfSwitching();
+        Path dir = TestCopies.libraryFolder("switching", "outdated-by-version");
         Path device = dir.resolve("SW1.device.yaml");
         Path card = dir.resolve("SW1.ngspice.lib");
         Path state = dir.resolve("SW1.state");

@@ -1,5 +1,6 @@
 package org.cardwright.cli;
 
+import org.cardwright.testsupport.TestCopies;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
@@ -7,8 +8,6 @@ import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
-import java.util.stream.Stream;
-import org.cardwright.testsupport.Simulators;
 import org.junit.jupiter.api.Test;
 
 /**
@@ -26,33 +25,17 @@ class TweakRefusedBeforeFitTest {
     private static final List<String> STATED = List.of("IS", "N", "RS", "EG", "XTI");
     private static final List<String> LEFT_OFF = List.of("ISR", "NR", "IKF", "TRS1", "RTH0", "BV", "NBV", "TCV", "CJO", "TT");
 
-    private static Path copyOfRectifiers(String name) throws Exception {
-        Path from = Simulators.projectDir().resolve("fixtures/library/rectifiers");
-        Path to = Simulators.tempDir(name);
-        try (Stream<Path> walk = Files.walk(from)) {
-            for (Path p : walk.toList()) {
-                Path t = to.resolve(from.relativize(p).toString());
-                if (Files.isDirectory(p)) {
-                    Files.createDirectories(t);
-                } else {
-                    Files.copy(p, t);
-                }
-            }
-        }
-        return to;
-    }
-
     private static CliRun tweak(Path dir, String term) {
         return CliRun.of("tweak", dir.resolve("RB4.device.yaml").toString(), "--set", term + "=+0%", "--render-only");
     }
 
     @Test
     void theBuiltCardDecidesBeforeAnyFitAndAgreesWithTheFit() throws Exception {
-        Path upToDate = copyOfRectifiers("tweak-before-fit");
+        Path upToDate = TestCopies.libraryFolder("rectifiers", "tweak-before-fit");
         CliRun built = CliRun.of("build", upToDate.toString());
         assertTrue(built.out().contains("0 built, 1 up to date"), "the copy is up to date: " + built.describe());
         // the same part, outdated: its state file is gone, so only the fit can decide
-        Path outdated = copyOfRectifiers("tweak-after-fit");
+        Path outdated = TestCopies.libraryFolder("rectifiers", "tweak-after-fit");
         Files.delete(outdated.resolve("cards/RB4.state"));
         for (String term : LEFT_OFF) {
             CliRun before = tweak(upToDate, term);
@@ -75,7 +58,7 @@ class TweakRefusedBeforeFitTest {
 
     @Test
     void aCardEditedByHandDoesNotDecideTheFitDoes() throws Exception {
-        Path dir = copyOfRectifiers("tweak-edited-card");
+        Path dir = TestCopies.libraryFolder("rectifiers", "tweak-edited-card");
         Path card = dir.resolve("cards/RB4.ngspice.lib");
         // a hand edit that takes XTI off the card: build's record no longer matches it, so the card is not trusted
         // (were it trusted, the tweak of XTI, a term the fit states, would be refused)

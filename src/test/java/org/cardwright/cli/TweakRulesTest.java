@@ -1,5 +1,6 @@
 package org.cardwright.cli;
 
+import org.cardwright.testsupport.TestCopies;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
@@ -8,8 +9,6 @@ import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
-import java.util.stream.Stream;
-import org.cardwright.testsupport.Simulators;
 import org.junit.jupiter.api.Test;
 
 /**
@@ -20,25 +19,9 @@ import org.junit.jupiter.api.Test;
  */
 class TweakRulesTest {
 
-    private static Path copy(String folder, String name) throws Exception {
-        Path from = Simulators.projectDir().resolve("fixtures/library").resolve(folder);
-        Path to = Simulators.tempDir(name);
-        try (Stream<Path> walk = Files.walk(from)) {
-            for (Path p : walk.toList()) {
-                Path t = to.resolve(from.relativize(p).toString());
-                if (Files.isDirectory(p)) {
-                    Files.createDirectories(t);
-                } else {
-                    Files.copy(p, t);
-                }
-            }
-        }
-        return to;
-    }
-
     @Test
     void aTermTheFitLeftOffIsRefusedNamingItAndHowToAddIt() throws Exception {
-        Path dir = copy("rectifiers", "tweak-absent-term");
+        Path dir = TestCopies.libraryFolder("rectifiers", "tweak-absent-term");
         // RB4's fit has no ISR and no IKF (its cards carry IS, N, RS, EG, XTI)
         for (String term : List.of("ISR", "IKF")) {
             CliRun r = CliRun.of("tweak", dir.resolve("RB4.device.yaml").toString(), "--set", term + "=1n");
@@ -55,7 +38,7 @@ class TweakRulesTest {
 
     @Test
     void everyDialectTakesTheTweakOrSaysWhyNot() throws Exception {
-        Path dir = copy("switching", "tweak-dialects");
+        Path dir = TestCopies.libraryFolder("switching", "tweak-dialects");
         // SW1 (ISR, NR, IKF on its ngspice card) in two dialects; gnucap cannot carry ISR
         Path device = dir.resolve("SW1.device.yaml");
         Files.writeString(device, Files.readString(device, StandardCharsets.UTF_8)
@@ -81,7 +64,7 @@ class TweakRulesTest {
 
     @Test
     void aTweakOfAStatedValueReachesEveryDialectThatCarriesIt() throws Exception {
-        Path dir = copy("rectifiers", "tweak-gnucap");
+        Path dir = TestCopies.libraryFolder("rectifiers", "tweak-gnucap");
         Path out = dir.resolve("tweaked");
         CliRun r = CliRun.of("tweak", dir.resolve("RB4.device.yaml").toString(), "--set", "RS=0.1", "--render-only",
                 "--out", out.toString());

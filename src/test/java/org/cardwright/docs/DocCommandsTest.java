@@ -1,5 +1,6 @@
 package org.cardwright.docs;
 
+import org.cardwright.testsupport.TestCopies;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertNotNull;
@@ -9,7 +10,6 @@ import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import java.io.File;
 import java.io.IOException;
-import java.io.OutputStream;
 import java.io.PrintWriter;
 import java.io.StringWriter;
 import java.nio.charset.StandardCharsets;
@@ -26,9 +26,6 @@ import java.util.Map;
 import java.util.Set;
 import java.util.TreeMap;
 import java.util.concurrent.TimeUnit;
-import java.util.jar.Attributes;
-import java.util.jar.JarOutputStream;
-import java.util.jar.Manifest;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 import java.util.stream.Stream;
@@ -180,7 +177,7 @@ class DocCommandsTest {
         Path bin = Files.createDirectories(work.resolve(".test-bin"));
         Files.createSymbolicLink(bin.resolve("cardwright"), work.resolve("cardwright"));
         Files.createDirectories(work.resolve("target"));
-        Files.copy(classPathJar(root.resolve("target/test-work")), work.resolve("target/cardwright.jar"), StandardCopyOption.REPLACE_EXISTING);
+        Files.copy(TestCopies.classPathJar(root.resolve("target/test-work").resolve("doc-commands-classpath.jar")), work.resolve("target/cardwright.jar"), StandardCopyOption.REPLACE_EXISTING);
 
         // the demo's fits make demo-out/, which the docs' examples read
         int demoFits = 0;
@@ -648,27 +645,6 @@ class DocCommandsTest {
         assertTrue(files.size() > 100, "shipped files: " + files.size());
         return files;
     }
-
-    /** A jar that runs the classes under test: only a manifest naming Main and the test class path. */
-    private static Path classPathJar(Path dir) throws IOException {
-        Files.createDirectories(dir);
-        Path jar = dir.resolve("doc-commands-classpath.jar");
-        Manifest manifest = new Manifest();
-        manifest.getMainAttributes().put(Attributes.Name.MANIFEST_VERSION, "1.0");
-        manifest.getMainAttributes().put(Attributes.Name.MAIN_CLASS, "org.cardwright.cli.Main");
-        StringBuilder cp = new StringBuilder();
-        for (String e : System.getProperty("surefire.test.class.path", System.getProperty("java.class.path")).split(File.pathSeparator)) {
-            if (!e.isEmpty()) {
-                cp.append(Path.of(e).toAbsolutePath().toUri()).append(' ');
-            }
-        }
-        manifest.getMainAttributes().put(Attributes.Name.CLASS_PATH, cp.toString().trim());
-        try (OutputStream o = Files.newOutputStream(jar); JarOutputStream j = new JarOutputStream(o, manifest)) {
-            j.flush();
-        }
-        return jar;
-    }
-
     record Result(int exit, String out, String err) {
         @Override
         public String toString() {

@@ -1,12 +1,12 @@
 package org.cardwright.docs;
 
+import org.cardwright.testsupport.TestCopies;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertNotNull;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.io.File;
 import java.io.IOException;
-import java.io.OutputStream;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -15,9 +15,6 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
 import java.util.concurrent.TimeUnit;
-import java.util.jar.Attributes;
-import java.util.jar.JarOutputStream;
-import java.util.jar.Manifest;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 import java.util.stream.Stream;
@@ -186,32 +183,6 @@ class ReadmeCommandsTest {
         Files.createSymbolicLink(bin.resolve("cardwright"), root.resolve("cardwright"));
         return bin;
     }
-
-    /**
-     * A jar for the launcher's CARDWRIGHT_JAR that runs the classes under test: only a manifest, naming Main and
-     * the test class path (the tests run before the real jar is packaged).
-     */
-    private static Path classPathJar(Path work) throws IOException {
-        Path jar = work.resolve("classpath.jar");
-        if (Files.exists(jar)) {
-            return jar;
-        }
-        Manifest manifest = new Manifest();
-        manifest.getMainAttributes().put(Attributes.Name.MANIFEST_VERSION, "1.0");
-        manifest.getMainAttributes().put(Attributes.Name.MAIN_CLASS, "org.cardwright.cli.Main");
-        StringBuilder cp = new StringBuilder();
-        for (String e : System.getProperty("surefire.test.class.path", System.getProperty("java.class.path")).split(File.pathSeparator)) {
-            if (!e.isEmpty()) {
-                cp.append(Path.of(e).toAbsolutePath().toUri()).append(' ');
-            }
-        }
-        manifest.getMainAttributes().put(Attributes.Name.CLASS_PATH, cp.toString().trim());
-        try (OutputStream o = Files.newOutputStream(jar); JarOutputStream j = new JarOutputStream(o, manifest)) {
-            j.flush();
-        }
-        return jar;
-    }
-
     record Result(int exit, String out, String err) {
         @Override
         public String toString() {
@@ -222,7 +193,7 @@ class ReadmeCommandsTest {
     private static Result run(String commandLine, Path dir, Path bin, Path work) throws Exception {
         ProcessBuilder pb = new ProcessBuilder("bash", "-c", commandLine).directory(dir.toFile());
         pb.environment().put("PATH", bin + File.pathSeparator + System.getenv("PATH"));
-        pb.environment().put("CARDWRIGHT_JAR", classPathJar(work).toString());
+        pb.environment().put("CARDWRIGHT_JAR", TestCopies.classPathJar(work.resolve("classpath.jar")).toString());
         pb.environment().put("CARDWRIGHT_NO_CACHE", "1");
         pb.environment().put("CARDWRIGHT_JAVA", Path.of(System.getProperty("java.home"), "bin", "java").toString());
         Path out = Files.createTempFile(work, "out", ".txt");
