@@ -187,8 +187,6 @@ public final class LibraryBuilder {
             return failed(name, part.model(), PartOutcome.Status.WRITE_FAILED, e.getMessage(), start);
         } catch (IOException e) {
             return failed(name, part.model(), PartOutcome.Status.BAD_INPUT, e.getMessage(), start);
-        } catch (IllegalArgumentException e) {
-            return failed(name, part.model(), PartOutcome.Status.BAD_INPUT, e.getMessage(), start);
         }
     }
 
