@@ -1,7 +1,7 @@
 package org.cardwright.fit;
 
 import java.util.List;
-import org.apache.commons.math3.fitting.leastsquares.MultivariateJacobianFunction;
+import org.apache.commons.math3.fitting.leastsquares.ValueAndJacobianFunction;
 import org.apache.commons.math3.linear.Array2DRowRealMatrix;
 import org.apache.commons.math3.linear.ArrayRealVector;
 import org.apache.commons.math3.linear.RealMatrix;
@@ -9,11 +9,18 @@ import org.apache.commons.math3.linear.RealVector;
 import org.apache.commons.math3.util.Pair;
 import org.cardwright.model.DiodeParameters;
 
-/** All residual blocks stacked into one least-squares problem for the optimiser (target: zero). */
-final class JointProblem implements MultivariateJacobianFunction {
+/**
+ * All residual blocks stacked into one least-squares problem for the optimiser (target: zero). The optimiser asks
+ * for the residuals and the Jacobian separately ({@link ValueAndJacobianFunction}, Commons Math's lazy evaluation),
+ * so that a trial step it rejects costs no Jacobian; the same numbers as one evaluation of both.
+ */
+final class JointProblem implements ValueAndJacobianFunction {
     private final List<ResidualBlock> blocks;
     private final FreeParameters layout;
     private final int rows;
+    /** The point of the last {@link #computeValue} call and its residuals (the optimiser asks twice a point). */
+    private double[] lastPoint;
+    private RealVector lastValue;
 
     JointProblem(List<ResidualBlock> blocks, FreeParameters layout) {
         this.blocks = List.copyOf(blocks);
@@ -60,6 +67,20 @@ final class JointProblem implements MultivariateJacobianFunction {
     @Override
     public Pair<RealVector, RealMatrix> value(RealVector point) {
         double[] x = point.toArray();
-        return new Pair<>(new ArrayRealVector(residuals(layout.toParameters(x)), false), jacobian(x));
+        return new Pair<>(computeValue(x), jacobian(x));
+    }
+
+    @Override
+    public RealVector computeValue(double[] x) {
+        if (lastPoint == null || !java.util.Arrays.equals(lastPoint, x)) {
+            lastValue = new ArrayRealVector(residuals(layout.toParameters(x)), false);
+            lastPoint = x.clone();
+        }
+        return lastValue;
+    }
+
+    @Override
+    public RealMatrix computeJacobian(double[] x) {
+        return jacobian(x);
     }
 }

@@ -116,7 +116,7 @@ final class Optimiser {
                 .parameterValidator(v -> new ArrayRealVector(layout.clamp(v.toArray()), false))
                 .maxEvaluations(MAX_EVALUATIONS)
                 .maxIterations(MAX_EVALUATIONS)
-                .lazyEvaluation(false)
+                .lazyEvaluation(true)  // no Jacobian for a rejected step (JointProblem)
                 .build();
         LevenbergMarquardtOptimizer lm = new LevenbergMarquardtOptimizer()
                 .withCostRelativeTolerance(tolerance)
