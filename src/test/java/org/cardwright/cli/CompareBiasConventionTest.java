@@ -9,6 +9,7 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
+import org.cardwright.testsupport.BreakdownReference;
 import org.cardwright.testsupport.Simulators;
 import org.junit.jupiter.api.Test;
 
@@ -33,11 +34,6 @@ class CompareBiasConventionTest {
     private static final double PRINTED_CAPACITANCE_FACTOR = 10;
     /** The printed B/A ratio has 4 significant digits: 1e-3 relative covers its rounding [1]. */
     private static final double PRINTED_RATIO_RELATIVE = 1e-3;
-    /**
-     * The closed-form breakdown iteration stops when the current is within 0.1 % of IBV; the voltage then moves far
-     * below 0.1 mV [1].
-     */
-    private static final double KNEE_ITERATION_RELATIVE = 1e-3;
     /** The leaky 5.1 V zener's breakdown lies above 5 V; the reported fault gave a point a few mV from zero [V]. */
     private static final double BREAKDOWN_SEEN_V = 5.0;
 
@@ -91,7 +87,8 @@ class CompareBiasConventionTest {
         assertTrue(bd.contains("exceeds its own leakage below the knee by 1u A"), r.out());
         for (double c : List.of(-40.0, 25.0, 125.0)) {
             double got = column(bd, c, 0);
-            double want = leakyBreakdown(c + 273.15, 1e-6);
+            // the leaky card's breakdown from the ngspice 39 equations, independently of cardwright
+            double want = BreakdownReference.knee(1e-8, 2, 5.1, 1e-6, 2, c + 273.15, 1e-6);
             assertEquals(want, got, PRINTED_VOLTS, "card A at " + c + " degC (printed to 0.1 mV)\n" + r.out());
             assertTrue(got > BREAKDOWN_SEEN_V, "a breakdown voltage, not a point a few mV from zero: " + got);
         }
@@ -143,47 +140,6 @@ class CompareBiasConventionTest {
         CliRun help = CliRun.of("compare", "--help");
         assertTrue(help.out().contains("(default: 0,1,5,10)") && help.out().contains("(default: 1,5,20)")
                 && help.out().contains("positive magnitude"), help.out());
-    }
-
-    /**
-     * The leaky card's breakdown voltage from the ngspice 39 level-1 equations as written in the reference notes
-     * (IS(T); the breakdown knee loop of section 3 with RELTOL 1e-3; the cubic reverse region and the breakdown branch
-     * of section 4, each with GMIN), computed here independently of cardwright: |V| where the reverse current exceeds
-     * the current at 80 % of BV(T) by {@code iref} [V].
-     */
-    private static double leakyBreakdown(double kelvin, double iref) {
-        double kq = 1.38064852e-23 / 1.6021766208e-19;
-        double tnom = 300.15;
-        double n = 2;
-        double nbv = 2;
-        double bv = 5.1;
-        double ibv = 1e-6;
-        double vt = kq * kelvin;
-        double is = 1e-8 * Math.exp((kelvin / tnom - 1) * 1.11 / (n * vt) + (3 / n) * Math.log(kelvin / tnom));
-        double bvEff = bv;
-        if (!(ibv < is * bv / vt)) {
-            double x = bv - nbv * vt * Math.log(1 + ibv / is);
-            for (int k = 0; k < 25; k++) {
-                x = bv - nbv * vt * Math.log(ibv / is + 1 - x / vt);
-                double ix = is * (Math.exp((bv - x) / (nbv * vt)) - 1 + x / vt);
-                if (Math.abs(ix - ibv) <= KNEE_ITERATION_RELATIVE * ibv) {
-                    break;
-                }
-            }
-            bvEff = x;
-        }
-        double gmin = 1e-12;
-        double vl = 0.8 * bvEff;
-        double cubic = Math.pow(3 * n * vt / (Math.E * -vl), 3);
-        double leak = is * (1 + cubic) + gmin * vl;
-        double target = iref + leak;
-        // |I|(x) = IS exp((x - BV_eff)/(NBV Vt)) + GMIN x beyond the knee, solved for x by fixed-point iteration on
-        // x = BV_eff + NBV Vt ln((target - GMIN x)/IS), a contraction since GMIN x is tiny against the target
-        double x = bvEff;
-        for (int k = 0; k < 100; k++) {
-            x = bvEff + nbv * vt * Math.log((target - gmin * x) / is);
-        }
-        return x;
     }
 
     /** The lines of the section whose heading starts with {@code heading}, up to the next empty line. */

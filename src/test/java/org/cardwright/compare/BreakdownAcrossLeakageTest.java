@@ -11,6 +11,7 @@ import org.cardwright.card.ParsedCard;
 import org.cardwright.model.SimulatorOptions;
 import org.cardwright.sim.BuiltinCapacitance;
 import org.cardwright.sim.BuiltinEngine;
+import org.cardwright.testsupport.BreakdownReference;
 import org.junit.jupiter.api.Test;
 
 /**
@@ -24,9 +25,6 @@ class BreakdownAcrossLeakageTest {
     /** The built-in engine's Newton solve on the forced current against this closed form [V]: both double precision,
      * the engine stops at a relative current change of about 1e-12, a few nanovolts on NBV Vt. */
     private static final double SOLVE_VOLTS = 1e-6;
-    private static final double K_OVER_Q = 1.38064852e-23 / 1.6021766208e-19;
-    private static final double GMIN = 1e-12;
-    private static final double RELTOL = 1e-3;
     /** A breakdown lies within 10 % of BV; the reported fault gave a point near zero volts [1]. */
     private static final double BREAKDOWN_FRACTION_OF_BV = 0.9;
 
@@ -49,8 +47,8 @@ class BreakdownAcrossLeakageTest {
                             CardComparison c = new CardComparer(new BuiltinEngine(SimulatorOptions.NGSPICE_DEFAULTS),
                                     new BuiltinCapacitance(SimulatorOptions.NGSPICE_DEFAULTS)).compare(card, "a", card, "b", plan);
                             for (CardComparison.BreakdownRow r : c.breakdown()) {
-                                double want = knee(is, n, bv, ibv, nbv, r.temperature(), ibv);
-                                double isT = saturation(is, n, r.temperature());
+                                double want = BreakdownReference.knee(is, n, bv, ibv, nbv, r.temperature(), ibv);
+                                double isT = BreakdownReference.saturation(is, n, r.temperature());
                                 if (isT > CardComparer.UNDEFINED_KNEE_RATIO * ibv) {
                                     // no knee at this current: the comparison must say so rather than print a figure
                                     assertTrue(c.notes().stream().anyMatch(t -> t.contains("no breakdown voltage is defined")),
@@ -74,36 +72,4 @@ class BreakdownAcrossLeakageTest {
         assertTrue(leakierThanIbv >= 20, "the family must hold many cases of the reported kind, got " + leakierThanIbv);
     }
 
-    private static double saturation(double is, double n, double kelvin) {
-        double vt = K_OVER_Q * kelvin;
-        double tnom = 300.15;
-        return is * Math.exp((kelvin / tnom - 1) * 1.11 / (n * vt) + (3 / n) * Math.log(kelvin / tnom));
-    }
-
-    /** |V| of the knee, from the ngspice 39 equations of the reference notes (sections 2-4; EG 1.11, XTI 3, RS 0). */
-    static double knee(double isNom, double n, double bv, double ibv, double nbv, double kelvin, double iref) {
-        double vt = K_OVER_Q * kelvin;
-        double is = saturation(isNom, n, kelvin);
-        double bvEff = bv;
-        if (!(ibv < is * bv / vt)) {
-            double x = bv - nbv * vt * Math.log(1 + ibv / is);
-            for (int k = 0; k < 25; k++) {
-                x = bv - nbv * vt * Math.log(ibv / is + 1 - x / vt);
-                double ix = is * (Math.exp((bv - x) / (nbv * vt)) - 1 + x / vt);
-                if (Math.abs(ix - ibv) <= RELTOL * ibv) {
-                    break;
-                }
-            }
-            bvEff = x;
-        }
-        double vl = 0.8 * bvEff;
-        double leak = vl >= 3 * n * vt ? is * (1 + Math.pow(3 * n * vt / (Math.E * -vl), 3)) + GMIN * vl
-                : -(is * (Math.exp(-vl / (n * vt)) - 1) - GMIN * vl);
-        double target = iref + leak;
-        double x = bvEff;
-        for (int k = 0; k < 100; k++) {
-            x = bvEff + nbv * vt * Math.log((target - GMIN * x) / is);
-        }
-        return x;
-    }
 }

@@ -194,20 +194,7 @@ public final class TestSourceScanner {
      * null.
      */
     static String nonZeroFloat(String code) {
-        String outsideIndices = code;
-        for (String before = null; !outsideIndices.equals(before); ) {
-            before = outsideIndices;
-            outsideIndices = INDEX.matcher(outsideIndices).replaceAll(" ");
-        }
-        Matcher n = NUMBER.matcher(outsideIndices);
-        while (n.find()) {
-            String number = n.group(1);
-            boolean floating = number.matches("[^xX]*[.eEdDfF].*");
-            if (floating && !ZERO.matcher(number).matches()) {
-                return number;
-            }
-        }
-        return null;
+        return firstNonZero(code, true);
     }
 
     private static void outsidePaths(String file, String source, Views views, List<Finding> out) {
@@ -248,6 +235,11 @@ public final class TestSourceScanner {
 
     /** The first numeric literal in {@code code} that is not zero, or null. */
     static String nonZeroNumber(String code) {
+        return firstNonZero(code, false);
+    }
+
+    /** The first numeric literal outside array indices that is not zero (only floating-point ones, when asked). */
+    private static String firstNonZero(String code, boolean floatingOnly) {
         String outsideIndices = code;
         for (String before = null; !outsideIndices.equals(before); ) {
             before = outsideIndices;
@@ -257,6 +249,9 @@ public final class TestSourceScanner {
         while (n.find()) {
             String number = n.group(1);
             if (number.isEmpty() || number.equals(".")) {
+                continue;
+            }
+            if (floatingOnly && !number.matches("[^xX]*[.eEdDfF].*")) {
                 continue;
             }
             if (!ZERO.matcher(number).matches()) {

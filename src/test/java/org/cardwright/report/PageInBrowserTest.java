@@ -83,43 +83,31 @@ class PageInBrowserTest {
         Files.createDirectories(screens);
         Path work = Simulators.tempDir("page-in-browser");
         String demo = "fixtures/demo/";
+        List<String> forwardFiles = List.of("ks1-forward-minus40C.csv", "ks1-forward-25C.csv", "ks1-forward-85C.csv", "ks1-forward-125C.csv");
+        List<String> zenerFiles = List.of("ksz6-forward-minus20C.csv", "ksz6-forward-25C.csv", "ksz6-forward-85C.csv",
+                "ksz6-reverse-minus20C.csv", "ksz6-reverse-25C.csv", "ksz6-reverse-85C.csv",
+                "ksz6-cv-25C.csv", "ksz6-cv-85C.csv", "ksz6-recovery-25C.csv");
+        List<String> zenerPlots = List.of("forward-curve", "forward-residuals", "breakdown-curve", "breakdown-residuals",
+                "capacitance-curve", "capacitance-loglog", "capacitance-residuals", "recovery-curve",
+                "leakage-curve");
+        List<String> everyKind = List.of("forward", "breakdown", "capacitance", "recovery", "leakage");
         List<Kind> kinds = List.of(
-                new Kind("forward", demo + "generating-card.lib",
-                        List.of("ks1-forward-minus40C.csv", "ks1-forward-25C.csv", "ks1-forward-85C.csv", "ks1-forward-125C.csv"),
+                new Kind("forward", demo + "generating-card.lib", forwardFiles,
                         List.of("forward-curve", "forward-residuals"), List.of("forward")),
-                new Kind("zener", demo + "ksz6-generating-card.lib",
-                        List.of("ksz6-forward-minus20C.csv", "ksz6-forward-25C.csv", "ksz6-forward-85C.csv",
-                                "ksz6-reverse-minus20C.csv", "ksz6-reverse-25C.csv", "ksz6-reverse-85C.csv",
-                                "ksz6-cv-25C.csv", "ksz6-cv-85C.csv", "ksz6-recovery-25C.csv"),
-                        List.of("forward-curve", "forward-residuals", "breakdown-curve", "breakdown-residuals",
-                                "capacitance-curve", "capacitance-loglog", "capacitance-residuals", "recovery-curve",
-                                "leakage-curve"),
-                        List.of("forward", "breakdown", "capacitance", "recovery", "leakage")),
+                new Kind("zener", demo + "ksz6-generating-card.lib", zenerFiles, zenerPlots, everyKind),
                 new Kind("leakage", demo + "generating-card.lib",
                         List.of("ks1-forward-25C.csv", "ks1-reverse-25C.csv"),
                         List.of("forward-curve", "forward-residuals", "leakage-curve"), List.of("forward", "leakage")),
-                new Kind("fit", null,
-                        List.of("ks1-forward-minus40C.csv", "ks1-forward-25C.csv", "ks1-forward-85C.csv", "ks1-forward-125C.csv"),
+                new Kind("fit", null, forwardFiles,
                         List.of("forward-curve", "forward-residuals"), List.of("forward")),
-                new Kind("compare", demo + "ksz6-generating-card.lib",
-                        List.of("ksz6-forward-minus20C.csv", "ksz6-forward-25C.csv", "ksz6-forward-85C.csv",
-                                "ksz6-reverse-minus20C.csv", "ksz6-reverse-25C.csv", "ksz6-reverse-85C.csv",
-                                "ksz6-cv-25C.csv", "ksz6-cv-85C.csv", "ksz6-recovery-25C.csv"),
+                new Kind("compare", demo + "ksz6-generating-card.lib", zenerFiles,
                         List.of("forward-curve", "forward-residuals", "breakdown-curve", "breakdown-residuals",
-                                "capacitance-curve", "capacitance-residuals", "recovery-curve", "leakage-curve"),
-                        List.of("forward", "breakdown", "capacitance", "recovery", "leakage"),
+                                "capacitance-curve", "capacitance-residuals", "recovery-curve", "leakage-curve"), everyKind,
                         "fixtures/compare/ksz6-variant.lib"),
                 // fit --html of a part with every data kind, in a dialect without breakdown (gnucap): the page of the
                 // gnucap card, whose breakdown points are not reached (counted at twice their measured voltage, so the
                 // plots keep the data's own range; before, at about 5e10 V)
-                new Kind("fit-zener-gnucap", null,
-                        List.of("ksz6-forward-minus20C.csv", "ksz6-forward-25C.csv", "ksz6-forward-85C.csv",
-                                "ksz6-reverse-minus20C.csv", "ksz6-reverse-25C.csv", "ksz6-reverse-85C.csv",
-                                "ksz6-cv-25C.csv", "ksz6-cv-85C.csv", "ksz6-recovery-25C.csv"),
-                        List.of("forward-curve", "forward-residuals", "breakdown-curve", "breakdown-residuals",
-                                "capacitance-curve", "capacitance-loglog", "capacitance-residuals", "recovery-curve",
-                                "leakage-curve"),
-                        List.of("forward", "breakdown", "capacitance", "recovery", "leakage"), null,
+                new Kind("fit-zener-gnucap", null, zenerFiles, zenerPlots, everyKind, null,
                         List.of("--name", "KSZ6", "--kind", "zener", "--dialect", "gnucap")));
         List<String> problems = new ArrayList<>();
         for (Kind kind : kinds) {

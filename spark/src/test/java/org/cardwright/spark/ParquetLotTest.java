@@ -33,32 +33,6 @@ import org.junit.jupiter.api.Test;
  */
 class ParquetLotTest {
 
-    private static Path workDir(String name) throws Exception {
-        String root = System.getenv().getOrDefault("CARDWRIGHT_PROJECT_DIR", "..");
-        Path dir = Path.of(root).resolve("spark/target/test-work").resolve(name).toAbsolutePath().normalize();
-        if (Files.exists(dir)) {
-            try (Stream<Path> s = Files.walk(dir)) {
-                for (Path p : s.sorted(Comparator.reverseOrder()).toList()) {
-                    Files.delete(p);
-                }
-            }
-        }
-        return Files.createDirectories(dir);
-    }
-
-    private static Map<String, byte[]> outputs(Path out) throws Exception {
-        Map<String, byte[]> m = new TreeMap<>();
-        try (Stream<Path> s = Files.walk(out)) {
-            for (Path p : s.filter(Files::isRegularFile).toList()) {
-                String name = out.relativize(p).toString();
-                if (!name.contains(".lot-state")) {
-                    m.put(name, Files.readAllBytes(p));
-                }
-            }
-        }
-        return m;
-    }
-
     /** The CSV long table's rows as Parquet: part as UTF-8 text, V, I, T as doubles. */
     private static void writeParquet(Path csv, Path parquet, String schemaText) throws IOException {
         MessageType schema = MessageTypeParser.parseMessageType(schemaText);
@@ -77,9 +51,8 @@ class ParquetLotTest {
 
     @Test
     void aParquetLotThroughSparkGivesTheSameBytesAsItsCsvThroughThePlainPath() throws Exception {
-        Path dir = workDir("parquet-lot");
-        String root = System.getenv().getOrDefault("CARDWRIGHT_PROJECT_DIR", "..");
-        Path table = Path.of(root).resolve("fixtures/lot/lt1-lot-forward.csv").toAbsolutePath().normalize();
+        Path dir = SparkTestFiles.workDir("parquet-lot");
+        Path table = SparkTestFiles.projectDir().resolve("fixtures/lot/lt1-lot-forward.csv").toAbsolutePath().normalize();
         Path parquet = dir.resolve("lt1-lot-forward.parquet");
         writeParquet(table, parquet, "message lot { required binary part (UTF8); required double V; required double I; required double T; }");
         Path plain = dir.resolve("plain");
@@ -88,8 +61,8 @@ class ParquetLotTest {
                 "lot", table.toString(), "--name", "LT1", "--out", plain.toString(), "--jobs", "2", "--no-progress"));
         var o = SparkLot.run(SparkLot.Options.parse(parquet.toString(), "--name", "LT1", "--out", spark.toString(), "--master", "local[2]"));
         assertEquals(24, o.parts().size());
-        Map<String, byte[]> a = outputs(plain);
-        Map<String, byte[]> b = outputs(spark);
+        Map<String, byte[]> a = SparkTestFiles.outputs(plain);
+        Map<String, byte[]> b = SparkTestFiles.outputs(spark);
         assertEquals(a.keySet(), b.keySet());
         assertTrue(a.containsKey("LT1.statistics.csv") && a.containsKey("LT1.typical.ngspice.lib"), a.keySet().toString());
         for (String k : a.keySet()) {
@@ -99,9 +72,8 @@ class ParquetLotTest {
 
     @Test
     void aParquetTableWithoutACurrentOrCapacitanceColumnIsRefusedNamingTheFile() throws Exception {
-        Path dir = workDir("parquet-bad");
-        String root = System.getenv().getOrDefault("CARDWRIGHT_PROJECT_DIR", "..");
-        Path table = Path.of(root).resolve("fixtures/lot/lt1-lot-forward.csv").toAbsolutePath().normalize();
+        Path dir = SparkTestFiles.workDir("parquet-bad");
+        Path table = SparkTestFiles.projectDir().resolve("fixtures/lot/lt1-lot-forward.csv").toAbsolutePath().normalize();
         Path parquet = dir.resolve("bad.parquet");
         writeParquet(table, parquet, "message lot { required binary part (UTF8); required double V; required double X; required double T; }");
         IOException e = assertThrows(IOException.class, () -> ParquetTable.toCsv(parquet, dir.resolve("out")));

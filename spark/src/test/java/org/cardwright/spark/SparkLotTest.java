@@ -23,34 +23,10 @@ import org.junit.jupiter.api.Test;
  */
 class SparkLotTest {
 
-    private static Path workDir(String name) throws Exception {
-        String root = System.getenv().getOrDefault("CARDWRIGHT_PROJECT_DIR", "..");
-        Path dir = Path.of(root).resolve("spark/target/test-work").resolve(name).toAbsolutePath().normalize();
-        if (Files.exists(dir)) {
-            try (Stream<Path> s = Files.walk(dir)) {
-                for (Path p : s.sorted(Comparator.reverseOrder()).toList()) {
-                    Files.delete(p);
-                }
-            }
-        }
-        return Files.createDirectories(dir);
-    }
-
-    private static Map<String, byte[]> outputs(Path out) throws Exception {
-        Map<String, byte[]> m = new TreeMap<>();
-        try (Stream<Path> s = Files.list(out)) {
-            for (Path p : s.filter(Files::isRegularFile).toList()) {
-                m.put(p.getFileName().toString(), Files.readAllBytes(p));
-            }
-        }
-        return m;
-    }
-
     @Test
     void sparkLocalModeWritesTheSameBytesAsThePlainPath() throws Exception {
-        Path dir = workDir("spark-lot");
-        String root = System.getenv().getOrDefault("CARDWRIGHT_PROJECT_DIR", "..");
-        Path table = Path.of(root).resolve("fixtures/lot/lt1-lot-forward.csv").toAbsolutePath().normalize();
+        Path dir = SparkTestFiles.workDir("spark-lot");
+        Path table = SparkTestFiles.projectDir().resolve("fixtures/lot/lt1-lot-forward.csv").toAbsolutePath().normalize();
         Path plain = dir.resolve("plain");
         Path spark = dir.resolve("spark");
         int code = Main.execute(new PrintWriter(new StringWriter()), new PrintWriter(new StringWriter()),
@@ -59,8 +35,8 @@ class SparkLotTest {
         LotOutcome o = SparkLot.run(SparkLot.Options.parse(table.toString(), "--name", "LT1", "--out", spark.toString(),
                 "--master", "local[2]", "--partitions", "4"));
         assertEquals(24, o.parts().size());
-        Map<String, byte[]> a = outputs(plain);
-        Map<String, byte[]> b = outputs(spark);
+        Map<String, byte[]> a = SparkTestFiles.outputs(plain);
+        Map<String, byte[]> b = SparkTestFiles.outputs(spark);
         assertEquals(a.keySet(), b.keySet());
         assertTrue(a.containsKey("LT1.typical.ngspice.lib") && a.containsKey("LT1.montecarlo.ngspice.lib"), a.keySet().toString());
         for (String k : a.keySet()) {
