@@ -1,11 +1,19 @@
 package org.cardwright.library;
 
 import java.io.IOException;
+import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.Optional;
+import org.cardwright.card.CardFormatException;
+import org.cardwright.card.CardReader;
+import org.cardwright.card.Dialect;
+import org.cardwright.card.ParsedCard;
 import org.cardwright.card.SpiceNumbers;
 import org.cardwright.data.DataFileException;
+import org.cardwright.data.Sha256;
+import org.cardwright.failure.UsageException;
 import org.cardwright.fit.FitInputException;
 import org.cardwright.fit.ParameterRule;
 import org.cardwright.model.DiodeParameters;
@@ -117,9 +125,9 @@ final class Tweaker {
     }
 
     /** The refusal of a tweak of a term the fit left off {@code part}'s card (exit 2). */
-    static org.cardwright.failure.UsageException absentTerm(DeviceFile part, Tweak tweak) {
+    static UsageException absentTerm(DeviceFile part, Tweak tweak) {
         String k = tweak.param().keyword();
-        return new org.cardwright.failure.UsageException("tweak " + tweak.text() + " refused: the fit of "
+        return new UsageException("tweak " + tweak.text() + " refused: the fit of "
                 + part.model() + " (" + part.path().getFileName() + ") left " + k + " off the card, and a tweak "
                 + "changes a value the card states, it adds no term; to add " + k + ", put a rule in the device file "
                 + "(rules: - " + k + "=VALUE to fix it, or " + k + "=free to let the fit decide) and run cardwright build");
@@ -135,28 +143,28 @@ final class Tweaker {
      *
      * @param asBuilt the part as its device file states it, without the tweak asked for
      */
-    static java.util.Optional<org.cardwright.failure.UsageException> refusedUpFront(DeviceFile asBuilt, Tweak tweak)
+    static Optional<UsageException> refusedUpFront(DeviceFile asBuilt, Tweak tweak)
             throws DeviceFileException, IOException {
-        if (!asBuilt.dialects().contains(org.cardwright.card.Dialect.NGSPICE)) {
-            return java.util.Optional.empty();
+        if (!asBuilt.dialects().contains(Dialect.NGSPICE)) {
+            return Optional.empty();
         }
-        Path card = asBuilt.cardPath(org.cardwright.card.Dialect.NGSPICE);
-        java.util.Optional<BuildState> state = BuildState.read(asBuilt.statePath());
-        if (state.isEmpty() || !java.nio.file.Files.isRegularFile(card)
-                || !state.get().wrote(card.getFileName().toString(), org.cardwright.data.Sha256.hex(card))
+        Path card = asBuilt.cardPath(Dialect.NGSPICE);
+        Optional<BuildState> state = BuildState.read(asBuilt.statePath());
+        if (state.isEmpty() || !Files.isRegularFile(card)
+                || !state.get().wrote(card.getFileName().toString(), Sha256.hex(card))
                 || !state.get().recipe().equals(Recipe.of(asBuilt).sha256())) {
-            return java.util.Optional.empty();
+            return Optional.empty();
         }
-        org.cardwright.card.ParsedCard parsed;
+        ParsedCard parsed;
         try {
             String source = card.toString();
-            parsed = new org.cardwright.card.CardReader().parse(org.cardwright.card.CardReader.readText(card, source),
-                    source, org.cardwright.card.Dialect.NGSPICE, java.util.Optional.of(asBuilt.model()));
-        } catch (org.cardwright.card.CardFormatException e) {
-            return java.util.Optional.empty();  // the fit decides, as before
+            parsed = new CardReader().parse(CardReader.readText(card, source),
+                    source, Dialect.NGSPICE, Optional.of(asBuilt.model()));
+        } catch (CardFormatException e) {
+            return Optional.empty();  // the fit decides, as before
         }
-        return parsed.parameters().isGiven(tweak.param()) ? java.util.Optional.empty()
-                : java.util.Optional.of(absentTerm(asBuilt, tweak));
+        return parsed.parameters().isGiven(tweak.param()) ? Optional.empty()
+                : Optional.of(absentTerm(asBuilt, tweak));
     }
 
     /**

@@ -359,7 +359,7 @@ public final class LotHtml {
         if (s.length == 0) {
             return "<td>&ndash;</td><td>&ndash;</td><td>&ndash;</td>";
         }
-        double typ = s.length % 2 == 1 ? s[s.length / 2] : 0.5 * (s[s.length / 2 - 1] + s[s.length / 2]);
+        double typ = org.cardwright.fit.Medians.median(s);
         return "<td>" + g(s[0]) + "</td><td>" + g(typ) + "</td><td>" + g(s[s.length - 1]) + "</td>";
     }
 

@@ -149,7 +149,7 @@ public final class LotJson {
                 ss += (v - mean) * (v - mean);
             }
             m.put("min", s[0]);
-            m.put("typ", s.length % 2 == 1 ? s[s.length / 2] : 0.5 * (s[s.length / 2 - 1] + s[s.length / 2]));
+            m.put("typ", org.cardwright.fit.Medians.median(s));
             m.put("max", s[s.length - 1]);
             m.put("mean", mean);
             m.put("std", x.length > 1 ? Math.sqrt(ss / (x.length - 1)) : Double.NaN);

@@ -453,9 +453,7 @@ public record Inputs(List<MeasurementFile> files, List<Located> forward, List<Lo
         if (s == null || s.length < 3) {
             return 0;
         }
-        java.util.Arrays.sort(s);
-        double median = s.length % 2 == 1 ? s[s.length / 2] : (s[s.length / 2 - 1] + s[s.length / 2]) / 2;
-        return 1.4826 * median / Math.sqrt(1.5);
+        return 1.4826 * org.cardwright.fit.Medians.median(s) / Math.sqrt(1.5);
     }
 
     /** |departures| of the points with current in [lo, hi] (see {@link #voltageScatter}); null for fewer than 5 points. */

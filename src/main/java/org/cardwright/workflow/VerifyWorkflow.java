@@ -152,8 +152,7 @@ public final class VerifyWorkflow {
                 pts.add(new MeasuredPoint(p.voltage(), p.current(), p.temperature(), p.source(), p.line()));
                 volts[k++] = -p.voltage();
             }
-            java.util.Arrays.sort(volts);
-            double median = volts[volts.length / 2];
+            double median = org.cardwright.fit.Medians.upperMedian(volts, 0, volts.length);
             Tolerance t = new Tolerance(BREAKDOWN_RMS_FRACTION * median, BREAKDOWN_MAX_FRACTION * median);
             List<String> bdNotes = new ArrayList<>();
             if (!parsed.parameters().isGiven(org.cardwright.model.Param.BV) || !request.dialect().flavour().spiceReverse()) {
