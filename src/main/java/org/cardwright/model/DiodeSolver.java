@@ -42,6 +42,9 @@ public final class DiodeSolver {
         double lo;
         double hi;
         double start;
+        // current and conductance at the last bracket end tried: usually the start itself, whose evaluation the
+        // solve then reuses instead of repeating it
+        double[] ig = new double[2];
         if (current > 0) {
             // Shockley-only start, with the high-injection law inverted exactly: I = S/(1 + sqrt(S/IKF))
             double s = current;
@@ -55,8 +58,10 @@ public final class DiodeSolver {
             lo = 0;
             hi = Math.max(start, 1e-6);
             int guard = 0;
-            while (JunctionCurrent.current(d, hi) < current) {
+            JunctionCurrent.currentAndConductance(d, hi, ig);
+            while (ig[0] < current) {
                 hi = 2 * hi + 0.1;
+                JunctionCurrent.currentAndConductance(d, hi, ig);
                 if (++guard > 200) {
                     throw new ArithmeticException("no junction voltage carries " + current + " A");
                 }
@@ -65,15 +70,17 @@ public final class DiodeSolver {
             hi = 0;
             lo = -1e-3;
             int guard = 0;
-            while (JunctionCurrent.current(d, lo) > current) {
+            JunctionCurrent.currentAndConductance(d, lo, ig);
+            while (ig[0] > current) {
                 lo *= 2;
+                JunctionCurrent.currentAndConductance(d, lo, ig);
                 if (++guard > 200) {
                     throw new ArithmeticException("no junction voltage carries " + current + " A");
                 }
             }
             start = lo;
         }
-        return solve(d, current, 0.0, lo, hi, start);
+        return solve(d, current, 0.0, lo, hi, start, ig, current < 0 || hi == start);
     }
 
     /**
@@ -110,7 +117,7 @@ public final class DiodeSolver {
             double i0 = vte / r * LambertW.w0OfExp(lnArg) - is;
             start = Math.min(hi, Math.max(lo, voltage - r * i0));
         }
-        double vd = solve(d, voltage, r, lo, hi, start);
+        double vd = solve(d, voltage, r, lo, hi, start, new double[2], false);
         // where the junction is stiffer than RS the drop across RS carries the current precisely; where it is
         // softer (reverse bias, tiny currents) V - vd cancels, and the junction equation is the precise side
         return r * JunctionCurrent.conductance(d, vd) > 1 ? (voltage - vd) / r : JunctionCurrent.current(d, vd);
@@ -128,14 +135,16 @@ public final class DiodeSolver {
     private static final double SQUARE_SAFE_LOW = 1e-150;
     private static final double SQUARE_SAFE_HIGH = 1e150;
 
-    private static double solve(DiodeAtTemperature d, double target, double r, double lo, double hi, double start) {
+    private static double solve(DiodeAtTemperature d, double target, double r, double lo, double hi, double start,
+                                double[] ig, boolean startEvaluated) {
         double scale = Math.max(Math.abs(target) * 1e-6, 1e-300);
         double goal = r == 0 ? asinh(target / scale) : target;
         double x = start;
         double stepBefore = hi - lo;
-        double[] ig = new double[2];
         for (int iter = 0; iter < MAX_ITERATIONS; iter++) {
-            JunctionCurrent.currentAndConductance(d, x, ig);
+            if (iter > 0 || !startEvaluated) {
+                JunctionCurrent.currentAndConductance(d, x, ig);
+            }
             double i = ig[0];
             double g = ig[1];
             double f;
@@ -159,6 +168,12 @@ public final class DiodeSolver {
                 lo = x;
             }
             double next = x - f / slope;
+            if (Math.abs(next - x) <= VOLTAGE_TOLERANCE * Math.max(1, Math.abs(x))) {
+                // Newton's own step is below the tolerance: x is the root to within it. Tested before the bracket,
+                // since at the root the step can round to nothing (next == x, which is now a bracket end), and
+                // bisecting from there would walk the whole bracket down again (40-50 evaluations)
+                return next;
+            }
             if (!(next > lo && next < hi) || Math.abs(2 * (next - x)) > Math.abs(stepBefore)) {
                 next = 0.5 * (lo + hi);
             }

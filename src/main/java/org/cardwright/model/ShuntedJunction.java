@@ -49,8 +49,10 @@ public final class ShuntedJunction {
             double vte = d.emissionCoefficient() * d.thermalVoltage();
             hi = Math.max(vte * Math.log1p(current / a / d.saturationCurrent()), 1e-6);
             int guard = 0;
-            while (JunctionCurrent.current(d, hi) * a + shunt * hi < current) {
+            JunctionCurrent.currentAndConductance(d, hi, ig);
+            while (ig[0] * a + shunt * hi < current) {
                 hi = 2 * hi + 0.1;
+                JunctionCurrent.currentAndConductance(d, hi, ig);
                 if (++guard > 200) {
                     throw new ArithmeticException("no junction voltage carries " + current + " A");
                 }
@@ -63,7 +65,10 @@ public final class ShuntedJunction {
         double x = current > 0 ? hi : lo;
         double stepBefore = hi - lo;
         for (int iter = 0; iter < MAX_ITERATIONS; iter++) {
-            JunctionCurrent.currentAndConductance(d, x, ig);
+            // forward, the first point is the upper bracket end, evaluated already
+            if (iter > 0 || current < 0) {
+                JunctionCurrent.currentAndConductance(d, x, ig);
+            }
             double f = ig[0] * a + shunt * x - current;
             double slope = ig[1] * a + shunt;
             if (f == 0) {
@@ -75,6 +80,11 @@ public final class ShuntedJunction {
                 lo = x;
             }
             double next = x - f / slope;
+            if (Math.abs(next - x) <= VOLTAGE_TOLERANCE * Math.max(1, Math.abs(x))) {
+                // converged; tested before the bracket, as in DiodeSolver (a step that rounds to nothing at the root
+                // leaves next on a bracket end, and bisecting from there costs 40-50 evaluations)
+                return next;
+            }
             if (!(next > lo && next < hi) || Math.abs(2 * (next - x)) > Math.abs(stepBefore)) {
                 next = 0.5 * (lo + hi);
             }
