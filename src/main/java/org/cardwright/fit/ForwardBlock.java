@@ -158,12 +158,10 @@ final class ForwardBlock implements ResidualBlock {
             }
             // steps[j] is half the span, as the central-difference formula below divides by 2·steps[j]
             steps[j] = 0.5 * (span[1] - span[0]);
-            double[] xp = x.clone();
-            xp[j] = span[1];
-            double[] xm = x.clone();
-            xm[j] = span[0];
-            plus[j] = scaled(layout.toParameters(xp));
-            minus[j] = scaled(layout.toParameters(xm));
+            // p with the one coordinate moved: the set layout.toParameters gives for x moved in j, built from p
+            Param q = layout.free().get(j);
+            plus[j] = scaled(p.with(q, layout.value(j, span[1])));
+            minus[j] = scaled(p.with(q, layout.value(j, span[0])));
         }
         boolean[] resistanceOnly = new boolean[nFree];
         for (int j = 0; j < nFree; j++) {

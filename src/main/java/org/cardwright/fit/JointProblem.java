@@ -2,7 +2,6 @@ package org.cardwright.fit;
 
 import java.util.List;
 import org.apache.commons.math3.fitting.leastsquares.ValueAndJacobianFunction;
-import org.apache.commons.math3.linear.Array2DRowRealMatrix;
 import org.apache.commons.math3.linear.ArrayRealVector;
 import org.apache.commons.math3.linear.RealMatrix;
 import org.apache.commons.math3.linear.RealVector;
@@ -61,7 +60,7 @@ final class JointProblem implements ValueAndJacobianFunction {
             System.arraycopy(part, 0, jac, at, part.length);
             at += part.length;
         }
-        return new Array2DRowRealMatrix(jac, false);
+        return new JacobianMatrix(jac);
     }
 
     @Override

@@ -401,7 +401,7 @@ final class ShuntTerm {
         MultivariateJacobianFunction model = point -> {
             double[] x = point.toArray();
             return new Pair<>(new ArrayRealVector(residuals(cache, layout, x, k), false),
-                    new Array2DRowRealMatrix(jacobian(cache, layout, x, k, rows, lo, hi), false));
+                    new JacobianMatrix(jacobian(cache, layout, x, k, rows, lo, hi)));
         };
         LeastSquaresProblem problem = new LeastSquaresBuilder()
                 .model(model)
