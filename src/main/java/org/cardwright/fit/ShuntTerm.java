@@ -11,10 +11,11 @@ import org.apache.commons.math3.fitting.leastsquares.LeastSquaresBuilder;
 import org.apache.commons.math3.fitting.leastsquares.LeastSquaresOptimizer;
 import org.apache.commons.math3.fitting.leastsquares.LeastSquaresProblem;
 import org.apache.commons.math3.fitting.leastsquares.LevenbergMarquardtOptimizer;
-import org.apache.commons.math3.fitting.leastsquares.MultivariateJacobianFunction;
+import org.apache.commons.math3.fitting.leastsquares.ValueAndJacobianFunction;
 import org.apache.commons.math3.linear.Array2DRowRealMatrix;
 import org.apache.commons.math3.linear.ArrayRealVector;
 import org.apache.commons.math3.linear.RealMatrix;
+import org.apache.commons.math3.linear.RealVector;
 import org.apache.commons.math3.linear.SingularValueDecomposition;
 import org.apache.commons.math3.util.Pair;
 import org.cardwright.model.DiodeAtTemperature;
@@ -398,10 +399,31 @@ final class ShuntTerm {
         x0[k] = Math.min(hi, Math.max(lo, -Math.log(g0)));
         int rows = blocks.stream().mapToInt(ResidualBlock::size).sum();
         BlockCache cache = new BlockCache(blocks);
-        MultivariateJacobianFunction model = point -> {
-            double[] x = point.toArray();
-            return new Pair<>(new ArrayRealVector(residuals(cache, layout, x, k), false),
-                    new JacobianMatrix(jacobian(cache, layout, x, k, rows, lo, hi)));
+        // residuals and Jacobian asked for separately (Commons Math's lazy evaluation, as in Optimiser): a trial step
+        // the optimiser rejects costs no Jacobian; the same numbers as one evaluation of both
+        ValueAndJacobianFunction model = new ValueAndJacobianFunction() {
+            private double[] lastPoint;
+            private RealVector lastValue;
+
+            @Override
+            public Pair<RealVector, RealMatrix> value(RealVector point) {
+                double[] x = point.toArray();
+                return new Pair<>(computeValue(x), computeJacobian(x));
+            }
+
+            @Override
+            public RealVector computeValue(double[] x) {
+                if (lastPoint == null || !java.util.Arrays.equals(lastPoint, x)) {
+                    lastValue = new ArrayRealVector(residuals(cache, layout, x, k), false);
+                    lastPoint = x.clone();
+                }
+                return lastValue;
+            }
+
+            @Override
+            public RealMatrix computeJacobian(double[] x) {
+                return new JacobianMatrix(jacobian(cache, layout, x, k, rows, lo, hi));
+            }
         };
         LeastSquaresProblem problem = new LeastSquaresBuilder()
                 .model(model)
@@ -416,7 +438,7 @@ final class ShuntTerm {
                 })
                 .maxEvaluations(MAX_EVALUATIONS)
                 .maxIterations(MAX_EVALUATIONS)
-                .lazyEvaluation(false)
+                .lazyEvaluation(true)
                 .build();
         LevenbergMarquardtOptimizer lm = new LevenbergMarquardtOptimizer()
                 .withCostRelativeTolerance(tolerance)
