@@ -169,12 +169,14 @@ final class ForwardBlock implements ResidualBlock {
         }
         double[][] jac = new double[points.length][nFree];
         double[] vds = junctionVoltages(p, at);
+        // the moved parameter sets share most exponentials at a point (IS moves none, N only the Shockley one)
+        JunctionCurrent.Memo memo = new JunctionCurrent.Memo();
         for (int i = 0; i < points.length; i++) {
             DiodeAtTemperature d = at[group[i]];
             double current = points[i].current();
             double w = 1 / points[i].sigma();
             double vd = vds[i];
-            double g = JunctionCurrent.conductance(d, vd);
+            double g = JunctionCurrent.conductance(d, vd, memo);
             // with a shunt G: F = Ij(vd)(1 + G·RS) + G·vd - I = 0 at fixed I gives dvd/dp, then
             // dV/dp = dvd/dp (1 + RS·g) + RS·dIj/dp + Ij·dRS/dp; with G = 0 this is -dIj/dp/g + I·dRS/dp
             double rs = d.seriesResistance();
@@ -188,7 +190,7 @@ final class ForwardBlock implements ResidualBlock {
                 DiodeAtTemperature dm = minus[j][group[i]];
                 // RS and its temperature coefficients leave the junction current as it is: no evaluation needed
                 double dIdp = resistanceOnly[j] ? 0
-                        : (JunctionCurrent.current(dp, vd) - JunctionCurrent.current(dm, vd)) / (2 * steps[j]);
+                        : (JunctionCurrent.current(dp, vd, memo) - JunctionCurrent.current(dm, vd, memo)) / (2 * steps[j]);
                 double dRdp = (dp.seriesResistance() - dm.seriesResistance()) / (2 * steps[j]);
                 if (shunt == 0) {
                     jac[i][j] = (-dIdp / g + current * dRdp) * w;
