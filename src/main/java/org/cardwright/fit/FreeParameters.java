@@ -12,8 +12,6 @@ import org.cardwright.model.Param;
  */
 public final class FreeParameters {
     private final DiodeParameters base;
-    /** The base's values, copied once so that each parameter set starts from a fast copy of them. */
-    private final java.util.EnumMap<Param, Double> baseValues;
     private final List<Param> free;
     private final boolean[] logScale;
     private final double[] lower;
@@ -21,8 +19,6 @@ public final class FreeParameters {
 
     FreeParameters(DiodeParameters base, List<Param> free, List<double[]> bounds) {
         this.base = base;
-        this.baseValues = new java.util.EnumMap<>(Param.class);
-        this.baseValues.putAll(base.givenValues());
         this.free = List.copyOf(free);
         int k = free.size();
         this.logScale = new boolean[k];
@@ -66,12 +62,12 @@ public final class FreeParameters {
 
     /** The parameter set for the optimiser's vector {@code x}. */
     public DiodeParameters toParameters(double[] x) {
-        // one copy of the base's values, not one per free parameter: the same set, built in linear time
-        java.util.EnumMap<Param, Double> values = new java.util.EnumMap<>(baseValues);
+        // one copy of the base's values, and only the free values checked (the base's were when it was made)
+        double[] values = new double[x.length];
         for (int j = 0; j < x.length; j++) {
-            values.put(free.get(j), value(j, x[j]));
+            values[j] = value(j, x[j]);
         }
-        return DiodeParameters.of(values);
+        return base.with(x.length == free.size() ? free : free.subList(0, x.length), values);
     }
 
     double value(int j, double internal) {

@@ -115,6 +115,22 @@ public final class DiodeParameters {
         return new DiodeParameters(copy, true);
     }
 
+    /**
+     * A copy with each of {@code params} set to the value at the same index of {@code values} [SI]: the set
+     * {@link #with} would give applied one after another, built with one copy.
+     */
+    public DiodeParameters with(java.util.List<Param> params, double[] values) {
+        if (params.size() != values.length) {
+            throw new IllegalArgumentException(params.size() + " parameters but " + values.length + " values");
+        }
+        EnumMap<Param, Double> copy = new EnumMap<>(given);
+        for (int j = 0; j < values.length; j++) {
+            validate(params.get(j), values[j]);
+            copy.put(params.get(j), values[j]);
+        }
+        return new DiodeParameters(copy, true);
+    }
+
     /** A copy with {@code p} no longer given (its default, or its term switched off). */
     public DiodeParameters without(Param p) {
         EnumMap<Param, Double> copy = new EnumMap<>(given);

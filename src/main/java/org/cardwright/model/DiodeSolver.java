@@ -168,10 +168,12 @@ public final class DiodeSolver {
                 lo = x;
             }
             double next = x - f / slope;
-            if (Math.abs(next - x) <= VOLTAGE_TOLERANCE * Math.max(1, Math.abs(x))) {
+            if (Double.isFinite(f) && Double.isFinite(slope)
+                    && Math.abs(next - x) <= VOLTAGE_TOLERANCE * Math.max(1, Math.abs(x))) {
                 // Newton's own step is below the tolerance: x is the root to within it. Tested before the bracket,
                 // since at the root the step can round to nothing (next == x, which is now a bracket end), and
-                // bisecting from there would walk the whole bracket down again (40-50 evaluations)
+                // bisecting from there would walk the whole bracket down again (40-50 evaluations). Not where the
+                // model overflowed: a conductance of +infinity far in breakdown makes every step 0
                 return next;
             }
             if (!(next > lo && next < hi) || Math.abs(2 * (next - x)) > Math.abs(stepBefore)) {

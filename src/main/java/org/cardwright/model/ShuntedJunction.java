@@ -80,9 +80,11 @@ public final class ShuntedJunction {
                 lo = x;
             }
             double next = x - f / slope;
-            if (Math.abs(next - x) <= VOLTAGE_TOLERANCE * Math.max(1, Math.abs(x))) {
+            if (Double.isFinite(f) && Double.isFinite(slope)
+                    && Math.abs(next - x) <= VOLTAGE_TOLERANCE * Math.max(1, Math.abs(x))) {
                 // converged; tested before the bracket, as in DiodeSolver (a step that rounds to nothing at the root
-                // leaves next on a bracket end, and bisecting from there costs 40-50 evaluations)
+                // leaves next on a bracket end, and bisecting from there costs 40-50 evaluations; not where the
+                // model overflowed)
                 return next;
             }
             if (!(next > lo && next < hi) || Math.abs(2 * (next - x)) > Math.abs(stepBefore)) {

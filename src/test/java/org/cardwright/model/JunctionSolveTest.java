@@ -104,6 +104,51 @@ class JunctionSolveTest {
         }
     }
 
+    /** Breakdown junctions (BV, with and without the reverse knee IKR) from -55 to 150 degC. */
+    private static List<DiodeAtTemperature> breakdownFamily() {
+        List<DiodeAtTemperature> out = new ArrayList<>();
+        for (double bv : new double[] {5.6, 40}) {
+            for (boolean knee : new boolean[] {false, true}) {
+                for (double celsius : new double[] {-55, 27, 150}) {
+                    Map<Param, Double> v = new EnumMap<>(Param.class);
+                    v.put(Param.IS, 1e-12);
+                    v.put(Param.RS, 0.5);
+                    v.put(Param.BV, bv);
+                    v.put(Param.IBV, 1e-5);
+                    if (knee) {
+                        v.put(Param.IKR, 2e-3);
+                    }
+                    out.add(TemperatureLaws.at(DiodeParameters.of(v), celsius + Ngspice39.CELSIUS_TO_KELVIN,
+                            SimulatorOptions.NGSPICE_DEFAULTS));
+                }
+            }
+        }
+        return out;
+    }
+
+    @Test
+    void breakdownCurrentsGiveTheirJunctionVoltageBack() {
+        // the bracket search doubles its reverse end far into breakdown, where the current and its conductance
+        // overflow; the solve must bisect away from there, not stop on a step of 0 (found by ReverseAgainstNgspiceTest)
+        for (DiodeAtTemperature d : breakdownFamily()) {
+            for (double vd0 = -d.breakdownVoltage() + 0.3; ; vd0 -= 0.0173) {
+                double current = JunctionCurrent.current(d, vd0);
+                if (current < -1) {
+                    break;
+                }
+                if (current > -1e3 * d.saturationCurrent()) {
+                    continue;  // above the knee: the cubic region's plateau, where the voltage is barely defined
+                }
+                double vd = DiodeSolver.junctionVoltageAtCurrent(d, current);
+                // the solve's tolerance is relative above 1 V
+                double tolerance = SOLVE_TOLERANCE_V * Math.abs(vd0) + CURRENT_ROUNDING_ULPS * Math.ulp(current)
+                        / JunctionCurrent.conductance(d, vd0);
+                double at = vd0;
+                assertEquals(vd0, vd, tolerance, () -> d + " at " + current + " A (vd " + at + " V)");
+            }
+        }
+    }
+
     @Test
     void aShuntedJunctionGivesItsJunctionVoltageBack() {
         // F(vd) = Ij(vd)(1 + G RS) + G vd is the terminal current (ShuntedJunction's class comment)
