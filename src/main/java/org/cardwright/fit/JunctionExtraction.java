@@ -260,7 +260,7 @@ public final class JunctionExtraction {
     }
 
     /** Whether the data determine IBV: the run with IBV free (null when held) and the note for the decision. */
-    private record IbvDecision(Optimiser.Run run, String note) {
+    record IbvDecision(Optimiser.Run run, String note) {
     }
 
     /** Breakdown readings scattering by more than this multiple of their stated sigma are reweighted [1]. */
@@ -277,8 +277,79 @@ public final class JunctionExtraction {
      * makes the residuals kinked in IBV, so one start is not enough), and the best run by the sum of squares goes
      * in only if it lowers the BIC of the breakdown residuals by more than {@link ForwardExtraction#BIC_THRESHOLD}
      * (Schwarz, Ann. Statist. 6 (1978) 461-464; Kass &amp; Raftery, J. Am. Stat. Assoc. 90 (1995) 773-795).
+     * Where the trial can only confirm the held run ({@link #tradesOffExactly}: every breakdown point at one
+     * temperature) it is not run, and the decision is the one it would reach.
      */
     private IbvDecision decideIbv(BreakdownBlock block, Optimiser.Run held, List<Param> stageFree, ForwardExtraction forward) {
+        if (tradesOffExactly(block, held, forward::bounds, settings.options())) {
+            return heldByTradeOff(block, held);
+        }
+        return ibvTrial(block, held, stageFree, forward);
+    }
+
+    /** How far every breakdown current must exceed what the reverse region below the knee carries [1]. */
+    static final double BREAKDOWN_CURRENT_MARGIN = 100;
+
+    /**
+     * True when freeing IBV cannot lower the breakdown stage's sum of squares, so that the trial of
+     * {@link #ibvTrial} would only confirm the held run. That is so when every breakdown point was measured at one
+     * and the same temperature: there the model sees BV and IBV only through the effective breakdown voltage of the
+     * knee adjustment (and BV(T) through it), and the junction voltage at a breakdown current, -(BV_eff + NBV Vt
+     * ln(|I|/IS(T))) with IKR's and GMIN's small corrections, is linear in BV_eff and NBV: the stage is a linear
+     * least-squares problem in them with one minimum. A held run whose BV converged strictly inside its bounds has
+     * reached that minimum (its gradient in BV, and so in BV_eff, is zero), and no choice of IBV reaches a lower one.
+     * The argument needs every breakdown point in the breakdown branch whatever BV_eff is, that is each |I| far above
+     * what the reverse region below the knee can carry (IS(T) times at most 1 + e^-3, plus GMIN |V|): at least
+     * {@link #BREAKDOWN_CURRENT_MARGIN} times that. A leaky junction near its knee, a BV at a bound, or points at two
+     * temperatures (or a logger's wander of a tenth of a kelvin) run the trial.
+     */
+    static boolean tradesOffExactly(BreakdownBlock block, Optimiser.Run held,
+                                    java.util.function.Function<Param, double[]> bounds,
+                                    org.cardwright.model.SimulatorOptions options) {
+        List<ReversePoint> points = block.points();
+        double t = points.get(0).temperature();
+        for (ReversePoint r : points) {
+            if (Double.compare(r.temperature(), t) != 0) {
+                return false;
+            }
+        }
+        DiodeParameters p = held.parameters();
+        double bv = p.get(Param.BV);
+        double[] b = bounds.apply(Param.BV);
+        if (!(bv > b[0] && bv < b[1])) {
+            return false;
+        }
+        DiodeAtTemperature d = TemperatureLaws.at(p, t, options);
+        double belowKnee = d.saturationCurrent() * (1 + Math.exp(-3));
+        for (ReversePoint r : points) {
+            double carried = belowKnee + d.gmin() * Math.abs(r.voltage());
+            if (!(Math.abs(r.current()) >= BREAKDOWN_CURRENT_MARGIN * carried)) {
+                return false;
+            }
+        }
+        return true;
+    }
+
+    /**
+     * The held decision where IBV trades off exactly ({@link #tradesOffExactly}): the sum of squares with IBV free
+     * is the held one, so the BIC changes by the penalty of one more parameter alone (the note of
+     * {@link #ibvTrial}).
+     */
+    static IbvDecision heldByTradeOff(BreakdownBlock block, Optimiser.Run held) {
+        int n = block.size();
+        double chosen = held.parameters().get(Param.IBV);
+        double bicHeld = ForwardExtraction.bic(held.rss(), n, held.layout().size());
+        double delta = ForwardExtraction.bic(held.rss(), n, held.layout().size() + 1) - bicHeld;
+        return new IbvDecision(null, heldNote(chosen, delta));
+    }
+
+    private static String heldNote(double chosen, double delta) {
+        return String.format(Locale.ROOT, "IBV held at %s A, where the data lie (freeing it changed BIC by %+.1f; needs below -%.0f)",
+                num(chosen), delta, ForwardExtraction.BIC_THRESHOLD);
+    }
+
+    /** The stage refitted with IBV free from starts a decade apart, and the decision by BIC (see {@link #decideIbv}). */
+    static IbvDecision ibvTrial(BreakdownBlock block, Optimiser.Run held, List<Param> stageFree, ForwardExtraction forward) {
         int n = block.size();
         double chosen = held.parameters().get(Param.IBV);
         double bicHeld = ForwardExtraction.bic(held.rss(), n, held.layout().size());
@@ -306,9 +377,7 @@ public final class JunctionExtraction {
                     "IBV determined by the data across temperatures (%s A): BIC fell by %.1f (threshold %.0f)",
                     num(best.parameters().get(Param.IBV)), -delta, ForwardExtraction.BIC_THRESHOLD));
         }
-        return new IbvDecision(null, String.format(Locale.ROOT,
-                "IBV held at %s A, where the data lie (freeing it changed BIC by %+.1f; needs below -%.0f)",
-                num(chosen), delta, ForwardExtraction.BIC_THRESHOLD));
+        return new IbvDecision(null, heldNote(chosen, delta));
     }
 
     private DiodeParameters put(DiodeParameters p, Map<Param, Double> start, Param q, double value) {

@@ -2,6 +2,7 @@ package org.cardwright.fit;
 
 import java.util.List;
 import java.util.Locale;
+import org.apache.commons.math3.linear.Array2DRowRealMatrix;
 import org.apache.commons.math3.linear.RealMatrix;
 import org.apache.commons.math3.linear.SingularValueDecomposition;
 
@@ -28,7 +29,7 @@ record Uncertainty(double[] standardErrors, double[][] correlations, boolean sin
             return new Uncertainty(se, corr, false);
         }
         RealMatrix j = model.jacobian(best.x());
-        SingularValueDecomposition svd = new SingularValueDecomposition(j.transpose().multiply(j));
+        SingularValueDecomposition svd = new SingularValueDecomposition(curvature(j));
         RealMatrix cov = svd.getSolver().getInverse();
         double scale = Double.isFinite(reducedChiSquare) ? reducedChiSquare : 1;
         boolean singular = svd.getConditionNumber() > 1e15;
@@ -40,6 +41,28 @@ record Uncertainty(double[] standardErrors, double[][] correlations, boolean sin
             }
         }
         return new Uncertainty(se, corr, singular);
+    }
+
+    /**
+     * JᵀJ, summed as Commons Math's {@code j.transpose().multiply(j)} sums it (each entry from zero over the rows in
+     * order, so the same numbers to the bit) without its per-entry index checks and the transposed copy; the matrix
+     * is symmetric, so each pair is summed once.
+     */
+    static RealMatrix curvature(RealMatrix j) {
+        double[][] rows = j instanceof Array2DRowRealMatrix a ? a.getDataRef() : j.getData();
+        int k = j.getColumnDimension();
+        double[][] out = new double[k][k];
+        for (int a = 0; a < k; a++) {
+            for (int b = a; b < k; b++) {
+                double sum = 0;
+                for (double[] row : rows) {
+                    sum += row[a] * row[b];
+                }
+                out[a][b] = sum;
+                out[b][a] = sum;
+            }
+        }
+        return new Array2DRowRealMatrix(out, false);
     }
 
     /** Adds a plain warning for every pair of free parameters correlated beyond {@link #STRONG_CORRELATION}. */

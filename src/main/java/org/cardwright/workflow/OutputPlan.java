@@ -5,7 +5,9 @@ import java.nio.file.Files;
 import java.nio.file.LinkOption;
 import java.nio.file.Path;
 import java.util.ArrayList;
+import java.util.HashMap;
 import java.util.List;
+import java.util.Map;
 import java.util.Objects;
 
 /**
@@ -31,13 +33,51 @@ public final class OutputPlan {
 
     private final List<Entry> reads = new ArrayList<>();
     private final List<Entry> writes = new ArrayList<>();
+    /**
+     * The first {@link #sharedReads} inputs indexed as {@link #check} looks them up, taken from the plan this one
+     * was copied from: a library's plan of thousands of inputs is indexed once, not once per part.
+     */
+    private Map<Object, Entry> sharedIndex = Map.of();
+    private int sharedReads;
+    /** This plan's own index of all its inputs, kept for its copies while its inputs do not change. */
+    private Map<Object, Entry> indexOfAll;
+    private int indexedReads = -1;
 
     /** A new plan with this one's inputs and outputs (each located once), to add more to. */
-    public OutputPlan copy() {
+    public synchronized OutputPlan copy() {
         OutputPlan c = new OutputPlan();
         c.reads.addAll(reads);
         c.writes.addAll(writes);
+        c.sharedIndex = indexOfAll();
+        c.sharedReads = reads.size();
         return c;
+    }
+
+    /** Every input by where it leads and by its file key, the first input of each (built once per set of inputs). */
+    private Map<Object, Entry> indexOfAll() {
+        if (indexOfAll == null || indexedReads != reads.size()) {
+            Map<Object, Entry> all = new HashMap<>(sharedIndex);
+            index(reads.subList(sharedReads, reads.size()), all);
+            indexOfAll = all;
+            indexedReads = reads.size();
+        }
+        return indexOfAll;
+    }
+
+    /** Adds each entry of {@code entries} under where it leads and its file key, unless an earlier one holds the key. */
+    private static void index(List<Entry> entries, Map<Object, Entry> into) {
+        for (Entry r : entries) {
+            into.putIfAbsent(r.real(), r);
+            if (r.fileKey() != null) {
+                into.putIfAbsent(r.fileKey(), r);
+            }
+        }
+    }
+
+    /** The first input indexed under {@code key}: the shared ones come before this plan's own. */
+    private Entry readAt(Object key, Map<Object, Entry> own) {
+        Entry e = sharedIndex.get(key);
+        return e != null ? e : own.get(key);
     }
 
     /** A file the command reads; no output may lead to it. */
@@ -69,22 +109,18 @@ public final class OutputPlan {
      * line names one file for two things, a usage error).
      */
     public void check() throws OutputException {
-        // indexed by where each input leads and by its file key: a library's plan holds thousands of inputs
-        java.util.Map<Object, Entry> byPlace = new java.util.HashMap<>();
-        for (Entry r : reads) {
-            byPlace.putIfAbsent(r.real(), r);
-            if (r.fileKey() != null) {
-                byPlace.putIfAbsent(r.fileKey(), r);
-            }
-        }
+        // indexed by where each input leads and by its file key: a library's plan holds thousands of inputs, of
+        // which those copied from the library's shared plan were indexed once for every part
+        Map<Object, Entry> byPlace = new HashMap<>();
+        index(reads.subList(sharedReads, reads.size()), byPlace);
         for (int i = 0; i < writes.size(); i++) {
             Entry w = writes.get(i);
             if (Files.isDirectory(w.real())) {
                 throw new OutputException(shown(w.path()) + ": " + w.role() + " names a folder, not a file; write it somewhere else");
             }
-            Entry hit = byPlace.get(w.real());
+            Entry hit = readAt(w.real(), byPlace);
             if (hit == null && w.fileKey() != null) {
-                hit = byPlace.get(w.fileKey());
+                hit = readAt(w.fileKey(), byPlace);
             }
             if (hit != null) {
                 throw new OutputException(shown(w.path()) + ": " + w.role() + " would overwrite " + hit.role() + " "
