@@ -366,7 +366,9 @@ public final class ForwardExtraction {
      * minimum where the terms trade places or share one region, so one start is not enough. The starts are the
      * start given ({@code trial}) and, for every ordered pair of the low-, mid- and high-current thirds of the
      * reference sweep, the main term from one third's Shockley line and the recombination term from another's
-     * ({@link StartValues#regionalLines}), the swapped assignments included. Each is refined on the reference
+     * ({@link StartValues#regionalLines}), the swapped assignments included; these regional starts only when the thirds
+     * follow different lines ({@link StartValues#regionalLinesDiffer} at {@link #REGION_TEST_LEVEL}): on one line every
+     * pair start is that line split in two, a start the trial already stands for. Each is refined on the reference
      * sweep alone (EG and XTI held, which is cheap), the best of them by the sum of squared weighted residuals is
      * fitted on all the data, and of that run and {@code first} (the global run from {@code trial}) the one with
      * the smaller sum of squares is kept: the same criterion as every fit here. Returns null only when no start
@@ -551,6 +553,13 @@ public final class ForwardExtraction {
      */
     private static final double SCREENING_TOLERANCE = 1e-6;
 
+    /**
+     * Size of the test that decides whether the regional lines differ ({@link StartValues#regionalLinesDiffer}): the
+     * chance that a sweep of one line gets the regional starts anyway, a cost only; a small size would risk missing two
+     * lines [1]. The conventional 5 % (common practice, no source).
+     */
+    static final double REGION_TEST_LEVEL = 0.05;
+
     /** The best start after screening (null when none converged) and its sum of squares on the reference sweep. */
     /** The screened starts of one stage, made at most once, from the first multi-start call's start. */
     private static final class ScreenOnce {
@@ -578,7 +587,8 @@ public final class ForwardExtraction {
         List<Map<Param, Double>> starts = new ArrayList<>();
         starts.add(trial);
         double[][] lines = StartValues.regionalLines(reference, rs);
-        for (int a = 0; a < 3; a++) {
+        boolean distinct = StartValues.regionalLinesDiffer(reference, rs, REGION_TEST_LEVEL);
+        for (int a = 0; a < 3 && distinct; a++) {
             for (int b = 0; b < 3; b++) {
                 if (a == b || lines[a] == null || lines[b] == null) {
                     continue;
