@@ -376,7 +376,8 @@ public final class ForwardExtraction {
      */
     private Optimiser.Run multiStart(Optimiser.Run first, List<ResidualBlock> blocks, Map<Param, Double> trial,
                                      List<Param> free, List<FitPoint> reference, ScreenOnce screened) {
-        if (screened.trial == null) {
+        boolean firstCall = screened.trial == null;
+        if (firstCall) {
             // the screen is made once per stage, from the first call's start (it is made lazily, but as then)
             screened.trial = new EnumMap<>(trial);
             screened.free = new ArrayList<>(free);
@@ -396,6 +397,11 @@ public final class ForwardExtraction {
             }
         }
         if (screened.screen == null) {
+            if (firstCall && first != null && onlyRepeats(first, blocks, trial, free, reference)) {
+                // the screen would hold the trial start alone, refined as the global run already was (left unmade:
+                // a later call from another start makes it as then)
+                return first;
+            }
             screened.screen = screenStarts(screened.trial, screened.free, reference);
         }
         Screen screen = screened.screen;
@@ -423,6 +429,27 @@ public final class ForwardExtraction {
             return first;
         }
         return first == null || second.rss() < first.rss() ? second : first;
+    }
+
+    /**
+     * Whether the screen of this first call would only repeat {@code first}: no regional starts
+     * ({@link StartValues#regionalLinesDiffer}), so the trial start alone; the data are the reference sweep alone and
+     * every free parameter is one the screen refines, so screening the trial start is the global run again on the same
+     * points and parameters from the same start, stopped at the looser tolerance (a larger or equal sum of squares: the
+     * test in {@link #multiStart} keeps {@code first}); and {@code first} has its terms in order (NR not below N), so
+     * {@link #inOrder} would not swap them.
+     */
+    private boolean onlyRepeats(Optimiser.Run first, List<ResidualBlock> blocks, Map<Param, Double> trial, List<Param> free,
+                                List<FitPoint> reference) {
+        int rows = 0;
+        for (ResidualBlock b : blocks) {
+            rows += b.size();
+        }
+        DiodeParameters p = first.parameters();
+        if (rows != reference.size() || !TWO_TERMS.containsAll(free) || !p.isGiven(Param.ISR) || p.get(Param.NR) < p.get(Param.N)) {
+            return false;
+        }
+        return !StartValues.regionalLinesDiffer(reference, trial.getOrDefault(Param.RS, 0.0), REGION_TEST_LEVEL);
     }
 
     /** The decision's name for VJ and M in the recombination factor. */
