@@ -220,7 +220,7 @@ final class StartValues {
      * least-squares line V - RS I = a + b ln I (weights 1/sigma^2) through the points of every third, against one line
      * per third; with m points in g thirds, F = ((RSS_1 - RSS_g) / (2 (g - 1))) / (RSS_g / (m - 2 g)) follows Fisher's F
      * distribution with 2 (g - 1) and m - 2 g degrees of freedom when the thirds share one line and the residuals are
-     * independent Gaussian noise. The lines differ when F exceeds that distribution's (1 - {@code level}) quantile.
+     * independent Gaussian noise. The lines differ when F exceeds that distribution's (1 - {@code level}) quantile ({@link FisherF}).
      * Each point belongs to one third; a third with fewer than 3 points is left out. The test is scale-free (the ratio
      * of two sums of squares), as the information criterion of the term selection is. True (cannot tell them apart
      * from noise, so assume they differ) when fewer than two thirds remain, no degree of freedom is left, or the
@@ -263,8 +263,7 @@ final class StartValues {
             return common > 0;
         }
         double f = Math.max(common - separate, 0) / numerator / (separate / denominator);
-        double p = 1 - new org.apache.commons.math3.distribution.FDistribution(null, numerator, denominator).cumulativeProbability(f);
-        return p < level;
+        return FisherF.upperTail(f, numerator, denominator) < level;
     }
 
     /** Weighted residual sum of squares of the least-squares line y = a + b x through {x, y, weight} triples. */
