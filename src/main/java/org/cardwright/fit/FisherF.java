@@ -5,8 +5,9 @@ package org.cardwright.fit;
  * degrees of freedom is the regularized incomplete beta function I_x(d2/2, d1/2) at x = d2/(d2 + d1 f) (Abramowitz
  * &amp; Stegun, "Handbook of Mathematical Functions", NBS 1964, 26.6.2 and 26.5.1; recalled), evaluated by its
  * continued fraction with the modified Lentz method and ln Gamma by the Lanczos approximation (Press, Teukolsky,
- * Vetterling &amp; Flannery, "Numerical Recipes", 3rd ed., Cambridge University Press 2007, sections 6.1 and 6.4;
- * Lanczos, "A precision approximation of the gamma function", J. SIAM Numer. Anal. B 1 (1964) 86-96). Written here
+ * Vetterling &amp; Flannery, "Numerical Recipes in C", 2nd ed., Cambridge University Press 1992, sections 6.1 and 6.4,
+ * betacf and gammln; Lanczos, "A precision approximation of the gamma function", J. SIAM Numer. Anal. B 1 (1964)
+ * 86-96; both recalled). Written here
  * rather than taken from Commons Math's distributions, whose first use in a short command loads and verifies a
  * dozen classes (about 15 ms, docs/performance.md section 11); {@code FisherFTest} holds the two to 1e-7 relative.
  */
