@@ -366,7 +366,9 @@ public final class ForwardExtraction {
      * minimum where the terms trade places or share one region, so one start is not enough. The starts are the
      * start given ({@code trial}) and, for every ordered pair of the low-, mid- and high-current thirds of the
      * reference sweep, the main term from one third's Shockley line and the recombination term from another's
-     * ({@link StartValues#regionalLines}), the swapped assignments included. Each is refined on the reference
+     * ({@link StartValues#regionalLines}), the swapped assignments included; these regional starts only when the thirds
+     * follow different lines ({@link StartValues#regionalLinesDiffer} at {@link #REGION_TEST_LEVEL}): on one line every
+     * pair start is that line split in two, a start the trial already stands for. Each is refined on the reference
      * sweep alone (EG and XTI held, which is cheap), the best of them by the sum of squared weighted residuals is
      * fitted on all the data, and of that run and {@code first} (the global run from {@code trial}) the one with
      * the smaller sum of squares is kept: the same criterion as every fit here. Returns null only when no start
@@ -374,7 +376,8 @@ public final class ForwardExtraction {
      */
     private Optimiser.Run multiStart(Optimiser.Run first, List<ResidualBlock> blocks, Map<Param, Double> trial,
                                      List<Param> free, List<FitPoint> reference, ScreenOnce screened) {
-        if (screened.trial == null) {
+        boolean firstCall = screened.trial == null;
+        if (firstCall) {
             // the screen is made once per stage, from the first call's start (it is made lazily, but as then)
             screened.trial = new EnumMap<>(trial);
             screened.free = new ArrayList<>(free);
@@ -394,6 +397,11 @@ public final class ForwardExtraction {
             }
         }
         if (screened.screen == null) {
+            if (firstCall && first != null && onlyRepeats(first, blocks, trial, free, reference)) {
+                // the screen would hold the trial start alone, refined as the global run already was (left unmade:
+                // a later call from another start makes it as then)
+                return first;
+            }
             screened.screen = screenStarts(screened.trial, screened.free, reference);
         }
         Screen screen = screened.screen;
@@ -421,6 +429,27 @@ public final class ForwardExtraction {
             return first;
         }
         return first == null || second.rss() < first.rss() ? second : first;
+    }
+
+    /**
+     * Whether the screen of this first call would only repeat {@code first}: no regional starts
+     * ({@link StartValues#regionalLinesDiffer}), so the trial start alone; the data are the reference sweep alone and
+     * every free parameter is one the screen refines, so screening the trial start is the global run again on the same
+     * points and parameters from the same start, stopped at the looser tolerance (a larger or equal sum of squares: the
+     * test in {@link #multiStart} keeps {@code first}); and {@code first} has its terms in order (NR not below N), so
+     * {@link #inOrder} would not swap them.
+     */
+    private boolean onlyRepeats(Optimiser.Run first, List<ResidualBlock> blocks, Map<Param, Double> trial, List<Param> free,
+                                List<FitPoint> reference) {
+        int rows = 0;
+        for (ResidualBlock b : blocks) {
+            rows += b.size();
+        }
+        DiodeParameters p = first.parameters();
+        if (rows != reference.size() || !TWO_TERMS.containsAll(free) || !p.isGiven(Param.ISR) || p.get(Param.NR) < p.get(Param.N)) {
+            return false;
+        }
+        return !StartValues.regionalLinesDiffer(reference, trial.getOrDefault(Param.RS, 0.0), REGION_TEST_LEVEL);
     }
 
     /** The decision's name for VJ and M in the recombination factor. */
@@ -551,6 +580,13 @@ public final class ForwardExtraction {
      */
     private static final double SCREENING_TOLERANCE = 1e-6;
 
+    /**
+     * Size of the test that decides whether the regional lines differ ({@link StartValues#regionalLinesDiffer}): the
+     * chance that a sweep of one line gets the regional starts anyway, a cost only; a small size would risk missing two
+     * lines [1]. The conventional 5 % (common practice, no source).
+     */
+    static final double REGION_TEST_LEVEL = 0.05;
+
     /** The best start after screening (null when none converged) and its sum of squares on the reference sweep. */
     /** The screened starts of one stage, made at most once, from the first multi-start call's start. */
     private static final class ScreenOnce {
@@ -578,7 +614,8 @@ public final class ForwardExtraction {
         List<Map<Param, Double>> starts = new ArrayList<>();
         starts.add(trial);
         double[][] lines = StartValues.regionalLines(reference, rs);
-        for (int a = 0; a < 3; a++) {
+        boolean distinct = StartValues.regionalLinesDiffer(reference, rs, REGION_TEST_LEVEL);
+        for (int a = 0; a < 3 && distinct; a++) {
             for (int b = 0; b < 3; b++) {
                 if (a == b || lines[a] == null || lines[b] == null) {
                     continue;

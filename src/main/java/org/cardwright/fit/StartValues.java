@@ -214,6 +214,87 @@ final class StartValues {
     }
 
     /**
+     * Whether the low-, mid- and high-current thirds of a sweep (by decades of current, as in {@link #regionalLines})
+     * follow different Shockley lines, by Chow's test of equal regression coefficients across groups (Chow, "Tests of
+     * equality between sets of coefficients in two linear regressions", Econometrica 28 (1960) 591-605): one weighted
+     * least-squares line V - RS I = a + b ln I (weights 1/sigma^2) through the points of every third, against one line
+     * per third; with m points in g thirds, F = ((RSS_1 - RSS_g) / (2 (g - 1))) / (RSS_g / (m - 2 g)) follows Fisher's F
+     * distribution with 2 (g - 1) and m - 2 g degrees of freedom when the thirds share one line and the residuals are
+     * independent Gaussian noise. The lines differ when F exceeds that distribution's (1 - {@code level}) quantile ({@link FisherF}).
+     * Each point belongs to one third; a third with fewer than 3 points is left out. The test is scale-free (the ratio
+     * of two sums of squares), as the information criterion of the term selection is. True (cannot tell them apart
+     * from noise, so assume they differ) when fewer than two thirds remain, no degree of freedom is left, or the
+     * per-third lines fit exactly while the common line does not.
+     *
+     * @param level the test's size: the chance of calling one line two when the noise alone differs [1]
+     */
+    static boolean regionalLinesDiffer(List<FitPoint> sweep, double seriesResistance, double level) {
+        List<FitPoint> s = sorted(sweep);
+        double lo = Math.log(s.get(0).current());
+        double hi = Math.log(s.get(s.size() - 1).current());
+        List<List<double[]>> groups = new ArrayList<>();
+        for (int r = 0; r < 3; r++) {
+            groups.add(new ArrayList<>());
+        }
+        for (FitPoint p : s) {
+            double l = Math.log(p.current());
+            int r = hi > lo ? (int) Math.min(2, Math.floor(3 * (l - lo) / (hi - lo))) : 0;
+            groups.get(r).add(new double[] {l, p.voltage() - seriesResistance * p.current(), 1 / (p.sigma() * p.sigma())});
+        }
+        List<double[]> all = new ArrayList<>();
+        double separate = 0;
+        int g = 0;
+        for (List<double[]> grp : groups) {
+            if (grp.size() < 3) {
+                continue;
+            }
+            g++;
+            all.addAll(grp);
+            separate += weightedLineRss(grp);
+        }
+        int m = all.size();
+        int numerator = 2 * (g - 1);
+        int denominator = m - 2 * g;
+        if (g < 2 || denominator < 1) {
+            return true;
+        }
+        double common = weightedLineRss(all);
+        if (!(separate > 0)) {
+            return common > 0;
+        }
+        double f = Math.max(common - separate, 0) / numerator / (separate / denominator);
+        return FisherF.upperTail(f, numerator, denominator) < level;
+    }
+
+    /** Weighted residual sum of squares of the least-squares line y = a + b x through {x, y, weight} triples. */
+    private static double weightedLineRss(List<double[]> xyw) {
+        double sw = 0;
+        double mx = 0;
+        double my = 0;
+        for (double[] p : xyw) {
+            sw += p[2];
+            mx += p[2] * p[0];
+            my += p[2] * p[1];
+        }
+        mx /= sw;
+        my /= sw;
+        double sxx = 0;
+        double sxy = 0;
+        for (double[] p : xyw) {
+            sxx += p[2] * (p[0] - mx) * (p[0] - mx);
+            sxy += p[2] * (p[0] - mx) * (p[1] - my);
+        }
+        double b = sxx > 0 ? sxy / sxx : 0;
+        // the residuals themselves, not syy - sxy^2/sxx, which cancels to rounding for a sweep close to its line
+        double rss = 0;
+        for (double[] p : xyw) {
+            double r = p[1] - my - b * (p[0] - mx);
+            rss += p[2] * r * r;
+        }
+        return rss;
+    }
+
+    /**
      * Activation energy and IS at Tnom from per-temperature saturation currents at a common N, with XTI held:
      * ln IS(T) - (XTI/N) ln(T/Tnom) = ln IS + EG (T/Tnom - 1)/(N Vt(T)). Returns {IS(Tnom) [A], EG [eV]}.
      */
