@@ -18,27 +18,29 @@ import picocli.CommandLine.Option;
 @Command(name = "cardwright",
         mixinStandardHelpOptions = true,
         versionProvider = Main.Version.class,
-        description = {
-            "Fits SPICE diode .model cards to bench measurements and re-simulates each card against the same data.",
-            ""},
-        footerHeading = "%nExit codes%n",
-        footer = {
-            "  0  done; for verify: the card reproduces the data",
-            "  1  verify, check: not reproduced; compare: over a limit; lot: not all fitted",
-            "  2  wrong command line",
-            "  3  an input file is unreadable or malformed",
-            "  4  the data cannot support a fit",
-            "  5  an external simulator is missing, timed out or failed",
-            "  6  an output file exists (use --force) or cannot be written",
-            " 70  internal error (please report it, with --stack-trace)",
-            "",
-            "Bench safety: forward sweeps to amperes heat small parts well past touch-safe temperatures, and "
-                    + "breakdown and surge tests put high voltage on exposed leads. Set current and voltage compliance "
-                    + "limits before you connect a part, and follow your local codes and licensed practice."})
+        description = {Main.DESCRIPTION, ""},
+        footerHeading = Main.FOOTER_HEADING,
+        footer = {Main.FOOTER_0, Main.FOOTER_1, Main.FOOTER_2, Main.FOOTER_3, Main.FOOTER_4, Main.FOOTER_5, Main.FOOTER_6,
+            Main.FOOTER_70, "", Main.SAFETY})
 public final class Main implements Runnable {
+    // the root command's help texts, shared by the annotations and by spec() (the model a run builds)
+    static final String DESCRIPTION = "Fits SPICE diode .model cards to bench measurements and re-simulates each card against the same data.";
+    static final String FOOTER_HEADING = "%nExit codes%n";
+    static final String FOOTER_0 = "  0  done; for verify: the card reproduces the data";
+    static final String FOOTER_1 = "  1  verify, check: not reproduced; compare: over a limit; lot: not all fitted";
+    static final String FOOTER_2 = "  2  wrong command line";
+    static final String FOOTER_3 = "  3  an input file is unreadable or malformed";
+    static final String FOOTER_4 = "  4  the data cannot support a fit";
+    static final String FOOTER_5 = "  5  an external simulator is missing, timed out or failed";
+    static final String FOOTER_6 = "  6  an output file exists (use --force) or cannot be written";
+    static final String FOOTER_70 = " 70  internal error (please report it, with --stack-trace)";
+    static final String SAFETY = "Bench safety: forward sweeps to amperes heat small parts well past touch-safe temperatures, and "
+            + "breakdown and surge tests put high voltage on exposed leads. Set current and voltage compliance "
+            + "limits before you connect a part, and follow your local codes and licensed practice.";
+    static final String STACK_TRACE = "On failure, print the Java stack trace as well as the one-line message.";
 
     @Option(names = "--stack-trace", scope = CommandLine.ScopeType.INHERIT,
-            description = "On failure, print the Java stack trace as well as the one-line message.")
+            description = STACK_TRACE)
     boolean stackTrace;
 
     @CommandLine.Spec
@@ -87,7 +89,7 @@ public final class Main implements Runnable {
     /** A new instance of the subcommand {@code name} (a plain switch: no lambdas to link at start-up). */
     private static Object command(String name) {
         switch (name) {
-            case "fit": return new FitCommand();
+            case "fit": return FitCommand.spec(new FitCommand());
             case "verify": return new VerifyCommand();
             case "build": return new BuildCommand();
             case "tweak": return new TweakCommand();
@@ -119,7 +121,7 @@ public final class Main implements Runnable {
      * the other five. Anything else (no command, help, an unknown word) gets all of them.
      */
     static CommandLine commandLine(String... args) {
-        CommandLine cl = new CommandLine(new Main());
+        CommandLine cl = new CommandLine(new Main().spec());
         String named = null;
         for (String a : args) {
             if (!a.startsWith("-")) {
@@ -132,6 +134,8 @@ public final class Main implements Runnable {
         }
         if (named != null && !named.equals("help") && COMMANDS.contains(named)) {
             cl.addSubcommand(named, command(named));
+        } else if (onlyVersion(args)) {
+            return cl;  // the version text names no command
         } else {
             for (String name : COMMANDS) {
                 cl.addSubcommand(name, command(name));
@@ -145,6 +149,36 @@ public final class Main implements Runnable {
             sub.setHelpSectionKeys(sections);
         }
         return cl;
+    }
+
+    /**
+     * The root command's picocli model, built in code (no annotation read): what the annotations above declare
+     * ({@code CommandModelTest} holds the two to each other).
+     */
+    CommandLine.Model.CommandSpec spec() {
+        CommandLine.Model.CommandSpec s = CommandLine.Model.CommandSpec.wrapWithoutInspection(this);
+        s.name("cardwright");
+        s.versionProvider(new Version());
+        s.usageMessage().description(DESCRIPTION, "").footerHeading(FOOTER_HEADING).footer(FOOTER_0, FOOTER_1, FOOTER_2,
+                FOOTER_3, FOOTER_4, FOOTER_5, FOOTER_6, FOOTER_70, "", SAFETY);
+        s.addOption(CommandModel.option(this, "stackTrace", boolean.class, "--stack-trace").description(STACK_TRACE)
+                .scopeType(CommandLine.ScopeType.INHERIT).build());
+        CommandModel.addStandardHelp(s);
+        spec = s;
+        return s;
+    }
+
+    /** Whether {@code args} only ask for the version ({@code --version} or {@code -V}, maybe with {@code --stack-trace}). */
+    private static boolean onlyVersion(String... args) {
+        boolean version = false;
+        for (String a : args) {
+            if (a.equals("--version") || a.equals("-V")) {
+                version = true;
+            } else if (!a.equals("--stack-trace")) {
+                return false;
+            }
+        }
+        return version;
     }
 
     /**
