@@ -62,6 +62,7 @@ public final class Main implements Runnable {
 
     /** Runs with the given output streams (for tests). */
     public static int execute(PrintWriter out, PrintWriter err, String... args) {
+        Preload.start(commandWord(args));
         CommandLine cl = commandLine(args);
         cl.setOut(out);
         cl.setErr(err);
@@ -122,16 +123,7 @@ public final class Main implements Runnable {
      */
     static CommandLine commandLine(String... args) {
         CommandLine cl = new CommandLine(new Main().spec());
-        String named = null;
-        for (String a : args) {
-            if (!a.startsWith("-")) {
-                named = a;
-                break;
-            }
-            if (!a.equals("--stack-trace")) {
-                break;  // a root option such as --help: it lists every command
-            }
-        }
+        String named = commandWord(args);
         if (named != null && !named.equals("help") && COMMANDS.contains(named)) {
             cl.addSubcommand(named, command(named));
         } else if (onlyVersion(args)) {
@@ -166,6 +158,19 @@ public final class Main implements Runnable {
         CommandModel.addStandardHelp(s);
         spec = s;
         return s;
+    }
+
+    /** The subcommand {@code args} name before any option but {@code --stack-trace}, or null. */
+    private static String commandWord(String... args) {
+        for (String a : args) {
+            if (!a.startsWith("-")) {
+                return a;
+            }
+            if (!a.equals("--stack-trace")) {
+                return null;  // a root option such as --help: it lists every command
+            }
+        }
+        return null;
     }
 
     /** Whether {@code args} only ask for the version ({@code --version} or {@code -V}, maybe with {@code --stack-trace}). */
