@@ -119,7 +119,9 @@ public final class Main implements Runnable {
     /**
      * The command line for {@code args}. picocli reads the annotations of every subcommand it is given when the
      * command line is built; a run that names one subcommand gets only that one, which saves the reflection over
-     * the other five. Anything else (no command, help, an unknown word) gets all of them.
+     * the other five, and a run that only asks for the version gets none. Anything else (no command, help, an
+     * unknown word) gets all of them. The root command's and {@code fit}'s models are built in code ({@link #spec},
+     * {@link FitCommand#spec}), without reading annotations.
      */
     static CommandLine commandLine(String... args) {
         CommandLine cl = new CommandLine(new Main().spec());
