@@ -9,23 +9,44 @@ import picocli.CommandLine.Option;
 
 /** How the measurement files are to be read: options that fit and verify share. */
 final class DataOptions {
-    @Option(names = "--temp", paramLabel = "DEGC", description = "Device temperature in degC for files without a T column.")
+    // the options' help texts, shared by the annotations (verify's mixin) and spec() (fit's model, built in code)
+    static final String TEMP = "Device temperature in degC for files without a T column.";
+    static final String TEMP_FOR = "Device temperature in degC for one data file without a T column or temperature setting, e.g. --temp-for cold.csv=-40. Repeatable; it comes before --temp.";
+    static final String STRAY = "Fixture/stray capacitance included in every C-V reading, subtracted (SPICE suffixes: 1.5p), for C-V files that do not state it (a '# stray capacitance = ...' line in the file wins).";
+    static final String CV_FREQUENCY = "Test frequency of the C-V readings, for C-V files that do not state it ('# test frequency = ...'); default: ${DEFAULT-VALUE}.";
+    static final String METER_RESISTANCE = "Input resistance of the voltmeter in a series-resistor bench log, when the file does not state it (e.g. 10meg).";
+
+    /** These options as a picocli mixin built in code (no annotation read), bound to {@code target}'s fields. */
+    static picocli.CommandLine.Model.CommandSpec spec(DataOptions target) {
+        picocli.CommandLine.Model.CommandSpec spec = picocli.CommandLine.Model.CommandSpec.wrapWithoutInspection(target);
+        spec.addOption(CommandModel.option(target, "temperature", Double.class, "--temp", "DEGC", TEMP).build());
+        spec.addOption(CommandModel.option(target, "temperatureFor", java.util.List.class, "--temp-for", "FILE=DEGC", TEMP_FOR)
+                .auxiliaryTypes(String.class).build());
+        spec.addOption(CommandModel.option(target, "stray", String.class, "--stray-capacitance", "C", STRAY).defaultValue("0").build());
+        spec.addOption(CommandModel.option(target, "cvFrequency", String.class, "--cv-frequency", "HZ", CV_FREQUENCY)
+                .defaultValue("1meg").build());
+        spec.addOption(CommandModel.option(target, "meterResistance", String.class, "--meter-resistance", "OHMS", METER_RESISTANCE)
+                .build());
+        return spec;
+    }
+
+    @Option(names = "--temp", paramLabel = "DEGC", description = TEMP)
     Double temperature;
 
     @Option(names = "--temp-for", paramLabel = "FILE=DEGC",
-            description = "Device temperature in degC for one data file without a T column or temperature setting, e.g. --temp-for cold.csv=-40. Repeatable; it comes before --temp.")
+            description = TEMP_FOR)
     java.util.List<String> temperatureFor = new java.util.ArrayList<>();
 
     @Option(names = "--stray-capacitance", paramLabel = "C", defaultValue = "0",
-            description = "Fixture/stray capacitance included in every C-V reading, subtracted (SPICE suffixes: 1.5p), for C-V files that do not state it (a '# stray capacitance = ...' line in the file wins).")
+            description = STRAY)
     String stray;
 
     @Option(names = "--cv-frequency", paramLabel = "HZ", defaultValue = "1meg",
-            description = "Test frequency of the C-V readings, for C-V files that do not state it ('# test frequency = ...'); default: ${DEFAULT-VALUE}.")
+            description = CV_FREQUENCY)
     String cvFrequency;
 
     @Option(names = "--meter-resistance", paramLabel = "OHMS",
-            description = "Input resistance of the voltmeter in a series-resistor bench log, when the file does not state it (e.g. 10meg).")
+            description = METER_RESISTANCE)
     String meterResistance;
 
     /** The device temperature option in kelvin, if given. */

@@ -18,27 +18,29 @@ import picocli.CommandLine.Option;
 @Command(name = "cardwright",
         mixinStandardHelpOptions = true,
         versionProvider = Main.Version.class,
-        description = {
-            "Fits SPICE diode .model cards to bench measurements and re-simulates each card against the same data.",
-            ""},
-        footerHeading = "%nExit codes%n",
-        footer = {
-            "  0  done; for verify: the card reproduces the data",
-            "  1  verify, check: not reproduced; compare: over a limit; lot: not all fitted",
-            "  2  wrong command line",
-            "  3  an input file is unreadable or malformed",
-            "  4  the data cannot support a fit",
-            "  5  an external simulator is missing, timed out or failed",
-            "  6  an output file exists (use --force) or cannot be written",
-            " 70  internal error (please report it, with --stack-trace)",
-            "",
-            "Bench safety: forward sweeps to amperes heat small parts well past touch-safe temperatures, and "
-                    + "breakdown and surge tests put high voltage on exposed leads. Set current and voltage compliance "
-                    + "limits before you connect a part, and follow your local codes and licensed practice."})
+        description = {Main.DESCRIPTION, ""},
+        footerHeading = Main.FOOTER_HEADING,
+        footer = {Main.FOOTER_0, Main.FOOTER_1, Main.FOOTER_2, Main.FOOTER_3, Main.FOOTER_4, Main.FOOTER_5, Main.FOOTER_6,
+            Main.FOOTER_70, "", Main.SAFETY})
 public final class Main implements Runnable {
+    // the root command's help texts, shared by the annotations and by spec() (the model a run builds)
+    static final String DESCRIPTION = "Fits SPICE diode .model cards to bench measurements and re-simulates each card against the same data.";
+    static final String FOOTER_HEADING = "%nExit codes%n";
+    static final String FOOTER_0 = "  0  done; for verify: the card reproduces the data";
+    static final String FOOTER_1 = "  1  verify, check: not reproduced; compare: over a limit; lot: not all fitted";
+    static final String FOOTER_2 = "  2  wrong command line";
+    static final String FOOTER_3 = "  3  an input file is unreadable or malformed";
+    static final String FOOTER_4 = "  4  the data cannot support a fit";
+    static final String FOOTER_5 = "  5  an external simulator is missing, timed out or failed";
+    static final String FOOTER_6 = "  6  an output file exists (use --force) or cannot be written";
+    static final String FOOTER_70 = " 70  internal error (please report it, with --stack-trace)";
+    static final String SAFETY = "Bench safety: forward sweeps to amperes heat small parts well past touch-safe temperatures, and "
+            + "breakdown and surge tests put high voltage on exposed leads. Set current and voltage compliance "
+            + "limits before you connect a part, and follow your local codes and licensed practice.";
+    static final String STACK_TRACE = "On failure, print the Java stack trace as well as the one-line message.";
 
     @Option(names = "--stack-trace", scope = CommandLine.ScopeType.INHERIT,
-            description = "On failure, print the Java stack trace as well as the one-line message.")
+            description = STACK_TRACE)
     boolean stackTrace;
 
     @CommandLine.Spec
@@ -60,6 +62,7 @@ public final class Main implements Runnable {
 
     /** Runs with the given output streams (for tests). */
     public static int execute(PrintWriter out, PrintWriter err, String... args) {
+        Preload.start(commandWord(args));
         CommandLine cl = commandLine(args);
         cl.setOut(out);
         cl.setErr(err);
@@ -87,7 +90,7 @@ public final class Main implements Runnable {
     /** A new instance of the subcommand {@code name} (a plain switch: no lambdas to link at start-up). */
     private static Object command(String name) {
         switch (name) {
-            case "fit": return new FitCommand();
+            case "fit": return FitCommand.spec(new FitCommand());
             case "verify": return new VerifyCommand();
             case "build": return new BuildCommand();
             case "tweak": return new TweakCommand();
@@ -116,22 +119,17 @@ public final class Main implements Runnable {
     /**
      * The command line for {@code args}. picocli reads the annotations of every subcommand it is given when the
      * command line is built; a run that names one subcommand gets only that one, which saves the reflection over
-     * the other five. Anything else (no command, help, an unknown word) gets all of them.
+     * the other five, and a run that only asks for the version gets none. Anything else (no command, help, an
+     * unknown word) gets all of them. The root command's and {@code fit}'s models are built in code ({@link #spec},
+     * {@link FitCommand#spec}), without reading annotations.
      */
     static CommandLine commandLine(String... args) {
-        CommandLine cl = new CommandLine(new Main());
-        String named = null;
-        for (String a : args) {
-            if (!a.startsWith("-")) {
-                named = a;
-                break;
-            }
-            if (!a.equals("--stack-trace")) {
-                break;  // a root option such as --help: it lists every command
-            }
-        }
+        CommandLine cl = new CommandLine(new Main().spec());
+        String named = commandWord(args);
         if (named != null && !named.equals("help") && COMMANDS.contains(named)) {
             cl.addSubcommand(named, command(named));
+        } else if (onlyVersion(args)) {
+            return cl;  // the version text names no command
         } else {
             for (String name : COMMANDS) {
                 cl.addSubcommand(name, command(name));
@@ -145,6 +143,49 @@ public final class Main implements Runnable {
             sub.setHelpSectionKeys(sections);
         }
         return cl;
+    }
+
+    /**
+     * The root command's picocli model, built in code (no annotation read): what the annotations above declare
+     * ({@code CommandModelTest} holds the two to each other).
+     */
+    CommandLine.Model.CommandSpec spec() {
+        CommandLine.Model.CommandSpec s = CommandLine.Model.CommandSpec.wrapWithoutInspection(this);
+        s.name("cardwright");
+        s.versionProvider(new Version());
+        s.usageMessage().description(DESCRIPTION, "").footerHeading(FOOTER_HEADING).footer(FOOTER_0, FOOTER_1, FOOTER_2,
+                FOOTER_3, FOOTER_4, FOOTER_5, FOOTER_6, FOOTER_70, "", SAFETY);
+        s.addOption(CommandModel.option(this, "stackTrace", boolean.class, "--stack-trace").description(STACK_TRACE)
+                .scopeType(CommandLine.ScopeType.INHERIT).build());
+        CommandModel.addStandardHelp(s);
+        spec = s;
+        return s;
+    }
+
+    /** The subcommand {@code args} name before any option but {@code --stack-trace}, or null. */
+    private static String commandWord(String... args) {
+        for (String a : args) {
+            if (!a.startsWith("-")) {
+                return a;
+            }
+            if (!a.equals("--stack-trace")) {
+                return null;  // a root option such as --help: it lists every command
+            }
+        }
+        return null;
+    }
+
+    /** Whether {@code args} only ask for the version ({@code --version} or {@code -V}, maybe with {@code --stack-trace}). */
+    private static boolean onlyVersion(String... args) {
+        boolean version = false;
+        for (String a : args) {
+            if (a.equals("--version") || a.equals("-V")) {
+                version = true;
+            } else if (!a.equals("--stack-trace")) {
+                return false;
+            }
+        }
+        return version;
     }
 
     /**

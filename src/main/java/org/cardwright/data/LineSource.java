@@ -56,10 +56,10 @@ final class LineSource implements Closeable {
     private boolean ended;
     private boolean pendingCr;
 
-    private LineSource(Path file, InputStream in) {
+    private LineSource(Path file, InputStream in, boolean hashed) {
         this.file = file;
         this.in = in;
-        this.digest = newDigest();
+        this.digest = hashed ? newDigest() : null;
     }
 
     /**
@@ -68,6 +68,19 @@ final class LineSource implements Closeable {
      * @throws DataFileException at line 0 when the file is missing, unreadable, not a regular file or too large
      */
     static LineSource open(Path file) throws DataFileException {
+        return open(file, true);
+    }
+
+    /**
+     * Opens a file as {@link #open} does, without computing its SHA-256 ({@link #sha256} is then unavailable): for a
+     * look at the first lines that decides how the file is to be read (SHA-256 in a fresh JVM's interpreter costs as
+     * much as the rest of the reading).
+     */
+    static LineSource openUnhashed(Path file) throws DataFileException {
+        return open(file, false);
+    }
+
+    private static LineSource open(Path file, boolean hashed) throws DataFileException {
         BasicFileAttributes attributes;
         try {
             attributes = Files.readAttributes(file, BasicFileAttributes.class);
@@ -89,7 +102,7 @@ final class LineSource implements Closeable {
             throw new DataFileException(file, 0, tooLarge(attributes.size()), null);
         }
         try {
-            return new LineSource(file, Files.newInputStream(file));
+            return new LineSource(file, Files.newInputStream(file), hashed);
         } catch (AccessDeniedException e) {
             throw new DataFileException(file, 0, "cannot read: permission denied", null, e);
         } catch (IOException | SecurityException e) {
@@ -158,6 +171,9 @@ final class LineSource implements Closeable {
      * lower-case hex.
      */
     String sha256() throws DataFileException {
+        if (digest == null) {
+            throw new IllegalStateException("opened without hashing: " + file);
+        }
         while (fill()) {
             chunkAt = chunkLength;
         }
@@ -189,7 +205,9 @@ final class LineSource implements Closeable {
             if (total > MAX_FILE_BYTES) {
                 throw new DataFileException(file, 0, tooLarge(total), null);
             }
-            digest.update(chunk, 0, n);
+            if (digest != null) {
+                digest.update(chunk, 0, n);
+            }
             chunkLength = n;
             chunkAt = 0;
             return true;

@@ -34,7 +34,7 @@ public final class RecoveryReader {
      * taken for recovery records, and the measurement reader then says what is wrong with it.
      */
     public static boolean looksLikeRecovery(Path file) {
-        try (LineSource source = LineSource.open(file)) {
+        try (LineSource source = LineSource.openUnhashed(file)) {
             for (String line = source.next(); line != null; line = source.next()) {
                 String t = line.strip();
                 if (t.isEmpty() || t.startsWith("#")) {

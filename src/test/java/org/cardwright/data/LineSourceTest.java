@@ -51,6 +51,25 @@ class LineSourceTest {
     }
 
     @Test
+    void anUnhashedLookReadsTheSameLinesAndRefusesAHash() throws Exception {
+        Path f = dir.resolve("look.txt");
+        Files.write(f, "\uFEFFa\nb\r\nc\rd\n\ne".getBytes(StandardCharsets.UTF_8));
+        List<String> hashed = new ArrayList<>();
+        List<String> unhashed = new ArrayList<>();
+        try (LineSource s = LineSource.open(f); LineSource u = LineSource.openUnhashed(f)) {
+            for (String l = s.next(); l != null; l = s.next()) {
+                hashed.add(l + "@" + s.lineNumber());
+            }
+            for (String l = u.next(); l != null; l = u.next()) {
+                unhashed.add(l + "@" + u.lineNumber());
+            }
+            assertEquals(hashed, unhashed);
+            assertThrows(IllegalStateException.class, u::sha256);
+        }
+        assertThrows(DataFileException.class, () -> LineSource.openUnhashed(dir));
+    }
+
+    @Test
     void digestCoversBytesNotYetRead() throws Exception {
         byte[] bytes = "V,I\n1,2\n3,4\n".getBytes(StandardCharsets.US_ASCII);
         Path f = dir.resolve("partial.csv");
