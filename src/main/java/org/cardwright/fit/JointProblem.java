@@ -1,25 +1,17 @@
 package org.cardwright.fit;
 
 import java.util.List;
-import org.apache.commons.math3.fitting.leastsquares.ValueAndJacobianFunction;
-import org.apache.commons.math3.linear.ArrayRealVector;
 import org.apache.commons.math3.linear.RealMatrix;
-import org.apache.commons.math3.linear.RealVector;
-import org.apache.commons.math3.util.Pair;
 import org.cardwright.model.DiodeParameters;
 
 /**
- * All residual blocks stacked into one least-squares problem for the optimiser (target: zero). The optimiser asks
- * for the residuals and the Jacobian separately ({@link ValueAndJacobianFunction}, Commons Math's lazy evaluation),
- * so that a trial step it rejects costs no Jacobian; the same numbers as one evaluation of both.
+ * All residual blocks stacked into one least-squares problem for the optimiser (target: zero), evaluated lazily
+ * ({@link LazyModel}).
  */
-final class JointProblem implements ValueAndJacobianFunction {
+final class JointProblem extends LazyModel {
     private final List<ResidualBlock> blocks;
     private final FreeParameters layout;
     private final int rows;
-    /** The point of the last {@link #computeValue} call and its residuals (the optimiser asks twice a point). */
-    private double[] lastPoint;
-    private RealVector lastValue;
 
     JointProblem(List<ResidualBlock> blocks, FreeParameters layout) {
         this.blocks = List.copyOf(blocks);
@@ -64,22 +56,12 @@ final class JointProblem implements ValueAndJacobianFunction {
     }
 
     @Override
-    public Pair<RealVector, RealMatrix> value(RealVector point) {
-        double[] x = point.toArray();
-        return new Pair<>(computeValue(x), jacobian(x));
+    double[] residualsAt(double[] x) {
+        return residuals(layout.toParameters(x));
     }
 
     @Override
-    public RealVector computeValue(double[] x) {
-        if (lastPoint == null || !java.util.Arrays.equals(lastPoint, x)) {
-            lastValue = new ArrayRealVector(residuals(layout.toParameters(x)), false);
-            lastPoint = x.clone();
-        }
-        return lastValue;
-    }
-
-    @Override
-    public RealMatrix computeJacobian(double[] x) {
+    RealMatrix jacobianAt(double[] x) {
         return jacobian(x);
     }
 }

@@ -11,13 +11,10 @@ import org.apache.commons.math3.fitting.leastsquares.LeastSquaresBuilder;
 import org.apache.commons.math3.fitting.leastsquares.LeastSquaresOptimizer;
 import org.apache.commons.math3.fitting.leastsquares.LeastSquaresProblem;
 import org.apache.commons.math3.fitting.leastsquares.LevenbergMarquardtOptimizer;
-import org.apache.commons.math3.fitting.leastsquares.ValueAndJacobianFunction;
 import org.apache.commons.math3.linear.Array2DRowRealMatrix;
 import org.apache.commons.math3.linear.ArrayRealVector;
 import org.apache.commons.math3.linear.RealMatrix;
-import org.apache.commons.math3.linear.RealVector;
 import org.apache.commons.math3.linear.SingularValueDecomposition;
-import org.apache.commons.math3.util.Pair;
 import org.cardwright.model.DiodeAtTemperature;
 import org.cardwright.model.DiodeParameters;
 import org.cardwright.model.DiodeSolver;
@@ -399,29 +396,15 @@ final class ShuntTerm {
         x0[k] = Math.min(hi, Math.max(lo, -Math.log(g0)));
         int rows = blocks.stream().mapToInt(ResidualBlock::size).sum();
         BlockCache cache = new BlockCache(blocks);
-        // residuals and Jacobian asked for separately (Commons Math's lazy evaluation, as in Optimiser): a trial step
-        // the optimiser rejects costs no Jacobian; the same numbers as one evaluation of both
-        ValueAndJacobianFunction model = new ValueAndJacobianFunction() {
-            private double[] lastPoint;
-            private RealVector lastValue;
-
+        // residuals and Jacobian asked for separately, as in Optimiser: a rejected trial step costs no Jacobian
+        LazyModel model = new LazyModel() {
             @Override
-            public Pair<RealVector, RealMatrix> value(RealVector point) {
-                double[] x = point.toArray();
-                return new Pair<>(computeValue(x), computeJacobian(x));
+            double[] residualsAt(double[] x) {
+                return residuals(cache, layout, x, k);
             }
 
             @Override
-            public RealVector computeValue(double[] x) {
-                if (lastPoint == null || !java.util.Arrays.equals(lastPoint, x)) {
-                    lastValue = new ArrayRealVector(residuals(cache, layout, x, k), false);
-                    lastPoint = x.clone();
-                }
-                return lastValue;
-            }
-
-            @Override
-            public RealMatrix computeJacobian(double[] x) {
+            RealMatrix jacobianAt(double[] x) {
                 return new JacobianMatrix(jacobian(cache, layout, x, k, rows, lo, hi));
             }
         };
