@@ -20,6 +20,7 @@ import org.cardwright.testsupport.Simulators;
 import org.junit.jupiter.api.DynamicTest;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.TestFactory;
+import org.cardwright.testsupport.TestCopies;
 
 /**
  * Issue 10, item 1: a hostile card cannot run anything or forge a pass. Every card in fixtures/hostile/cards goes
@@ -100,7 +101,7 @@ class HostileCardTest {
         Simulators.requireNgspice();
         for (String fixture : List.of("control-after.mod", "forged-pass.mod", "element-line.mod")) {
             Path root = Simulators.tempDir("hostile-check-" + fixture.replace('.', '-'));
-            copyTree(Simulators.projectDir().resolve("fixtures/library/rectifiers"), root.resolve("rectifiers"));
+            TestCopies.copyTree(Simulators.projectDir().resolve("fixtures/library/rectifiers"), root.resolve("rectifiers"), StandardCopyOption.REPLACE_EXISTING);
             Planted p = plant(corpus().resolve(fixture), root.resolve("scratch"));
             Path card = root.resolve("rectifiers/cards/RB4.ngspice.lib");
             Files.copy(p.card(), card, StandardCopyOption.REPLACE_EXISTING);
@@ -143,16 +144,4 @@ class HostileCardTest {
         assertTrue(p.waitFor(Duration.ofSeconds(SIMULATOR_SECONDS).toSeconds(), TimeUnit.SECONDS), "simulator hung");
     }
 
-    private static void copyTree(Path from, Path to) throws IOException {
-        try (Stream<Path> s = Files.walk(from)) {
-            for (Path src : s.toList()) {
-                Path dst = to.resolve(from.relativize(src).toString());
-                if (Files.isDirectory(src)) {
-                    Files.createDirectories(dst);
-                } else {
-                    Files.copy(src, dst, StandardCopyOption.REPLACE_EXISTING);
-                }
-            }
-        }
-    }
 }

@@ -19,6 +19,7 @@ import java.util.stream.Stream;
 import org.cardwright.testsupport.Simulators;
 import org.junit.jupiter.api.DynamicTest;
 import org.junit.jupiter.api.TestFactory;
+import org.cardwright.testsupport.TestCopies;
 
 /**
  * Issue 10, libraries stay inside their root: every case in fixtures/hostile/library, run through the real command
@@ -50,7 +51,7 @@ class HostileLibraryTest {
         Files.writeString(outside.resolve("secret.csv"), "# " + SECRET + "\nTOKEN=" + SECRET + "\n", StandardCharsets.UTF_8);
         Files.writeString(outside.resolve("outside.device.yaml"), "# " + SECRET + "\nmodel: OUT\ndata:\n  - file: secret.csv\n",
                 StandardCharsets.UTF_8);
-        copyTree(caseFolder, root);
+        TestCopies.copyTree(caseFolder, root);
         Files.delete(root.resolve("case.txt"));
         Path good = Simulators.projectDir().resolve("fixtures/demo/ks1-forward-25C.csv");
         Files.createDirectories(root.resolve("data"));
@@ -148,19 +149,6 @@ class HostileLibraryTest {
             o.write("model: BIG\ndata:\n  - file: data/good.csv\n".getBytes(StandardCharsets.UTF_8));
             for (long n = 0; n < bytes; n += line.length) {
                 o.write(line);
-            }
-        }
-    }
-
-    private static void copyTree(Path from, Path to) throws IOException {
-        try (Stream<Path> walk = Files.walk(from)) {
-            for (Path p : walk.toList()) {
-                Path q = to.resolve(from.relativize(p).toString());
-                if (Files.isDirectory(p)) {
-                    Files.createDirectories(q);
-                } else {
-                    Files.copy(p, q);
-                }
             }
         }
     }

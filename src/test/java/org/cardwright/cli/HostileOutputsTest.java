@@ -13,6 +13,7 @@ import java.util.TreeMap;
 import java.util.stream.Stream;
 import org.cardwright.testsupport.Simulators;
 import org.junit.jupiter.api.Test;
+import org.cardwright.testsupport.TestCopies;
 
 /**
  * Issue 10, lost outputs: an output path that leads (after symbolic links) to an input of the same command or to a
@@ -103,7 +104,7 @@ class HostileOutputsTest {
     void tweakNeverWritesIntoTheLibraryThroughALinkEvenWithForce() throws IOException {
         Path dir = Simulators.tempDir("hostile-out-tweak");
         Path lib = dir.resolve("lib");
-        copyTree(Simulators.projectDir().resolve("fixtures/library/rectifiers"), lib);
+        TestCopies.copyTree(Simulators.projectDir().resolve("fixtures/library/rectifiers"), lib);
         Path link = Files.createSymbolicLink(dir.resolve("elsewhere"), lib.resolve("cards"));
         Map<String, byte[]> before = snapshot(dir);
         CliRun run = CliRun.of("tweak", lib.resolve("RB4.device.yaml").toString(), "--set", "RS=+10%", "--render-only",
@@ -115,19 +116,6 @@ class HostileOutputsTest {
         Map<String, byte[]> again = snapshot(dir);
         refused(CliRun.of("tweak", lib.resolve("RB4.device.yaml").toString(), "--set", "RS=+10%", "--render-only",
                 "--out", own.toString(), "--force"), "would overwrite the library's own RB4.ngspice.lib", dir, again);
-    }
-
-    private static void copyTree(Path from, Path to) throws IOException {
-        try (Stream<Path> walk = Files.walk(from)) {
-            for (Path p : walk.toList()) {
-                Path q = to.resolve(from.relativize(p).toString());
-                if (Files.isDirectory(p)) {
-                    Files.createDirectories(q);
-                } else {
-                    Files.copy(p, q);
-                }
-            }
-        }
     }
 
     private static Map<String, byte[]> snapshot(Path dir) throws IOException {

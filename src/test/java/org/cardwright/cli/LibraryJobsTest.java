@@ -3,13 +3,11 @@ package org.cardwright.cli;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.nio.file.StandardCopyOption;
-import java.util.Comparator;
 import java.util.List;
-import java.util.stream.Stream;
 import org.cardwright.testsupport.Simulators;
+import org.cardwright.testsupport.TestCopies;
 import org.junit.jupiter.api.Test;
 
 /**
@@ -22,16 +20,7 @@ class LibraryJobsTest {
     private static Path exampleLibrary(String name) throws Exception {
         Path from = Simulators.projectDir().resolve("fixtures/library");
         Path to = Simulators.tempDir(name);
-        try (Stream<Path> walk = Files.walk(from)) {
-            for (Path p : walk.sorted(Comparator.naturalOrder()).toList()) {
-                Path q = to.resolve(from.relativize(p).toString());
-                if (Files.isDirectory(p)) {
-                    Files.createDirectories(q);
-                } else {
-                    Files.copy(p, q, StandardCopyOption.REPLACE_EXISTING, StandardCopyOption.COPY_ATTRIBUTES);
-                }
-            }
-        }
+        TestCopies.copyTree(from, to, StandardCopyOption.REPLACE_EXISTING, StandardCopyOption.COPY_ATTRIBUTES);
         return to;
     }
 

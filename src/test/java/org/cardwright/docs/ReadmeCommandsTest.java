@@ -17,7 +17,6 @@ import java.util.Map;
 import java.util.concurrent.TimeUnit;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
-import java.util.stream.Stream;
 import org.cardwright.testsupport.Simulators;
 import org.junit.jupiter.api.Test;
 import picocli.CommandLine;
@@ -76,8 +75,8 @@ class ReadmeCommandsTest {
         Simulators.requireNgspice();  // one README command runs --engine ngspice
         Path root = Simulators.projectDir();
         Path work = Simulators.tempDir("readme-commands");
-        copyTree(root.resolve("fixtures"), work.resolve("fixtures"));
-        copyTree(root.resolve("fixtures/library"), work.resolve("lib"));  // "copy it somewhere to try the commands"
+        TestCopies.copyTree(root.resolve("fixtures"), work.resolve("fixtures"), StandardCopyOption.COPY_ATTRIBUTES, StandardCopyOption.REPLACE_EXISTING);
+        TestCopies.copyTree(root.resolve("fixtures/library"), work.resolve("lib"), StandardCopyOption.COPY_ATTRIBUTES, StandardCopyOption.REPLACE_EXISTING);  // "copy it somewhere to try the commands"
         Files.createDirectories(work.resolve("target"));
         glitch(work);
         Path bin = launcherOnPath(root, work);
@@ -116,8 +115,8 @@ class ReadmeCommandsTest {
     void theVerifyLineOfEveryCardRunsAsWrittenWithItsOptions() throws Exception {
         Path root = Simulators.projectDir();
         Path work = Simulators.tempDir("card-verify-lines");
-        copyTree(root.resolve("fixtures/demo"), work.resolve("data"));
-        copyTree(root.resolve("fixtures/recovery"), work.resolve("data"));
+        TestCopies.copyTree(root.resolve("fixtures/demo"), work.resolve("data"), StandardCopyOption.COPY_ATTRIBUTES, StandardCopyOption.REPLACE_EXISTING);
+        TestCopies.copyTree(root.resolve("fixtures/recovery"), work.resolve("data"), StandardCopyOption.COPY_ATTRIBUTES, StandardCopyOption.REPLACE_EXISTING);
         Path bin = launcherOnPath(root, work);
         // recovery records without a T column need --temp; a fraction of a degree once came out as "500m"
         Result fit = run("cardwright fit data/ks1-*.csv data/ks1-recovery-25C.csv --temp 0.5 --name K1 --out 'cards here'"
@@ -203,16 +202,4 @@ class ReadmeCommandsTest {
         return new Result(p.exitValue(), Files.readString(out, StandardCharsets.UTF_8), Files.readString(err, StandardCharsets.UTF_8));
     }
 
-    private static void copyTree(Path from, Path to) throws IOException {
-        try (Stream<Path> files = Files.walk(from)) {
-            for (Path f : files.toList()) {
-                Path target = to.resolve(from.relativize(f).toString());
-                if (Files.isDirectory(f)) {
-                    Files.createDirectories(target);
-                } else {
-                    Files.copy(f, target, StandardCopyOption.COPY_ATTRIBUTES, StandardCopyOption.REPLACE_EXISTING);
-                }
-            }
-        }
-    }
 }

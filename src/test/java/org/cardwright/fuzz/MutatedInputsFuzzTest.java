@@ -9,7 +9,6 @@ import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
-import java.util.Comparator;
 import java.util.List;
 import java.util.Random;
 import java.util.regex.Pattern;
@@ -17,6 +16,7 @@ import java.util.stream.Stream;
 import org.cardwright.cli.Main;
 import org.cardwright.testsupport.Simulators;
 import org.junit.jupiter.api.Test;
+import org.cardwright.testsupport.TestCopies;
 
 /**
  * Issue 10 fuzz test: seeded mutations of the project's own fixtures (CSV data of every kind, cards, a device
@@ -94,7 +94,7 @@ class MutatedInputsFuzzTest {
         }
         for (int k = 0; k < DEVICE_RUNS; k++) {
             Path library = work.resolve("library-" + k);
-            copyTree(ROOT.resolve("fixtures/library/switching"), library.resolve("switching"));
+            TestCopies.copyTree(ROOT.resolve("fixtures/library/switching"), library.resolve("switching"), java.nio.file.StandardCopyOption.REPLACE_EXISTING);
             Path device = library.resolve("switching/SW1.device.yaml");
             mutate(ROOT.resolve("fixtures/library/switching/SW1.device.yaml"), device, random);
             Path junit = work.resolve("check-" + k + ".xml");
@@ -246,16 +246,4 @@ class MutatedInputsFuzzTest {
         return out;
     }
 
-    private static void copyTree(Path from, Path to) throws IOException {
-        try (Stream<Path> s = Files.walk(from)) {
-            for (Path p : s.sorted(Comparator.naturalOrder()).toList()) {
-                Path target = to.resolve(from.relativize(p).toString());
-                if (Files.isDirectory(p)) {
-                    Files.createDirectories(target);
-                } else {
-                    Files.copy(p, target, java.nio.file.StandardCopyOption.REPLACE_EXISTING);
-                }
-            }
-        }
-    }
 }

@@ -5,7 +5,6 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.nio.file.StandardCopyOption;
 import java.nio.file.attribute.FileTime;
-import java.util.Comparator;
 import java.util.Map;
 import java.util.TreeMap;
 import java.util.stream.Stream;
@@ -39,16 +38,7 @@ final class Trees {
 
     /** Copies the tree {@code from} into the (new) folder {@code to}. */
     static void copy(Path from, Path to) throws IOException {
-        try (Stream<Path> walk = Files.walk(from)) {
-            for (Path p : walk.sorted(Comparator.naturalOrder()).toList()) {
-                Path q = to.resolve(from.relativize(p).toString());
-                if (Files.isDirectory(p)) {
-                    Files.createDirectories(q);
-                } else {
-                    Files.copy(p, q, StandardCopyOption.REPLACE_EXISTING, StandardCopyOption.COPY_ATTRIBUTES);
-                }
-            }
-        }
+        org.cardwright.testsupport.TestCopies.copyTree(from, to, StandardCopyOption.REPLACE_EXISTING, StandardCopyOption.COPY_ATTRIBUTES);
     }
 
     /** Sets every file's modification time to {@code time}, so that a later write is visible whatever the clock's resolution. */

@@ -17,22 +17,30 @@ public final class TestCopies {
     }
 
     /**
+     * Copies the tree {@code from} into the folder {@code to} (created as needed): folders first, in name order, each
+     * file with {@code options} (e.g. keeping its time stamps, or replacing a file already there).
+     */
+    public static void copyTree(Path from, Path to, java.nio.file.CopyOption... options) throws IOException {
+        try (Stream<Path> walk = Files.walk(from)) {
+            for (Path p : walk.sorted(java.util.Comparator.naturalOrder()).toList()) {
+                Path t = to.resolve(from.relativize(p).toString());
+                if (Files.isDirectory(p)) {
+                    Files.createDirectories(t);
+                } else {
+                    Files.copy(p, t, options);
+                }
+            }
+        }
+    }
+
+    /**
      * A fresh copy of {@code fixtures/library/FOLDER} in a new temporary folder named after {@code name}, for a
      * test that builds, tweaks or edits a library part without touching the shipped one.
      */
     public static Path libraryFolder(String folder, String name) throws IOException {
         Path from = Simulators.projectDir().resolve("fixtures/library").resolve(folder);
         Path to = Simulators.tempDir(name);
-        try (Stream<Path> walk = Files.walk(from)) {
-            for (Path p : walk.toList()) {
-                Path t = to.resolve(from.relativize(p).toString());
-                if (Files.isDirectory(p)) {
-                    Files.createDirectories(t);
-                } else {
-                    Files.copy(p, t);
-                }
-            }
-        }
+        copyTree(from, to);
         return to;
     }
 
