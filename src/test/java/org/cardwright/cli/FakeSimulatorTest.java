@@ -99,6 +99,8 @@ class FakeSimulatorTest {
     private static Outcome cli(Path dir, String variable, String value, String... args) throws Exception {
         List<String> command = new ArrayList<>(List.of(
                 Path.of(System.getProperty("java.home"), "bin", "java").toString(),
+                // a failed run keeps its netlist for the user in the temporary folder: here, the test's own folder
+                "-Djava.io.tmpdir=" + dir,
                 "-cp", System.getProperty("surefire.test.class.path", System.getProperty("java.class.path")),
                 Main.class.getName()));
         command.addAll(List.of(args));
@@ -195,6 +197,8 @@ class FakeSimulatorTest {
             assertFalse(o.stderr().contains("\tat ") || o.stderr().contains("Exception"), label);
             assertTrue(lines.get(0).chars().allMatch(c -> c >= 0x20 && c < 0x7f), "printable: " + label);
             assertNoneLeft(dir.resolve("pids"), f.name());
+            // the line names where the failed run's netlist was kept, and that is inside the run's own folder
+            assertTrue(lines.get(0).contains(dir.toString() + "/cardwright-"), "netlist kept in " + dir + ": " + label);
         }));
     }
 
