@@ -198,8 +198,10 @@ public final class DiodeSolver {
             dip *= Math.sqrt(d.forwardKneeCurrent() / (d.forwardKneeCurrent() - dip));
         }
         if (d.hasRecombination()) {
+            // the grading factor ((1 - vd/VJ)^2 + 0.005)^(M/2) at vd = -3 N Vt, its largest there, is at most the
+            // square root of its base (M < 1, base above 1)
             double u = 1 + 3 * vte / d.junctionPotential();
-            dip += d.recombinationCurrent() * Math.pow(u * u + 0.005, d.gradingCoefficient() / 2);
+            dip += d.recombinationCurrent() * Math.sqrt(u * u + 0.005);
         }
         if (!(c > 2 * dip)) {
             return 0;
@@ -211,12 +213,11 @@ public final class DiodeSolver {
             s = u * u;
         }
         double v = d.breakdownVoltage() + d.breakdownEmission() * d.thermalVoltage() * Math.log(s / d.saturationCurrent());
-        double k = Math.ceil(Math.log(v / -REVERSE_FIRST_END) / LN_2);
-        // NaN (a current below IS) and anything out of range fall back to the scan's own ends
-        return k > 0 ? (int) Math.min(k, MAX_DOUBLINGS) : 0;
+        // the binary exponent of v/1e-3 plus one: the first end at or beyond v but where v/1e-3 is a power of two
+        // (one step more to walk); NaN (a current below IS) and anything below 1e-3 V fall back to the scan's own ends
+        double ratio = v / -REVERSE_FIRST_END;
+        return ratio >= 1 ? Math.min(Math.getExponent(ratio) + 1, MAX_DOUBLINGS) : 0;
     }
-
-    private static final double LN_2 = Math.log(2);
 
     /**
      * ln(1 + x) for a start value: Math.log (a compiler intrinsic) where 1 + x loses nothing that matters to a start
