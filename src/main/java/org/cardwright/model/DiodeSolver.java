@@ -143,7 +143,7 @@ public final class DiodeSolver {
      * inward while the next end in still carries it: the same k, the same end and the same evaluation there, so the
      * solve that follows takes the same steps to the same double; two evaluations where the prediction is right.
      */
-    private static int reverseDoublings(DiodeAtTemperature d, double current, double[] ig) {
+    static int reverseDoublings(DiodeAtTemperature d, double current, double[] ig) {
         int k = predictedDoublings(d, current);
         JunctionCurrent.currentAndConductance(d, Math.scalb(REVERSE_FIRST_END, k), ig);
         if (ig[0] > current) {
@@ -171,6 +171,23 @@ public final class DiodeSolver {
         }
         ig[0] = i;
         ig[1] = g;
+        return k;
+    }
+
+    /**
+     * The plain scan {@link #reverseDoublings} stands in for: k = 0, 1, 2, ... until the end carries the current, the
+     * evaluation there left in {@code ig}. Kept as the reference its tests compare with.
+     */
+    static int reverseDoublingsByScan(DiodeAtTemperature d, double current, double[] ig) {
+        int k = 0;
+        JunctionCurrent.currentAndConductance(d, REVERSE_FIRST_END, ig);
+        while (ig[0] > current) {
+            if (k >= MAX_DOUBLINGS) {
+                throw new ArithmeticException("no junction voltage carries " + current + " A");
+            }
+            k++;
+            JunctionCurrent.currentAndConductance(d, Math.scalb(REVERSE_FIRST_END, k), ig);
+        }
         return k;
     }
 
