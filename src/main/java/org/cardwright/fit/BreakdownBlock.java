@@ -2,7 +2,6 @@ package org.cardwright.fit;
 
 import java.util.ArrayList;
 import java.util.EnumSet;
-import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Set;
@@ -25,10 +24,25 @@ final class BreakdownBlock implements ResidualBlock {
 
     private final List<ReversePoint> points;
     private final SimulatorOptions options;
+    /** Distinct temperatures of the points [K] and each point's index into them. */
+    private final double[] temperatures;
+    private final int[] group;
+    /** The measured currents, prepared once for the solves of every evaluation. */
+    private final DiodeSolver.ForcedCurrent[] forced;
+    /** Two doubles the solves work in (a block is used by one thread). */
+    private final double[] scratch = new double[2];
 
     BreakdownBlock(List<ReversePoint> points, SimulatorOptions options) {
         this.points = List.copyOf(points);
         this.options = options;
+        TemperatureGroups groups = TemperatureGroups.of(this.points.toArray(new ReversePoint[0]),
+                ReversePoint::temperature);
+        this.temperatures = groups.temperatures();
+        this.group = groups.group();
+        this.forced = new DiodeSolver.ForcedCurrent[this.points.size()];
+        for (int i = 0; i < forced.length; i++) {
+            forced[i] = new DiodeSolver.ForcedCurrent(this.points.get(i).current());
+        }
     }
 
     @Override
@@ -48,12 +62,14 @@ final class BreakdownBlock implements ResidualBlock {
 
     /** Modelled terminal voltages at the measured currents [V]. */
     double[] voltages(DiodeParameters p) {
-        Map<Double, DiodeAtTemperature> at = new HashMap<>();
+        // the temperature laws once per temperature, as the points' temperatures were grouped by equality
+        DiodeAtTemperature[] at = new DiodeAtTemperature[temperatures.length];
+        for (int k = 0; k < at.length; k++) {
+            at[k] = TemperatureLaws.at(p, temperatures[k], options);
+        }
         double[] v = new double[points.size()];
         for (int i = 0; i < v.length; i++) {
-            ReversePoint r = points.get(i);
-            DiodeAtTemperature d = at.computeIfAbsent(r.temperature(), t -> TemperatureLaws.at(p, t, options));
-            v[i] = DiodeSolver.voltageAtCurrent(d, r.current());
+            v[i] = DiodeSolver.voltageAtCurrent(at[group[i]], forced[i], scratch);
         }
         return v;
     }

@@ -44,6 +44,10 @@ final class ForwardBlock implements ResidualBlock {
     private final double shunt;
     private DiodeParameters cachedFor;
     private double[] cachedJunctionVoltages;
+    /** The measured currents, prepared once for the junction solves of every evaluation. */
+    private final DiodeSolver.ForcedCurrent[] forced;
+    /** Two doubles the solves work in (a block is used by one thread, as its cache above). */
+    private final double[] scratch = new double[2];
 
     ForwardBlock(List<FitPoint> points, SimulatorOptions options) {
         this(points, options, 0);
@@ -63,6 +67,10 @@ final class ForwardBlock implements ResidualBlock {
         TemperatureGroups groups = TemperatureGroups.of(this.points, FitPoint::temperature);
         this.temperatures = groups.temperatures();
         this.group = groups.group();
+        this.forced = new DiodeSolver.ForcedCurrent[this.points.length];
+        for (int i = 0; i < forced.length; i++) {
+            forced[i] = new DiodeSolver.ForcedCurrent(this.points[i].current());
+        }
     }
 
     @Override
@@ -90,7 +98,7 @@ final class ForwardBlock implements ResidualBlock {
                 // points whose dissipation cannot warm the junction measurably keep the isothermal shortcut
                 double rise = rth * points[i].current() * Math.abs(points[i].voltage());
                 v[i] = rise < NEGLIGIBLE_RISE
-                        ? DiodeSolver.voltageAtCurrent(at[group[i]], points[i].current())
+                        ? DiodeSolver.voltageAtCurrent(at[group[i]], forced[i], scratch)
                         : SelfHeating.voltageAtCurrent(p, points[i].temperature(), points[i].current(), options);
             }
             return v;
@@ -111,7 +119,7 @@ final class ForwardBlock implements ResidualBlock {
         }
         double[] vd = new double[points.length];
         for (int i = 0; i < vd.length; i++) {
-            vd[i] = shunt == 0 ? DiodeSolver.junctionVoltageAtCurrent(at[group[i]], points[i].current())
+            vd[i] = shunt == 0 ? DiodeSolver.junctionVoltageAtCurrent(at[group[i]], forced[i], scratch)
                     : ShuntedJunction.junctionVoltageAtCurrent(at[group[i]], points[i].current(), shunt);
         }
         cachedFor = p;
