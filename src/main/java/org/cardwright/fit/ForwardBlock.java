@@ -173,8 +173,6 @@ final class ForwardBlock implements ResidualBlock {
         // per temperature and parameter: dq_k/dx of the quantities the current depends on, and dRS/dx
         double[][][] dq = new double[at.length][nFree][];
         double[][] dRdx = new double[at.length][nFree];
-        double[] qPlus = new double[JunctionPartials.SIZE];
-        double[] qMinus = new double[JunctionPartials.SIZE];
         for (int k = 0; k < at.length; k++) {
             for (int j = 0; j < nFree; j++) {
                 if (plus[j] == null) {
@@ -185,7 +183,7 @@ final class ForwardBlock implements ResidualBlock {
                 dRdx[k][j] = (dp.seriesResistance() - dm.seriesResistance()) / (2 * steps[j]);
                 // RS and its temperature coefficients leave the junction current as it is
                 if (!resistanceOnly[j]) {
-                    dq[k][j] = quantityDerivatives(dp, dm, steps[j], qPlus, qMinus);
+                    dq[k][j] = JunctionPartials.difference(dp, dm, 2 * steps[j]);
                 }
             }
         }
@@ -210,7 +208,7 @@ final class ForwardBlock implements ResidualBlock {
                 if (plus[j] == null) {
                     continue;
                 }
-                double dIdp = chain(partials, dq[k][j]);
+                double dIdp = JunctionPartials.chain(partials, dq[k][j]);
                 double dRdp = dRdx[k][j];
                 if (shunt == 0) {
                     jac[i][j] = (-dIdp / g + current * dRdp) * w;
@@ -221,41 +219,6 @@ final class ForwardBlock implements ResidualBlock {
             }
         }
         return jac;
-    }
-
-    /**
-     * dq_k/dx by the central difference of the temperature-scaled quantities of the two moved sets, over
-     * {@code 2·halfStep}; 0 where the two sets agree (which covers quantities that are +infinity in both, an
-     * unset knee current or breakdown voltage). Null when no quantity moves.
-     */
-    private static double[] quantityDerivatives(DiodeAtTemperature plus, DiodeAtTemperature minus, double halfStep,
-                                                double[] qPlus, double[] qMinus) {
-        JunctionPartials.quantities(plus, qPlus);
-        JunctionPartials.quantities(minus, qMinus);
-        double[] out = null;
-        for (int q = JunctionPartials.FIRST_QUANTITY; q < JunctionPartials.SIZE; q++) {
-            if (qPlus[q] != qMinus[q]) {
-                if (out == null) {
-                    out = new double[JunctionPartials.SIZE];
-                }
-                out[q] = (qPlus[q] - qMinus[q]) / (2 * halfStep);
-            }
-        }
-        return out;
-    }
-
-    /** sum over q of dIj/dq·dq/dx; 0 for no moved quantity. */
-    private static double chain(double[] partials, double[] dqdx) {
-        if (dqdx == null) {
-            return 0;
-        }
-        double sum = 0;
-        for (int q = JunctionPartials.FIRST_QUANTITY; q < JunctionPartials.SIZE; q++) {
-            if (dqdx[q] != 0) {
-                sum += partials[q] * dqdx[q];
-            }
-        }
-        return sum;
     }
 
     /**
@@ -292,8 +255,6 @@ final class ForwardBlock implements ResidualBlock {
         double rth = p.get(Param.RTH0);
         double[][] jac = new double[points.length][nFree];
         double[] partials = new double[JunctionPartials.SIZE];
-        double[] qPlus = new double[JunctionPartials.SIZE];
-        double[] qMinus = new double[JunctionPartials.SIZE];
         for (int i = 0; i < points.length; i++) {
             FitPoint pt = points[i];
             double current = pt.current();
@@ -326,7 +287,7 @@ final class ForwardBlock implements ResidualBlock {
                     DiodeAtTemperature dp = TemperatureLaws.at(plus[j], t, options);
                     DiodeAtTemperature dm = TemperatureLaws.at(minus[j], t, options);
                     double dIdx = RESISTANCE_ONLY.contains(layout.free().get(j)) ? 0
-                            : chain(partials, quantityDerivatives(dp, dm, span[j] / 2, qPlus, qMinus));
+                            : JunctionPartials.chain(partials, JunctionPartials.difference(dp, dm, span[j]));
                     double dRdx = (dp.seriesResistance() - dm.seriesResistance()) / span[j];
                     dFdx = -dIdx / g + current * dRdx;
                 }

@@ -212,6 +212,52 @@ public final class JunctionPartials {
         out[CONDUCTANCE] = g;
     }
 
+    /**
+     * dq_k/dx by the central difference of the quantities of two parameter sets moved by {@code span} in one
+     * coordinate x (the sets at x + h and x - h, {@code span} = 2h, or one-sided at a bound): (q+ - q-)/span at
+     * the indices of the partial derivatives; 0 where the two sets agree, which covers a quantity that is +infinity
+     * in both (a knee current or breakdown voltage not given). Null when no quantity moves.
+     *
+     * @param plus  parameters at the device temperature, x moved up
+     * @param minus the same, x moved down
+     * @param span  distance between the two values of x [1 on the optimiser's scale]
+     */
+    public static double[] difference(DiodeAtTemperature plus, DiodeAtTemperature minus, double span) {
+        double[] qPlus = new double[SIZE];
+        double[] qMinus = new double[SIZE];
+        quantities(plus, qPlus);
+        quantities(minus, qMinus);
+        double[] out = null;
+        for (int q = FIRST_QUANTITY; q < SIZE; q++) {
+            if (qPlus[q] != qMinus[q]) {
+                if (out == null) {
+                    out = new double[SIZE];
+                }
+                out[q] = (qPlus[q] - qMinus[q]) / span;
+            }
+        }
+        return out;
+    }
+
+    /**
+     * The chain rule: dIj/dx = sum over k of (dIj/dq_k)(dq_k/dx) [A per unit of x].
+     *
+     * @param partials what {@link #evaluate} gave at the point
+     * @param dqdx     what {@link #difference} gave for x; null for none (the sum is 0)
+     */
+    public static double chain(double[] partials, double[] dqdx) {
+        if (dqdx == null) {
+            return 0;
+        }
+        double sum = 0;
+        for (int q = FIRST_QUANTITY; q < SIZE; q++) {
+            if (dqdx[q] != 0) {
+                sum += partials[q] * dqdx[q];
+            }
+        }
+        return sum;
+    }
+
     private static void scaleQuantities(double[] out, double scale) {
         for (int k = FIRST_QUANTITY; k < SIZE; k++) {
             out[k] *= scale;
