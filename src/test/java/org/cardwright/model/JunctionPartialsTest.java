@@ -30,6 +30,12 @@ class JunctionPartialsTest {
     private static final double STEP = 1e-4;
     /** Keep this far from a branch boundary (vd = -3 N Vt, vd = -BV), so no difference straddles one [V]. */
     private static final double BOUNDARY_MARGIN = 2e-3;
+    /** The current below which ngspice applies no knee scaling, as JunctionCurrent's [A]. */
+    private static final double KNEE_THRESHOLD = 1e-18;
+    /** A moved current this close to the knee threshold may cross it, where the current has a step [A]. */
+    private static final double KNEE_MARGIN = 1e-19;
+    /** Absolute floor of the comparison, far below any current compared, for derivatives that are exactly 0 [A]. */
+    private static final double ZERO_FLOOR = 1e-30;
     /** Sets drawn per flavour. */
     private static final int SETS = 60;
 
@@ -106,7 +112,7 @@ class JunctionPartialsTest {
             double numerical = richardson(base, vd, k, q[k], h);
             double analytic = out[k];
             double error = Math.abs(analytic - numerical) * q[k];
-            assertTrue(error <= AGREEMENT * Math.max(size, Math.abs(analytic) * q[k]) + 1e-30,
+            assertTrue(error <= AGREEMENT * Math.max(size, Math.abs(analytic) * q[k]) + ZERO_FLOOR,
                     () -> "quantity " + k + " at vd = " + vd + ": analytic " + analytic + ", numerical " + numerical
                             + ", current " + size + ", " + d);
             n++;
@@ -130,7 +136,7 @@ class JunctionPartialsTest {
         double[] currents = {JunctionCurrent.current(moved(d, k, q * (1 + STEP)), vd) - d.gmin() * vd,
             JunctionCurrent.current(moved(d, k, q * (1 - STEP)), vd) - d.gmin() * vd};
         for (double c : currents) {
-            if (Math.abs(Math.abs(c) - 1e-18) < 1e-19) {
+            if (Math.abs(Math.abs(c) - KNEE_THRESHOLD) < KNEE_MARGIN) {
                 return true;
             }
         }
