@@ -7,6 +7,7 @@ import org.cardwright.model.DiodeAtTemperature;
 import org.cardwright.model.DiodeParameters;
 import org.cardwright.model.DiodeSolver;
 import org.cardwright.model.JunctionCurrent;
+import org.cardwright.model.JunctionPartials;
 import org.cardwright.model.Param;
 import org.cardwright.model.SelfHeating;
 import org.cardwright.model.ShuntedJunction;
@@ -18,9 +19,11 @@ import org.cardwright.model.TemperatureLaws;
  * natural log-space residual of an exponential characteristic: every decade of current weighs the same.
  *
  * <p>The derivative of the terminal voltage V = vd(I) + I·RS(T) at fixed current uses implicit
- * differentiation of the junction equation I = Ij(vd; p): dvd/dp = -(dIj/dp at fixed vd)/(dIj/dvd). Only the
- * explicit dIj/dp and dRS(T)/dp are taken by central differences, which needs no extra solves and is accurate
- * to about 1e-10 relative.
+ * differentiation of the junction equation I = Ij(vd; p): dvd/dp = -(dIj/dp at fixed vd)/(dIj/dvd). The
+ * explicit dIj/dp is the chain rule sum over the temperature-scaled quantities q of (dIj/dq)(dq/dp), with dIj/dq
+ * exact from one evaluation per point ({@link JunctionPartials}); only dq/dp and dRS(T)/dp, once per temperature
+ * and parameter, are central differences of the temperature laws. No extra solves; accurate to about 1e-10
+ * relative.
  */
 final class ForwardBlock implements ResidualBlock {
     /** Central-difference step on the optimiser's scale (log or linear). */
@@ -175,31 +178,46 @@ final class ForwardBlock implements ResidualBlock {
         for (int j = 0; j < nFree; j++) {
             resistanceOnly[j] = RESISTANCE_ONLY.contains(layout.free().get(j));
         }
-        double[][] jac = new double[points.length][nFree];
-        double[] vds = junctionVoltages(p, at);
-        // the moved parameter sets share most exponentials at a point (IS moves none, N only the Shockley one)
-        JunctionCurrent.Memo memo = new JunctionCurrent.Memo();
-        for (int i = 0; i < points.length; i++) {
-            DiodeAtTemperature d = at[group[i]];
-            double current = points[i].current();
-            double w = 1 / points[i].sigma();
-            double vd = vds[i];
-            double g = JunctionCurrent.conductance(d, vd, memo);
-            // with a shunt G: F = Ij(vd)(1 + G·RS) + G·vd - I = 0 at fixed I gives dvd/dp, then
-            // dV/dp = dvd/dp (1 + RS·g) + RS·dIj/dp + Ij·dRS/dp; with G = 0 this is -dIj/dp/g + I·dRS/dp
-            double rs = d.seriesResistance();
-            double a = 1 + shunt * rs;
-            double ij = shunt == 0 ? current : JunctionCurrent.current(d, vd);
+        // per temperature and parameter: dq_k/dx of the quantities the current depends on, and dRS/dx
+        double[][][] dq = new double[at.length][nFree][];
+        double[][] dRdx = new double[at.length][nFree];
+        for (int k = 0; k < at.length; k++) {
             for (int j = 0; j < nFree; j++) {
                 if (plus[j] == null) {
                     continue;
                 }
-                DiodeAtTemperature dp = plus[j][group[i]];
-                DiodeAtTemperature dm = minus[j][group[i]];
-                // RS and its temperature coefficients leave the junction current as it is: no evaluation needed
-                double dIdp = resistanceOnly[j] ? 0
-                        : (JunctionCurrent.current(dp, vd, memo) - JunctionCurrent.current(dm, vd, memo)) / (2 * steps[j]);
-                double dRdp = (dp.seriesResistance() - dm.seriesResistance()) / (2 * steps[j]);
+                DiodeAtTemperature dp = plus[j][k];
+                DiodeAtTemperature dm = minus[j][k];
+                dRdx[k][j] = (dp.seriesResistance() - dm.seriesResistance()) / (2 * steps[j]);
+                // RS and its temperature coefficients leave the junction current as it is
+                if (!resistanceOnly[j]) {
+                    dq[k][j] = JunctionPartials.difference(dp, dm, 2 * steps[j]);
+                }
+            }
+        }
+        double[][] jac = new double[points.length][nFree];
+        double[] vds = junctionVoltages(p, at);
+        double[] partials = new double[JunctionPartials.SIZE];
+        for (int i = 0; i < points.length; i++) {
+            int k = group[i];
+            DiodeAtTemperature d = at[k];
+            double current = points[i].current();
+            double w = 1 / points[i].sigma();
+            double vd = vds[i];
+            // one evaluation: Ij, g = dIj/dvd and dIj/dq at fixed vd; dIj/dx = sum over q of dIj/dq dq/dx
+            JunctionPartials.evaluate(d, vd, partials);
+            double g = partials[JunctionPartials.CONDUCTANCE];
+            // with a shunt G: F = Ij(vd)(1 + G·RS) + G·vd - I = 0 at fixed I gives dvd/dp, then
+            // dV/dp = dvd/dp (1 + RS·g) + RS·dIj/dp + Ij·dRS/dp; with G = 0 this is -dIj/dp/g + I·dRS/dp
+            double rs = d.seriesResistance();
+            double a = 1 + shunt * rs;
+            double ij = shunt == 0 ? current : partials[JunctionPartials.CURRENT];
+            for (int j = 0; j < nFree; j++) {
+                if (plus[j] == null) {
+                    continue;
+                }
+                double dIdp = JunctionPartials.chain(partials, dq[k][j]);
+                double dRdp = dRdx[k][j];
                 if (shunt == 0) {
                     jac[i][j] = (-dIdp / g + current * dRdp) * w;
                 } else {
@@ -244,6 +262,7 @@ final class ForwardBlock implements ResidualBlock {
         }
         double rth = p.get(Param.RTH0);
         double[][] jac = new double[points.length][nFree];
+        double[] partials = new double[JunctionPartials.SIZE];
         for (int i = 0; i < points.length; i++) {
             FitPoint pt = points[i];
             double current = pt.current();
@@ -251,7 +270,8 @@ final class ForwardBlock implements ResidualBlock {
             double t = pt.temperature() + (heated ? SelfHeating.riseAtCurrent(p, pt.temperature(), current, options) : 0);
             DiodeAtTemperature d = TemperatureLaws.at(p, t, options);
             double vd = DiodeSolver.junctionVoltageAtCurrent(d, current);
-            double g = JunctionCurrent.conductance(d, vd);
+            JunctionPartials.evaluate(d, vd, partials);
+            double g = partials[JunctionPartials.CONDUCTANCE];
             double v = vd + current * d.seriesResistance();
             double dFdT = 0;
             if (heated) {
@@ -274,7 +294,8 @@ final class ForwardBlock implements ResidualBlock {
                 } else {
                     DiodeAtTemperature dp = TemperatureLaws.at(plus[j], t, options);
                     DiodeAtTemperature dm = TemperatureLaws.at(minus[j], t, options);
-                    double dIdx = (JunctionCurrent.current(dp, vd) - JunctionCurrent.current(dm, vd)) / span[j];
+                    double dIdx = RESISTANCE_ONLY.contains(layout.free().get(j)) ? 0
+                            : JunctionPartials.chain(partials, JunctionPartials.difference(dp, dm, span[j]));
                     double dRdx = (dp.seriesResistance() - dm.seriesResistance()) / span[j];
                     dFdx = -dIdx / g + current * dRdx;
                 }
