@@ -5,7 +5,6 @@ import java.util.EnumSet;
 import java.util.List;
 import java.util.Map;
 import java.util.Set;
-import java.util.TreeMap;
 import org.cardwright.model.DiodeAtTemperature;
 import org.cardwright.model.DiodeParameters;
 import org.cardwright.model.DiodeSolver;
@@ -121,23 +120,11 @@ final class BreakdownBlock implements ResidualBlock {
         DiodeParameters p = layout.toParameters(x);
         int n = points.size();
         int nFree = layout.size();
-        Map<Double, Integer> index = new HashMap<>();
-        List<Double> temperatures = new ArrayList<>();
-        int[] group = new int[n];
-        for (int i = 0; i < n; i++) {
-            double t = points.get(i).temperature();
-            Integer k = index.get(t);
-            if (k == null) {
-                k = temperatures.size();
-                index.put(t, k);
-                temperatures.add(t);
-            }
-            group[i] = k;
-        }
-        int groups = temperatures.size();
+        // the points' temperature groups of the constructor
+        int groups = temperatures.length;
         DiodeAtTemperature[] at = new DiodeAtTemperature[groups];
         for (int k = 0; k < groups; k++) {
-            at[k] = TemperatureLaws.at(p, temperatures.get(k), options);
+            at[k] = TemperatureLaws.at(p, temperatures[k], options);
         }
         double[][][] dq = new double[groups][nFree][];
         double[][] dRdx = new double[groups][nFree];
@@ -156,8 +143,8 @@ final class BreakdownBlock implements ResidualBlock {
             DiodeParameters up = p.with(q, layout.value(j, span[1]));
             DiodeParameters down = p.with(q, layout.value(j, span[0]));
             for (int k = 0; k < groups; k++) {
-                DiodeAtTemperature dp = TemperatureLaws.at(up, temperatures.get(k), options);
-                DiodeAtTemperature dm = TemperatureLaws.at(down, temperatures.get(k), options);
+                DiodeAtTemperature dp = TemperatureLaws.at(up, temperatures[k], options);
+                DiodeAtTemperature dm = TemperatureLaws.at(down, temperatures[k], options);
                 dq[k][j] = JunctionPartials.difference(dp, dm, span[1] - span[0]);
                 dRdx[k][j] = (dp.seriesResistance() - dm.seriesResistance()) / (span[1] - span[0]);
             }
