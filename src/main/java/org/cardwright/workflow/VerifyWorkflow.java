@@ -103,9 +103,12 @@ public final class VerifyWorkflow {
         String cardSource = Inputs.displayName(request.card());
         ParsedCard parsed;
         double shuntResistance = Double.POSITIVE_INFINITY;
-        if (org.cardwright.card.ShuntedCard.isSubcircuit(text, cardSource)) {
+        // the text is split once: a subcircuit card or a plain one (with the name asked for), as the first statement says
+        org.cardwright.card.ShuntedCard.Either either = org.cardwright.card.ShuntedCard.readEither(text, cardSource,
+                request.dialect(), request.model());
+        if (either.subcircuit().isPresent()) {
             // a subcircuit card: the diode's .model and the resistor beside it, read strictly
-            org.cardwright.card.ShuntedCard.Read sub = org.cardwright.card.ShuntedCard.read(text, cardSource, request.dialect());
+            org.cardwright.card.ShuntedCard.Read sub = either.subcircuit().get();
             if (request.model().isPresent() && !request.model().get().equalsIgnoreCase(sub.card().name())
                     && !request.model().get().equalsIgnoreCase(sub.subcircuit())) {
                 throw new org.cardwright.card.CardFormatException(cardSource, 0, "no .model or subcircuit named "
@@ -114,7 +117,7 @@ public final class VerifyWorkflow {
             parsed = sub.card();
             shuntResistance = sub.shuntResistance();
         } else {
-            parsed = new CardReader().parse(text, cardSource, request.dialect(), request.model());
+            parsed = either.card();
         }
         // the card is read (a malformed card is refused as such), then, before any data are read or anything runs:
         // an engine that does not speak the card's dialect would judge another simulator's equations
