@@ -70,7 +70,8 @@ public final class VerifyWorkflow {
             OutputFiles.checkWritable(List.of(request.json().get()), request.force());
         }
         String text = CardReader.readText(request.card(), Inputs.displayName(request.card()));
-        return judge(request, text, () -> Inputs.read(request.data(), request.readOptions(), request::givenFor), jsonRenderer);
+        return judge(request, text, () -> Inputs.read(request.data(), request.readOptions(), request::givenFor),
+                Optional.empty(), jsonRenderer);
     }
 
     /**
@@ -88,7 +89,20 @@ public final class VerifyWorkflow {
         if (request.json().isPresent()) {
             throw new IllegalArgumentException("a verification of a card in memory writes no JSON");
         }
-        return judge(request, cardText, () -> inputs, v -> "");
+        return judge(request, cardText, () -> inputs, Optional.empty(), v -> "");
+    }
+
+    /**
+     * {@link #runAll(VerifyRequest, String, Inputs)} with {@code data}, which must be
+     * {@link FitWorkflow#extractionData FitWorkflow.extractionData(inputs)}, made once by a caller that judges several
+     * cards against the same inputs.
+     */
+    public JunctionVerification runAll(VerifyRequest request, String cardText, Inputs inputs, ExtractionData data)
+            throws DataFileException, SimulationException, OutputException, IOException {
+        if (request.json().isPresent()) {
+            throw new IllegalArgumentException("a verification of a card in memory writes no JSON");
+        }
+        return judge(request, cardText, () -> inputs, Optional.of(data), v -> "");
     }
 
     /** Reads the data, when the card has been read: a bad card is reported before the data are opened. */
@@ -97,7 +111,7 @@ public final class VerifyWorkflow {
         Inputs read() throws DataFileException;
     }
 
-    private JunctionVerification judge(VerifyRequest request, String text, DataRead read,
+    private JunctionVerification judge(VerifyRequest request, String text, DataRead read, Optional<ExtractionData> madeData,
                                        Function<JunctionVerification, String> jsonRenderer)
             throws DataFileException, SimulationException, OutputException, IOException {
         String cardSource = Inputs.displayName(request.card());
@@ -124,7 +138,7 @@ public final class VerifyWorkflow {
         Engines.requireSpeaks(request.engine(), request.dialect(), cardSource);
         Inputs inputs = read.read();
         org.cardwright.fit.CapacitanceOptions capacitanceOptions = inputs.capacitanceOptions(request.capacitance());
-        ExtractionData data = FitWorkflow.extractionData(inputs);
+        ExtractionData data = madeData.isPresent() ? madeData.get() : FitWorkflow.extractionData(inputs);
         List<String> notes = new ArrayList<>(parsed.notices());
         notes.addAll(inputs.notes());
         if (data.forward().isEmpty() && data.reverse().isEmpty() && data.capacitance().isEmpty() && data.recovery().isEmpty()) {
