@@ -83,7 +83,7 @@ class CellNumberPlainTest {
     @Test
     void seededFamilyReadsAsThePatternReadsIt() {
         Random random = new Random(8128L);
-        for (int n = 0; n < 50_000; n++) {
+        for (int n = 0; n < 20_000; n++) {
             StringBuilder sb = new StringBuilder();
             int parts = 1 + random.nextInt(6);
             for (int p = 0; p < parts; p++) {
