@@ -106,7 +106,11 @@ public final class CardReader {
         Objects.requireNonNull(text, "text");
         Objects.requireNonNull(sourceName, "sourceName");
         Objects.requireNonNull(dialect, "dialect");
-        CardText.Layout layout = CardText.split(text, sourceName);
+        return parse(CardText.split(text, sourceName), sourceName, dialect, name);
+    }
+
+    /** {@link #parse(String, String, Dialect, Optional)} of a text already split into its statements and comments. */
+    ParsedCard parse(CardText.Layout layout, String sourceName, Dialect dialect, Optional<String> name) {
         if (layout.statements().isEmpty()) {
             throw new CardFormatException(sourceName, 0, "no .model line", null);
         }

@@ -38,7 +38,7 @@ final class CardText {
 
     static Layout split(String text, String source) {
         String body = text.startsWith("\uFEFF") ? text.substring(1) : text;
-        String[] lines = body.split("\r\n|\r|\n", -1);
+        String[] lines = lines(body);
         List<Statement> statements = new ArrayList<>();
         List<Comment> comments = new ArrayList<>();
         List<Token> current = null;
@@ -79,6 +79,56 @@ final class CardText {
             statements.add(new Statement(List.copyOf(current), firstLine, lastLine, firstText));
         }
         return new Layout(List.copyOf(statements), List.copyOf(comments));
+    }
+
+    /**
+     * The physical lines of {@code text}, split at each {@code \r\n}, lone {@code \r} and lone {@code \n}, with every
+     * empty line kept (also a leading and a trailing one): exactly {@code text.split("\r\n|\r|\n", -1)}, in one
+     * pass without a regular expression.
+     */
+    static String[] lines(String text) {
+        if (text.indexOf('\r') < 0) {
+            // only \n breaks (the cards this program writes): found by the JDK's own fast search
+            int count = 1;
+            for (int at = text.indexOf('\n'); at >= 0; at = text.indexOf('\n', at + 1)) {
+                count++;
+            }
+            String[] out = new String[count];
+            int start = 0;
+            for (int k = 0; k < count - 1; k++) {
+                int at = text.indexOf('\n', start);
+                out[k] = text.substring(start, at);
+                start = at + 1;
+            }
+            out[count - 1] = text.substring(start);
+            return out;
+        }
+        int n = text.length();
+        int count = 1;
+        for (int i = 0; i < n; i++) {
+            char c = text.charAt(i);
+            if (c == '\n' || c == '\r') {
+                count++;
+                if (c == '\r' && i + 1 < n && text.charAt(i + 1) == '\n') {
+                    i++;
+                }
+            }
+        }
+        String[] out = new String[count];
+        int k = 0;
+        int start = 0;
+        for (int i = 0; i < n; i++) {
+            char c = text.charAt(i);
+            if (c == '\n' || c == '\r') {
+                out[k++] = text.substring(start, i);
+                if (c == '\r' && i + 1 < n && text.charAt(i + 1) == '\n') {
+                    i++;
+                }
+                start = i + 1;
+            }
+        }
+        out[k] = text.substring(start);
+        return out;
     }
 
     private static String commentText(String stripped) {

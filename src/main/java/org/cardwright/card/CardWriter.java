@@ -241,7 +241,8 @@ public final class CardWriter {
         }
         ParsedCard got;
         try {
-            got = reader.parse(text, "card", dialect);
+            // the text is split once: the same split would refuse it here as it did not above
+            got = reader.parse(layout, "card", dialect, Optional.empty());
         } catch (CardFormatException e) {
             throw new CardTemplateException(refused + "it does not read back as a card (" + Excerpts.of(e.getMessage(), MESSAGE_CHARS) + ")", e);
         }

@@ -4,6 +4,7 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
 import java.util.Objects;
+import java.util.Optional;
 import org.cardwright.card.CardText.Statement;
 import org.cardwright.card.CardText.Token;
 
@@ -120,7 +121,40 @@ public final class ShuntedCard {
      */
     public static Read read(String text, String source, Dialect dialect) {
         Objects.requireNonNull(text, "text");
-        List<Statement> st = CardText.split(text, source).statements();
+        return read(text, CardText.split(text, source), source, dialect);
+    }
+
+    /**
+     * A card file that is either kind: a subcircuit card when its first statement is a {@code .subckt}
+     * ({@link #isSubcircuit}), else a plain card.
+     *
+     * @param card       the diode's card: the {@code .model} inside the subcircuit, or the plain card
+     * @param subcircuit the subcircuit as {@link #read} reads it, when the file is one
+     */
+    public record Either(ParsedCard card, Optional<Read> subcircuit) {
+    }
+
+    /**
+     * Reads {@code text} as {@link #isSubcircuit} tells it: a subcircuit card through {@link #read}, else a plain card
+     * through {@link CardReader#parse(String, String, Dialect, Optional)} with {@code plainName} (the name a plain card
+     * must carry, when given); the same results and refusals as those calls one after the other, with the text split
+     * into statements once.
+     */
+    public static Either readEither(String text, String source, Dialect dialect, Optional<String> plainName) {
+        Objects.requireNonNull(text, "text");
+        Objects.requireNonNull(source, "sourceName");
+        Objects.requireNonNull(dialect, "dialect");
+        CardText.Layout layout = CardText.split(text, source);
+        List<Statement> st = layout.statements();
+        if (!st.isEmpty() && st.get(0).tokens().get(0).text().equalsIgnoreCase(SUBCKT)) {
+            Read sub = read(text, layout, source, dialect);
+            return new Either(sub.card(), Optional.of(sub));
+        }
+        return new Either(new CardReader().parse(layout, source, dialect, plainName), Optional.empty());
+    }
+
+    private static Read read(String text, CardText.Layout layout, String source, Dialect dialect) {
+        List<Statement> st = layout.statements();
         if (st.isEmpty() || !keyword(st.get(0)).equals(SUBCKT)) {
             throw new CardFormatException(source, st.isEmpty() ? 0 : st.get(0).firstLine(),
                     "a shunted card starts with .subckt NAME A K; found", st.isEmpty() ? null : raw(st.get(0)));
@@ -173,7 +207,7 @@ public final class ShuntedCard {
                     + (diode == null ? "its diode line" : resistor == null ? "its resistor line" : "its .model"), null);
         }
         // the .model, read by the card reader with every other line blanked, so that its line numbers stay true
-        String[] lines = text.split("\r\n|\r|\n", -1);
+        String[] lines = CardText.lines(text);
         StringBuilder only = new StringBuilder();
         StringBuilder modelText = new StringBuilder();
         for (int n = 1; n <= lines.length; n++) {

@@ -62,6 +62,15 @@ final class CellNumber {
             throw new CellProblem("cell of " + t.length() + " characters where a number is expected; a number has at most "
                     + MAX_NUMBER_CHARS);
         }
+        if (isPlainDecimal(t)) {
+            // the common cell: what the pattern below reads with no suffix and no comma, decided in one pass
+            try {
+                return new Reading(new BigDecimal(t), "");
+            } catch (NumberFormatException e) {
+                // only an exponent beyond the int range gets here
+                throw new CellProblem("number out of range");
+            }
+        }
         Matcher m = NUMBER_AND_SUFFIX.matcher(t);
         if (!m.matches()) {
             DecimalText.parse(t); // throws the reason: not a finite number, or not a number
@@ -84,6 +93,55 @@ final class CellNumber {
             throw new CellProblem("number out of range");
         }
         return new Reading(value.scaleByPowerOfTen(suffixPower(suffix)), suffix);
+    }
+
+    /**
+     * Whether {@code t} is, in full, a decimal that {@link #NUMBER_AND_SUFFIX} matches with the number group being
+     * all of {@code t} and no suffix: an optional sign, digits with an optional point (at least one digit before
+     * or after it), an optional exponent of {@code e} or {@code E}, an optional sign and at least one digit.
+     * Anything else (a comma, a suffix, a blank) is left to the pattern.
+     */
+    static boolean isPlainDecimal(String t) {
+        int n = t.length();
+        int i = 0;
+        if (i < n && (t.charAt(i) == '+' || t.charAt(i) == '-')) {
+            i++;
+        }
+        int before = i;
+        while (i < n && isDigit(t.charAt(i))) {
+            i++;
+        }
+        int digits = i - before;
+        if (i < n && t.charAt(i) == '.') {
+            i++;
+            int after = i;
+            while (i < n && isDigit(t.charAt(i))) {
+                i++;
+            }
+            digits += i - after;
+        }
+        if (digits == 0) {
+            return false;
+        }
+        if (i < n && (t.charAt(i) == 'e' || t.charAt(i) == 'E')) {
+            i++;
+            if (i < n && (t.charAt(i) == '+' || t.charAt(i) == '-')) {
+                i++;
+            }
+            int exponent = i;
+            while (i < n && isDigit(t.charAt(i))) {
+                i++;
+            }
+            if (i == exponent) {
+                return false;
+            }
+        }
+        return i == n;
+    }
+
+    /** An ASCII digit (the pattern's {@code \d} without UNICODE_CHARACTER_CLASS). */
+    private static boolean isDigit(char c) {
+        return c >= '0' && c <= '9';
     }
 
     /** The power of ten of a SPICE suffix [1]. */

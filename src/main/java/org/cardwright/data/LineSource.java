@@ -217,6 +217,14 @@ final class LineSource implements Closeable {
     }
 
     private String decode(int from) throws DataFileException {
+        boolean ascii = true;
+        for (int i = from; i < lineLength && ascii; i++) {
+            ascii = line[i] >= 0;
+        }
+        if (ascii) {
+            // ASCII bytes are valid UTF-8, one character each: the strict decoder below would give the same string
+            return new String(line, from, lineLength - from, StandardCharsets.US_ASCII);
+        }
         decoder.reset();
         ByteBuffer bytes = ByteBuffer.wrap(line, from, lineLength - from);
         CharBuffer out = CharBuffer.allocate(lineLength - from + 1);

@@ -97,8 +97,14 @@ final class PartFitter {
      *
      * @param staged its readable files and the conditions the device file gives them
      * @param inputs those files read as the fit and verify jobs read them (every data kind)
+     * @param data   {@code inputs} as the fit and verify jobs judge them ({@link FitWorkflow#extractionData}), made
+     *               once for every card of the part
      */
-    record Read(StagedInputs staged, Inputs inputs) {
+    record Read(StagedInputs staged, Inputs inputs, org.cardwright.fit.ExtractionData data) {
+        Read(StagedInputs staged, Inputs inputs) {
+            this(staged, inputs, FitWorkflow.extractionData(inputs));
+        }
+
         /** Reads the data of {@code part} as verify reads them (the default reading conditions, the device file's). */
         static Read of(DeviceFile part, Path root) throws DeviceFileException, LibraryInputException, IOException {
             StagedInputs staged = StagedInputs.of(part, root);
@@ -222,7 +228,7 @@ final class PartFitter {
                 Optional.empty(), false, org.cardwright.fit.CapacitanceOptions.DEFAULT, FitRequest.BenchOptions.DEFAULT,
                 LibraryCheck.basis(part, Optional.empty())).withConditions(inputs.conditions());
         try {
-            return new org.cardwright.workflow.VerifyWorkflow().runAll(request, text, read.inputs());
+            return new org.cardwright.workflow.VerifyWorkflow().runAll(request, text, read.inputs(), read.data());
         } catch (DataFileException e) {
             throw new LibraryInputException(inputs.displayName(e.getMessage()), e);
         } catch (org.cardwright.sim.process.SimulationException | OutputException e) {

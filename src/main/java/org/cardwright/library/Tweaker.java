@@ -102,8 +102,7 @@ final class Tweaker {
         PartFitter.Read read = PartFitter.Read.of(part, root);
         Inputs all = read.inputs();
         List<MeasuredPoint> points = forwardPoints(all);
-        org.cardwright.workflow.CardRange range = org.cardwright.workflow.CardRange.of(
-                org.cardwright.workflow.FitWorkflow.extractionData(all));
+        org.cardwright.workflow.CardRange range = org.cardwright.workflow.CardRange.of(read.data());
         double frequency = capacitanceFrequency(part, all);
         List<PartFitter.Card> cards = new ArrayList<>();
         for (int i = 0; i < base.cards().size(); i++) {

@@ -216,8 +216,10 @@ public record Inputs(List<MeasurementFile> files, List<Located> forward, List<Lo
                 t[k] = points.get(idx.get(k)).point().temperature();
             }
             double[] labels = SweepTemperatures.labels(t, SweepTemperatures.DEFAULT_GAP);
+            // one key string per sweep of the file (its points share it), not one concatenation per point
+            java.util.Map<Double, String> sweepKey = new java.util.HashMap<>();
             for (int k = 0; k < t.length; k++) {
-                keys[idx.get(k)] = e.getKey() + "@" + labels[k];
+                keys[idx.get(k)] = sweepKey.computeIfAbsent(labels[k], label -> e.getKey() + "@" + label);
             }
         }
         return keys;

@@ -70,7 +70,8 @@ public final class VerifyWorkflow {
             OutputFiles.checkWritable(List.of(request.json().get()), request.force());
         }
         String text = CardReader.readText(request.card(), Inputs.displayName(request.card()));
-        return judge(request, text, () -> Inputs.read(request.data(), request.readOptions(), request::givenFor), jsonRenderer);
+        return judge(request, text, () -> Inputs.read(request.data(), request.readOptions(), request::givenFor),
+                Optional.empty(), jsonRenderer);
     }
 
     /**
@@ -88,7 +89,20 @@ public final class VerifyWorkflow {
         if (request.json().isPresent()) {
             throw new IllegalArgumentException("a verification of a card in memory writes no JSON");
         }
-        return judge(request, cardText, () -> inputs, v -> "");
+        return judge(request, cardText, () -> inputs, Optional.empty(), v -> "");
+    }
+
+    /**
+     * {@link #runAll(VerifyRequest, String, Inputs)} with {@code data}, which must be
+     * {@link FitWorkflow#extractionData FitWorkflow.extractionData(inputs)}, made once by a caller that judges several
+     * cards against the same inputs.
+     */
+    public JunctionVerification runAll(VerifyRequest request, String cardText, Inputs inputs, ExtractionData data)
+            throws DataFileException, SimulationException, OutputException, IOException {
+        if (request.json().isPresent()) {
+            throw new IllegalArgumentException("a verification of a card in memory writes no JSON");
+        }
+        return judge(request, cardText, () -> inputs, Optional.of(data), v -> "");
     }
 
     /** Reads the data, when the card has been read: a bad card is reported before the data are opened. */
@@ -97,15 +111,18 @@ public final class VerifyWorkflow {
         Inputs read() throws DataFileException;
     }
 
-    private JunctionVerification judge(VerifyRequest request, String text, DataRead read,
+    private JunctionVerification judge(VerifyRequest request, String text, DataRead read, Optional<ExtractionData> madeData,
                                        Function<JunctionVerification, String> jsonRenderer)
             throws DataFileException, SimulationException, OutputException, IOException {
         String cardSource = Inputs.displayName(request.card());
         ParsedCard parsed;
         double shuntResistance = Double.POSITIVE_INFINITY;
-        if (org.cardwright.card.ShuntedCard.isSubcircuit(text, cardSource)) {
+        // the text is split once: a subcircuit card or a plain one (with the name asked for), as the first statement says
+        org.cardwright.card.ShuntedCard.Either either = org.cardwright.card.ShuntedCard.readEither(text, cardSource,
+                request.dialect(), request.model());
+        if (either.subcircuit().isPresent()) {
             // a subcircuit card: the diode's .model and the resistor beside it, read strictly
-            org.cardwright.card.ShuntedCard.Read sub = org.cardwright.card.ShuntedCard.read(text, cardSource, request.dialect());
+            org.cardwright.card.ShuntedCard.Read sub = either.subcircuit().get();
             if (request.model().isPresent() && !request.model().get().equalsIgnoreCase(sub.card().name())
                     && !request.model().get().equalsIgnoreCase(sub.subcircuit())) {
                 throw new org.cardwright.card.CardFormatException(cardSource, 0, "no .model or subcircuit named "
@@ -114,14 +131,14 @@ public final class VerifyWorkflow {
             parsed = sub.card();
             shuntResistance = sub.shuntResistance();
         } else {
-            parsed = new CardReader().parse(text, cardSource, request.dialect(), request.model());
+            parsed = either.card();
         }
         // the card is read (a malformed card is refused as such), then, before any data are read or anything runs:
         // an engine that does not speak the card's dialect would judge another simulator's equations
         Engines.requireSpeaks(request.engine(), request.dialect(), cardSource);
         Inputs inputs = read.read();
         org.cardwright.fit.CapacitanceOptions capacitanceOptions = inputs.capacitanceOptions(request.capacitance());
-        ExtractionData data = FitWorkflow.extractionData(inputs);
+        ExtractionData data = madeData.isPresent() ? madeData.get() : FitWorkflow.extractionData(inputs);
         List<String> notes = new ArrayList<>(parsed.notices());
         notes.addAll(inputs.notes());
         if (data.forward().isEmpty() && data.reverse().isEmpty() && data.capacitance().isEmpty() && data.recovery().isEmpty()) {
