@@ -50,9 +50,20 @@ public final class ForwardExtraction {
     /** Recombination must carry at least this share of the smallest measured current [1]. */
     public static final double RECOMBINATION_SHARE = 0.1;
     private final FitSettings settings;
+    /** Whether the optional terms' trials may stop once settled far from passing ({@link TermTrial}). */
+    private final boolean settleTrials;
 
     public ForwardExtraction(FitSettings settings) {
+        this(settings, true);
+    }
+
+    /**
+     * With {@code settleTrials} false every trial runs to the optimiser's full tolerance, as before
+     * {@link TermTrial}: the path the shortcut is checked against.
+     */
+    ForwardExtraction(FitSettings settings, boolean settleTrials) {
         this.settings = settings;
+        this.settleTrials = settleTrials;
     }
 
     /** A candidate optional term. */
@@ -265,7 +276,9 @@ public final class ForwardExtraction {
                 trialFree.addAll(term.params());
                 Optimiser.Run r;
                 try {
-                    r = run(blocks, Optimiser.parameters(trial), trialFree);
+                    // stopped early where the trial settles far from passing; a term it could take in runs to the end
+                    r = settleTrials ? TermTrial.run(blocks, Optimiser.parameters(trial), trialFree, this::bounds, n, bestBic)
+                            : run(blocks, Optimiser.parameters(trial), trialFree);
                 } catch (FitFailedException e) {
                     // a trial term the data cannot carry (no convergence, parameters leaving the model's domain)
                     r = null;
