@@ -39,22 +39,22 @@ final class TermTrial {
      */
     static final double MARGIN = 1;
     private static final int MAX_EVALUATIONS = 4000;
+    /** How the stop reason of a run the checker stopped begins. */
+    static final String SETTLED_STOP = "settled:";
 
     private TermTrial() {
     }
 
     /** The convergence checker of {@link #run}: whether the run has settled far from passing (class comment). */
     private static final class Settled implements ConvergenceChecker<LeastSquaresProblem.Evaluation> {
-        private final int n;
-        private final int k;
-        private final double bicWithout;
+        private final double share;
+        private final java.util.function.DoublePredicate far;
         private double last = Double.NaN;
         private boolean stopped;
 
-        Settled(int n, int k, double bicWithout) {
-            this.n = n;
-            this.k = k;
-            this.bicWithout = bicWithout;
+        Settled(double share, java.util.function.DoublePredicate far) {
+            this.share = share;
+            this.far = far;
         }
 
         @Override
@@ -63,7 +63,7 @@ final class TermTrial {
             // the current point's cost only: the model keeps its residuals, so this costs no evaluation
             double cost = current.getCost();
             double rss = cost * cost;
-            stopped = last - rss <= SETTLED * rss && farFromPassing(rss, n, k, bicWithout);
+            stopped = last - rss <= share * rss && far.test(rss);
             last = rss;
             return stopped;
         }
@@ -77,7 +77,19 @@ final class TermTrial {
      */
     static Optimiser.Run run(List<ResidualBlock> blocks, DiodeParameters start, List<Param> free,
                              Function<Param, double[]> bounds, int n, double bicWithout) {
-        return Optimiser.guarded(() -> unguarded(blocks, start, free, bounds, n, bicWithout));
+        int k = free.size();  // the run's layout holds the free parameters as listed
+        return run(blocks, start, free, bounds, Optimiser.TOLERANCE, SETTLED, rss -> farFromPassing(rss, n, k, bicWithout));
+    }
+
+    /**
+     * The general form: minimises as {@link Optimiser#run(List, DiodeParameters, List, Function, double)} does to
+     * {@code tolerance}, and stops after an accepted step that lowered the sum of squares by at most {@code settled}
+     * of itself when {@code far} holds for the sum of squares reached.
+     */
+    static Optimiser.Run run(List<ResidualBlock> blocks, DiodeParameters start, List<Param> free,
+                             Function<Param, double[]> bounds, double tolerance, double settled,
+                             java.util.function.DoublePredicate far) {
+        return Optimiser.guarded(() -> unguarded(blocks, start, free, bounds, tolerance, settled, far));
     }
 
     /** Whether a run at sum of squares {@code rss} with {@code k} free parameters is far from passing (class comment). */
@@ -86,17 +98,16 @@ final class TermTrial {
     }
 
     private static Optimiser.Run unguarded(List<ResidualBlock> blocks, DiodeParameters start, List<Param> free,
-                                           Function<Param, double[]> bounds, int n, double bicWithout) {
+                                           Function<Param, double[]> bounds, double tolerance, double settledShare,
+                                           java.util.function.DoublePredicate far) {
         if (free.isEmpty()) {
-            return Optimiser.run(blocks, start, free, bounds);
+            return Optimiser.run(blocks, start, free, bounds, tolerance);
         }
-        double tolerance = Optimiser.TOLERANCE;
         DiodeParameters clamped = Optimiser.clampedStart(start, free, bounds);
         FreeParameters layout = new FreeParameters(clamped, free, FreeParameters.boundsOf(free, bounds));
         JointProblem model = new JointProblem(blocks, layout);
         double[] x0 = layout.toInternal(clamped);
-        int k = layout.size();
-        Settled settled = new Settled(n, k, bicWithout);
+        Settled settled = new Settled(settledShare, far);
         LeastSquaresProblem problem = new LeastSquaresBuilder()
                 .model(model)
                 .target(new double[model.rows()])
@@ -128,7 +139,7 @@ final class TermTrial {
         }
         DiodeParameters result = layout.toParameters(x);
         String stop = settled.stopped
-                ? "settled: stopped once its sum of squares stopped moving, far from what the term needs, after " + iters + " iterations"
+                ? SETTLED_STOP + " stopped once its sum of squares stopped moving, far from changing what is decided, after " + iters + " iterations"
                 : "converged: relative change of cost and parameters below "
                         + String.format(java.util.Locale.ROOT, "%.0e", tolerance) + " after " + iters + " iterations";
         return new Optimiser.Run(result, layout, x, model.chiSquare(result), evals, iters, stop);

@@ -14,7 +14,8 @@ import org.cardwright.model.Param;
 import org.junit.jupiter.api.Test;
 
 /**
- * The optional terms' trials stop once settled far from passing ({@link TermTrial}). For a seeded family of invented
+ * The optional terms' trials stop once settled far from passing ({@link TermTrial}), and the recombination trial's
+ * screening runs once settled far from changing the multi-start's test (ForwardExtraction.screenRun). For a seeded family of invented
  * silicon junctions (data from the built-in ngspice 39 equations, {@link FamilyData}: with and without recombination,
  * a high-injection knee and an RS temperature coefficient, at one, two or four temperatures, noise-free and noisy)
  * the forward stage with the shortcut must take the same decisions, with the same notes, and end at the same
