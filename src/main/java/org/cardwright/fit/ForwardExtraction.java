@@ -699,7 +699,13 @@ public final class ForwardExtraction {
             try {
                 Optimiser.Run r = screenRun(one, Optimiser.parameters(s), local, stopAbove);
                 if (r.stopReason().startsWith(TermTrial.SETTLED_STOP)) {
-                    stoppedAt = Math.min(stoppedAt, r.rss());
+                    if (tradedPlaces(r.parameters(), local)) {
+                        // its terms traded places: the swapped refinement starts from the run's end, so the run
+                        // goes to that end, as without the stop
+                        r = Optimiser.run(one, Optimiser.parameters(s), local, this::bounds, SCREENING_TOLERANCE);
+                    } else {
+                        stoppedAt = Math.min(stoppedAt, r.rss());
+                    }
                 }
                 r = inOrder(r, one, local);
                 if (r.rss() < bestRss) {
@@ -724,8 +730,7 @@ public final class ForwardExtraction {
      */
     private Optimiser.Run inOrder(Optimiser.Run r, List<ResidualBlock> one, List<Param> local) {
         DiodeParameters p = r.parameters();
-        if (!p.isGiven(Param.ISR) || !p.isGiven(Param.NR) || p.get(Param.NR) >= p.get(Param.N)
-                || !local.containsAll(List.of(Param.IS, Param.N, Param.ISR, Param.NR))) {
+        if (!tradedPlaces(p, local)) {
             return r;
         }
         DiodeParameters swapped = p.with(Param.IS, p.get(Param.ISR)).with(Param.ISR, p.get(Param.IS))
@@ -739,6 +744,12 @@ public final class ForwardExtraction {
             // the swapped start did not converge: the traded run stays
         }
         return r;
+    }
+
+    /** Whether {@link #inOrder} refines a screened run ending at {@code p} once more from the swapped values. */
+    private static boolean tradedPlaces(DiodeParameters p, List<Param> local) {
+        return p.isGiven(Param.ISR) && p.isGiven(Param.NR) && !(p.get(Param.NR) >= p.get(Param.N))
+                && local.containsAll(List.of(Param.IS, Param.N, Param.ISR, Param.NR));
     }
 
     private static void putIfFree(Map<Param, Double> start, List<Param> free, Param p, double value) {
