@@ -50,9 +50,23 @@ public final class ForwardExtraction {
     /** Recombination must carry at least this share of the smallest measured current [1]. */
     public static final double RECOMBINATION_SHARE = 0.1;
     private final FitSettings settings;
+    /**
+     * Whether the optional terms' trials may stop once settled far from passing ({@link TermTrial}), and the multi-start
+     * screen's runs once settled far from changing its test ({@link #screenRun}).
+     */
+    private final boolean settleTrials;
 
     public ForwardExtraction(FitSettings settings) {
+        this(settings, true);
+    }
+
+    /**
+     * With {@code settleTrials} false every trial and screening run goes to its full tolerance, as before
+     * {@link TermTrial}: the path the shortcuts are checked against.
+     */
+    ForwardExtraction(FitSettings settings, boolean settleTrials) {
         this.settings = settings;
+        this.settleTrials = settleTrials;
     }
 
     /** A candidate optional term. */
@@ -265,7 +279,9 @@ public final class ForwardExtraction {
                 trialFree.addAll(term.params());
                 Optimiser.Run r;
                 try {
-                    r = run(blocks, Optimiser.parameters(trial), trialFree);
+                    // stopped early where the trial settles far from passing; a term it could take in runs to the end
+                    r = settleTrials ? TermTrial.run(blocks, Optimiser.parameters(trial), trialFree, this::bounds, n, bestBic)
+                            : run(blocks, Optimiser.parameters(trial), trialFree);
                 } catch (FitFailedException e) {
                     // a trial term the data cannot carry (no convergence, parameters leaving the model's domain)
                     r = null;
@@ -396,13 +412,21 @@ public final class ForwardExtraction {
                 return first;
             }
         }
+        // a screened run may stop once settled at a sum of squares the factor-2 test below cannot be passed by
+        // (infinite: none may, when there is no global run to keep)
+        double stopAbove = first == null || !settleTrials ? Double.POSITIVE_INFINITY
+                : SCREEN_MARGIN * Math.max(refRss - refFloor, 0) / 2;
+        if (screened.screen != null && screened.screen.stoppedAt() < stopAbove) {
+            // a run of it stopped where this call's test could still take it: made again, as then, for this one
+            screened.screen = screenStarts(screened.trial, screened.free, reference, stopAbove);
+        }
         if (screened.screen == null) {
             if (firstCall && first != null && onlyRepeats(first, blocks, trial, free, reference)) {
                 // the screen would hold the trial start alone, refined as the global run already was (left unmade:
                 // a later call from another start makes it as then)
                 return first;
             }
-            screened.screen = screenStarts(screened.trial, screened.free, reference);
+            screened.screen = screenStarts(screened.trial, screened.free, reference, stopAbove);
         }
         Screen screen = screened.screen;
         if (screen.best() == null) {
@@ -595,7 +619,36 @@ public final class ForwardExtraction {
         private Screen screen;
     }
 
-    private record Screen(DiodeParameters best, double rss) {
+    /**
+     * The screen's best start and its sum of squares; {@code stoppedAt}: the least sum of squares at which one of its
+     * runs stopped once settled ({@link #screenRun}), infinite when none did.
+     */
+    private record Screen(DiodeParameters best, double rss, double stoppedAt) {
+    }
+
+    /**
+     * A screened run that has settled (an accepted step lowered its sum of squares by at most this share of it) at a
+     * sum of squares where the factor-2 test keeps the global run with room to spare stops there [1].
+     */
+    static final double SCREEN_SETTLED = 1e-4;
+    /**
+     * The room: a settled run stops only at a sum of squares at least this multiple of the one that would make the
+     * test take it, so that it would have to fall by a third more, at a pace of at most {@link #SCREEN_SETTLED} a
+     * step, to change the outcome [1].
+     */
+    static final double SCREEN_MARGIN = 1.5;
+
+    /**
+     * One screening run ({@link #SCREENING_TOLERANCE}), stopped once settled at a sum of squares of at least
+     * {@code stopAbove} ({@link TermTrial#run(List, DiodeParameters, List, java.util.function.Function, double, double,
+     * java.util.function.DoublePredicate)}, the optimiser's run step for step until then). Such a run cannot be the best
+     * start when the test takes one: that start's sum of squares lies below {@code stopAbove / SCREEN_MARGIN}.
+     */
+    private Optimiser.Run screenRun(List<ResidualBlock> one, DiodeParameters start, List<Param> local, double stopAbove) {
+        if (stopAbove == Double.POSITIVE_INFINITY) {
+            return Optimiser.run(one, start, local, this::bounds, SCREENING_TOLERANCE);
+        }
+        return TermTrial.run(one, start, local, this::bounds, SCREENING_TOLERANCE, SCREEN_SETTLED, rss -> rss >= stopAbove);
     }
 
     /** The parameters of the two exponential terms (and RS, which the regional lines share), as multi-started. */
@@ -605,7 +658,7 @@ public final class ForwardExtraction {
      * Refines every start of {@link #multiStart} on the reference sweep alone and returns the best, or null when
      * none converged.
      */
-    private Screen screenStarts(Map<Param, Double> trial, List<Param> free, List<FitPoint> reference) {
+    private Screen screenStarts(Map<Param, Double> trial, List<Param> free, List<FitPoint> reference, double stopAbove) {
         double tRef = reference.get(0).temperature();
         double tnom = settings.nominalTemperature();
         double eg = trial.getOrDefault(Param.EG, settings.kind().activationEnergy());
@@ -638,12 +691,22 @@ public final class ForwardExtraction {
         List<ResidualBlock> one = List.of(new ForwardBlock(reference, settings.options()));
         DiodeParameters best = null;
         double bestRss = Double.POSITIVE_INFINITY;
+        double stoppedAt = Double.POSITIVE_INFINITY;
         for (Map<Param, Double> s : starts) {
             if (!s.containsKey(Param.ISR) || !s.containsKey(Param.NR)) {
                 continue;
             }
             try {
-                Optimiser.Run r = Optimiser.run(one, Optimiser.parameters(s), local, this::bounds, SCREENING_TOLERANCE);
+                Optimiser.Run r = screenRun(one, Optimiser.parameters(s), local, stopAbove);
+                if (r.stopReason().startsWith(TermTrial.SETTLED_STOP)) {
+                    if (tradedPlaces(r.parameters(), local)) {
+                        // its terms traded places: the swapped refinement starts from the run's end, so the run
+                        // goes to that end, as without the stop
+                        r = Optimiser.run(one, Optimiser.parameters(s), local, this::bounds, SCREENING_TOLERANCE);
+                    } else {
+                        stoppedAt = Math.min(stoppedAt, r.rss());
+                    }
+                }
                 r = inOrder(r, one, local);
                 if (r.rss() < bestRss) {
                     bestRss = r.rss();
@@ -653,7 +716,7 @@ public final class ForwardExtraction {
                 // a start that does not converge is simply not a candidate
             }
         }
-        return new Screen(best, bestRss);
+        return new Screen(best, bestRss, stoppedAt);
     }
 
     /**
@@ -667,8 +730,7 @@ public final class ForwardExtraction {
      */
     private Optimiser.Run inOrder(Optimiser.Run r, List<ResidualBlock> one, List<Param> local) {
         DiodeParameters p = r.parameters();
-        if (!p.isGiven(Param.ISR) || !p.isGiven(Param.NR) || p.get(Param.NR) >= p.get(Param.N)
-                || !local.containsAll(List.of(Param.IS, Param.N, Param.ISR, Param.NR))) {
+        if (!tradedPlaces(p, local)) {
             return r;
         }
         DiodeParameters swapped = p.with(Param.IS, p.get(Param.ISR)).with(Param.ISR, p.get(Param.IS))
@@ -682,6 +744,12 @@ public final class ForwardExtraction {
             // the swapped start did not converge: the traded run stays
         }
         return r;
+    }
+
+    /** Whether {@link #inOrder} refines a screened run ending at {@code p} once more from the swapped values. */
+    private static boolean tradedPlaces(DiodeParameters p, List<Param> local) {
+        return p.isGiven(Param.ISR) && p.isGiven(Param.NR) && !(p.get(Param.NR) >= p.get(Param.N))
+                && local.containsAll(List.of(Param.IS, Param.N, Param.ISR, Param.NR));
     }
 
     private static void putIfFree(Map<Param, Double> start, List<Param> free, Param p, double value) {
