@@ -69,7 +69,17 @@ final class Optimiser {
      */
     static Run run(List<ResidualBlock> blocks, DiodeParameters start, List<Param> free,
                    Function<Param, double[]> bounds, double tolerance) {
-        return guarded(() -> unguarded(blocks, start, free, bounds, tolerance));
+        return guarded(() -> unguarded(blocks, start, free, bounds, tolerance, null));
+    }
+
+    /**
+     * The same, with a convergence checker that Commons Math asks after each accepted step besides its own tests
+     * (it changes no step, only where the run may stop; {@link TermTrial}); {@code null} for none.
+     */
+    static Run run(List<ResidualBlock> blocks, DiodeParameters start, List<Param> free,
+                   Function<Param, double[]> bounds, double tolerance,
+                   org.apache.commons.math3.optim.ConvergenceChecker<LeastSquaresProblem.Evaluation> checker) {
+        return guarded(() -> unguarded(blocks, start, free, bounds, tolerance, checker));
     }
 
     /**
@@ -100,7 +110,8 @@ final class Optimiser {
     }
 
     private static Run unguarded(List<ResidualBlock> blocks, DiodeParameters start, List<Param> free,
-                                 Function<Param, double[]> bounds, double tolerance) {
+                                 Function<Param, double[]> bounds, double tolerance,
+                                 org.apache.commons.math3.optim.ConvergenceChecker<LeastSquaresProblem.Evaluation> checker) {
         DiodeParameters clamped = clampedStart(start, free, bounds);
         FreeParameters layout = new FreeParameters(clamped, free, FreeParameters.boundsOf(free, bounds));
         JointProblem model = new JointProblem(blocks, layout);
@@ -117,6 +128,7 @@ final class Optimiser {
                 .maxEvaluations(MAX_EVALUATIONS)
                 .maxIterations(MAX_EVALUATIONS)
                 .lazyEvaluation(true)  // no Jacobian for a rejected step (JointProblem)
+                .checker(checker)
                 .build();
         LevenbergMarquardtOptimizer lm = new LevenbergMarquardtOptimizer()
                 .withCostRelativeTolerance(tolerance)

@@ -2,14 +2,7 @@ package org.cardwright.fit;
 
 import java.util.List;
 import java.util.function.Function;
-import org.apache.commons.math3.exception.ConvergenceException;
-import org.apache.commons.math3.exception.TooManyEvaluationsException;
-import org.apache.commons.math3.exception.TooManyIterationsException;
-import org.apache.commons.math3.fitting.leastsquares.LeastSquaresBuilder;
-import org.apache.commons.math3.fitting.leastsquares.LeastSquaresOptimizer;
 import org.apache.commons.math3.fitting.leastsquares.LeastSquaresProblem;
-import org.apache.commons.math3.fitting.leastsquares.LevenbergMarquardtOptimizer;
-import org.apache.commons.math3.linear.ArrayRealVector;
 import org.apache.commons.math3.optim.ConvergenceChecker;
 import org.cardwright.model.DiodeParameters;
 import org.cardwright.model.Param;
@@ -38,7 +31,6 @@ final class TermTrial {
      * has left to fall [1].
      */
     static final double MARGIN = 1;
-    private static final int MAX_EVALUATIONS = 4000;
     /** How the stop reason of a run the checker stopped begins. */
     static final String SETTLED_STOP = "settled:";
 
@@ -100,48 +92,13 @@ final class TermTrial {
     private static Optimiser.Run unguarded(List<ResidualBlock> blocks, DiodeParameters start, List<Param> free,
                                            Function<Param, double[]> bounds, double tolerance, double settledShare,
                                            java.util.function.DoublePredicate far) {
-        if (free.isEmpty()) {
-            return Optimiser.run(blocks, start, free, bounds, tolerance);
-        }
-        DiodeParameters clamped = Optimiser.clampedStart(start, free, bounds);
-        FreeParameters layout = new FreeParameters(clamped, free, FreeParameters.boundsOf(free, bounds));
-        JointProblem model = new JointProblem(blocks, layout);
-        double[] x0 = layout.toInternal(clamped);
         Settled settled = new Settled(settledShare, far);
-        LeastSquaresProblem problem = new LeastSquaresBuilder()
-                .model(model)
-                .target(new double[model.rows()])
-                .start(x0)
-                .parameterValidator(v -> new ArrayRealVector(layout.clamp(v.toArray()), false))
-                .maxEvaluations(MAX_EVALUATIONS)
-                .maxIterations(MAX_EVALUATIONS)
-                .lazyEvaluation(true)
-                .checker(settled)
-                .build();
-        LevenbergMarquardtOptimizer lm = new LevenbergMarquardtOptimizer()
-                .withCostRelativeTolerance(tolerance)
-                .withParameterRelativeTolerance(tolerance)
-                .withOrthoTolerance(tolerance);
-        double[] x;
-        int evals;
-        int iters;
-        try {
-            LeastSquaresOptimizer.Optimum opt = lm.optimize(problem);
-            x = layout.clamp(opt.getPoint().toArray());
-            evals = opt.getEvaluations();
-            iters = opt.getIterations();
-        } catch (TooManyEvaluationsException | TooManyIterationsException e) {
-            throw new FitFailedException("the fit did not converge within " + MAX_EVALUATIONS + " evaluations");
-        } catch (ConvergenceException e) {
-            throw new FitFailedException("the fit stopped: " + e.getMessage());
-        } catch (IllegalArgumentException | ArithmeticException e) {
-            throw new FitFailedException("the fit broke down: " + e.getMessage());
+        Optimiser.Run run = Optimiser.run(blocks, start, free, bounds, tolerance, settled);
+        if (!settled.stopped) {
+            return run;
         }
-        DiodeParameters result = layout.toParameters(x);
-        String stop = settled.stopped
-                ? SETTLED_STOP + " stopped once its sum of squares stopped moving, far from changing what is decided, after " + iters + " iterations"
-                : "converged: relative change of cost and parameters below "
-                        + String.format(java.util.Locale.ROOT, "%.0e", tolerance) + " after " + iters + " iterations";
-        return new Optimiser.Run(result, layout, x, model.chiSquare(result), evals, iters, stop);
+        return new Optimiser.Run(run.parameters(), run.layout(), run.x(), run.rss(), run.evaluations(),
+                run.iterations(), SETTLED_STOP + " stopped once its sum of squares stopped moving, far from changing what is"
+                        + " decided, after " + run.iterations() + " iterations");
     }
 }
