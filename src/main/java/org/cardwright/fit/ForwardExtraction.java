@@ -948,6 +948,17 @@ public final class ForwardExtraction {
      * current by a quarter), and the recombination current at least {@value #RECOMBINATION_SHARE} of the
      * current at the smallest measured point. Returns why not, or null when it does.
      */
+    /**
+     * Why ISR and NR are left out when recombination carries only {@code share} of the smallest measured current
+     * {@code current} [A]. A share rounded to a hair below 0 (the current without ISR a few ulps above the measured one)
+     * reads 0.0 %, not -0.0 %.
+     */
+    static String recombinationTooSmall(double share, double current) {
+        return String.format(Locale.ROOT,
+                "recombination would carry only %.1f %% of the smallest measured current (%s A): too little to determine ISR and NR",
+                Math.max(0.0, 100 * share), num(current));
+    }
+
     private String actsOutsideData(Term term, DiodeParameters p, List<FitPoint> points) {
         if (term == HIGH_INJECTION) {
             double top = points.stream().mapToDouble(FitPoint::current).max().orElseThrow();
@@ -974,9 +985,7 @@ public final class ForwardExtraction {
             double vd = DiodeSolver.junctionVoltageAtCurrent(d, low.current());
             double share = 1 - JunctionCurrent.current(without, vd) / low.current();
             if (share < RECOMBINATION_SHARE) {
-                return String.format(Locale.ROOT,
-                        "recombination would carry only %.1f %% of the smallest measured current (%s A): too little to determine ISR and NR",
-                        100 * share, num(low.current()));
+                return recombinationTooSmall(share, low.current());
             }
         }
         return null;
