@@ -25,78 +25,6 @@ public final class JunctionCurrent {
         return evaluate(d, vd, false);
     }
 
-    /**
-     * {@link #current}, taking its exponentials and grading factor from {@code memo} where an earlier evaluation at
-     * the same junction voltage computed them with the same arguments (the same doubles, so the same result to the
-     * bit). For many evaluations at one voltage with parameter sets that differ in a few values, as the finite
-     * differences of a Jacobian are.
-     *
-     * @param d    parameters at the device temperature
-     * @param vd   intrinsic junction voltage [V]
-     * @param memo what earlier evaluations computed; any state
-     */
-    public static double current(DiodeAtTemperature d, double vd, Memo memo) {
-        return evaluate(d, vd, false, null, memo);
-    }
-
-    /** {@link #conductance}, with {@link #current(DiodeAtTemperature, double, Memo)}'s reuse. */
-    public static double conductance(DiodeAtTemperature d, double vd, Memo memo) {
-        return evaluate(d, vd, true, null, memo);
-    }
-
-    /**
-     * Exponentials a forward evaluation computed, with their arguments: exp(vd/(N Vt)), exp(vd/(NR Vt)) and the
-     * recombination grading factor ((1 - vd/VJ)^2 + 0.005)^(M/2). Two of each: the first computed at the current
-     * junction voltage (the unmoved parameter set's, when that is evaluated first) and the last other one. Not
-     * thread-safe; one per loop.
-     */
-    public static final class Memo {
-        private final Entry[] entries = {new Entry(), new Entry(), new Entry(), new Entry(), new Entry(), new Entry()};
-
-        double exp(double vd, double vte) {
-            Entry hit = find(0, vd, vte, 0);
-            return hit != null ? hit.value : keep(0, vd, vte, 0, Math.exp(vd / vte));
-        }
-
-        double expRecombination(double vd, double vtr) {
-            Entry hit = find(2, vd, vtr, 0);
-            return hit != null ? hit.value : keep(2, vd, vtr, 0, Math.exp(vd / vtr));
-        }
-
-        double grading(double vd, double vj, double mHalf, double t) {
-            Entry hit = find(4, vd, vj, mHalf);
-            return hit != null ? hit.value : keep(4, vd, vj, mHalf, gradingFactor(t, mHalf));
-        }
-
-        private Entry find(int kind, double vd, double a, double b) {
-            Entry first = entries[kind];
-            if (first.vd == vd && first.a == a && first.b == b) {
-                return first;
-            }
-            Entry other = entries[kind + 1];
-            return other.vd == vd && other.a == a && other.b == b ? other : null;
-        }
-
-        private double keep(int kind, double vd, double a, double b, double value) {
-            Entry e = entries[kind].vd != vd ? entries[kind] : entries[kind + 1];
-            if (e == entries[kind]) {
-                entries[kind + 1].vd = Double.NaN;
-            }
-            e.vd = vd;
-            e.a = a;
-            e.b = b;
-            e.value = value;
-            return value;
-        }
-
-        private static final class Entry {
-            private double vd = Double.NaN;
-            private double a = Double.NaN;
-            private double b = Double.NaN;
-            private double value;
-        }
-    }
-
     private static double gradingFactor(double t, double mHalf) {
         return mHalf == 0.25 ? Math.sqrt(Math.sqrt(t)) : Math.pow(t, mHalf);
     }
@@ -193,22 +121,17 @@ public final class JunctionCurrent {
     }
 
     private static double evaluate(DiodeAtTemperature d, double vd, boolean wantConductance) {
-        return evaluate(d, vd, wantConductance, null, null);
+        return evaluate(d, vd, wantConductance, null);
     }
 
     private static double evaluate(DiodeAtTemperature d, double vd, boolean wantConductance, double[] both) {
-        return evaluate(d, vd, wantConductance, both, null);
-    }
-
-    private static double evaluate(DiodeAtTemperature d, double vd, boolean wantConductance, double[] both,
-                                   Memo memo) {
         double is = d.saturationCurrent();
         double vt = d.thermalVoltage();
         double vte = d.emissionCoefficient() * vt;
         double i;
         double g;
         if (vd >= -3 * vte || !d.flavour().spiceReverse()) {
-            double e = memo == null ? Math.exp(vd / vte) : memo.exp(vd, vte);
+            double e = Math.exp(vd / vte);
             i = is * (e - 1);
             g = is * e / vte;
             if (d.flavour().xyceKnee()) {
@@ -216,11 +139,11 @@ public final class JunctionCurrent {
             }
             if (d.hasRecombination()) {
                 double vtr = d.recombinationEmission() * vt;
-                double er = memo == null ? Math.exp(vd / vtr) : memo.expRecombination(vd, vtr);
+                double er = Math.exp(vd / vtr);
                 double u = 1 - vd / d.junctionPotential();
                 double mHalf = d.gradingCoefficient() / 2;
                 double t = u * u + 0.005;
-                double f = memo == null ? gradingFactor(t, mHalf) : memo.grading(vd, d.junctionPotential(), mHalf, t);
+                double f = gradingFactor(t, mHalf);
                 double irec = d.recombinationCurrent() * (er - 1);
                 i += irec * f;
                 if (wantConductance) {

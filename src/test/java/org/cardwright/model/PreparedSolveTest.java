@@ -14,8 +14,8 @@ import org.junit.jupiter.api.Test;
  * The shortcuts the fit's residual blocks take through {@link DiodeSolver} give the same doubles as the plain solve,
  * to the bit: a measured current prepared once ({@link DiodeSolver.ForcedCurrent}) and the reverse solve's bracket
  * end found from the breakdown law's guess instead of by doubling from -1 mV. The cards the fit writes must not move
- * by a bit because of them, so the checks are exact equality of the bits (an internal invariant, like
- * {@link JunctionCurrentMemoTest}); the solve itself is checked against the equations it inverts in
+ * by a bit because of them, so the checks are exact equality of the bits (an internal invariant, as
+ * JunctionPartialsTest checks the partials' current); the solve itself is checked against the equations it inverts in
  * {@link JunctionSolveTest} and against ngspice elsewhere. A seeded family: forward, reverse and breakdown currents,
  * with and without recombination, high injection, reverse knee and breakdown, -55 to 150 degC, every flavour.
  */
