@@ -5,12 +5,10 @@ import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
-import java.util.Comparator;
 import java.util.List;
 import java.util.Locale;
 import java.util.Optional;
 import java.util.stream.Collectors;
-import java.util.stream.Stream;
 import org.cardwright.card.ShuntedCard;
 import org.cardwright.card.CardWriter;
 import org.cardwright.card.Dialect;
@@ -123,52 +121,63 @@ final class PartFitter {
             throws DeviceFileException, LibraryInputException, FitInputException, OutputException, IOException {
         List<ParameterRule> rules = new ArrayList<>(part.rules());
         rules.addAll(extraRules);
-        Path scratch = Files.createTempDirectory("cardwright-fit-");
-        try {
-            StagedInputs inputs = StagedInputs.of(part, root);
-            if (inputs.paths().isEmpty()) {
-                throw new DeviceFileException(part.path(), part.data().get(0).line(),
-                        "no data file of a kind this version fits (forward, reverse, cv, recovery, bench-log)");
-            }
-            FitRequest request = new FitRequest(inputs.paths(), part.model(), part.dialects(), scratch, Optional.empty(),
-                    inputs.temperature(), part.kind(), rules, part.digits(), true, templates(part))
-                    .withConditions(inputs.conditions());
-            FitOutcome outcome;
-            try {
-                // the fit job's own cards are not written: the library's are rendered below
-                outcome = new FitWorkflow().prepare(request);
-            } catch (DataFileException e) {
-                throw new LibraryInputException(inputs.displayName(e.getMessage()), e);
-            } catch (FitInputException e) {
-                throw new FitInputException(inputs.displayName(e.getMessage()));
-            }
-            checkKinds(part, outcome);
-            // the fit read every kind with the conditions a verify of the part reads them with: each card is checked
-            // against the same inputs, not read again
-            Read read = new Read(inputs, outcome.inputs());
-            List<Card> cards = new ArrayList<>();
-            for (FitOutcome.WrittenCard w : outcome.cards()) {
-                FitResult forCard = w.refit().orElse(outcome.fit());
-                List<String> lines = new ArrayList<>(extraLines);
-                lines.addAll(FitWorkflow.introducedTerms(outcome.fit(), forCard, w.dialect()));
-                if (w.shunted().isPresent()) {
-                    // the plain card is the junction alone; its header says so and what that costs, as fit's does
-                    w.text().lines().filter(l -> l.startsWith("* junction alone: ")).map(l -> l.substring(2)).forEach(lines::add);
-                }
-                Card plain = checkedRender(part, read, recipe, part.rules(), w.dialect(), forCard.parameters(),
-                        outcome.fit().points(), Residual.of(forCard), w.leftOut(),
-                        w.leftOut().isEmpty() ? "" : forCard.costAgainst(outcome.fit()), lines);
-                cards.add(plain);
-                if (w.shunted().isPresent() && forCard.shunt().isPresent()) {
-                    cards.add(shunted(part, plain, forCard.shunt().get()));
-                }
-            }
-            List<String> notes = outcome.inputs().notes().stream().map(inputs::displayName).toList();
-            List<String> warnings = outcome.fit().warnings().stream().map(inputs::displayName).toList();
-            return new Fitted(List.copyOf(cards), outcome.fit(), outcome.fit().points(), notes, warnings);
-        } finally {
-            deleteTree(scratch);
+        Path scratch = scratchFolder();
+        StagedInputs inputs = StagedInputs.of(part, root);
+        if (inputs.paths().isEmpty()) {
+            throw new DeviceFileException(part.path(), part.data().get(0).line(),
+                    "no data file of a kind this version fits (forward, reverse, cv, recovery, bench-log)");
         }
+        FitRequest request = new FitRequest(inputs.paths(), part.model(), part.dialects(), scratch, Optional.empty(),
+                inputs.temperature(), part.kind(), rules, part.digits(), true, templates(part))
+                .withConditions(inputs.conditions());
+        FitOutcome outcome;
+        try {
+            // the fit job's own cards are not written: the library's are rendered below
+            outcome = new FitWorkflow().prepare(request);
+        } catch (DataFileException e) {
+            throw new LibraryInputException(inputs.displayName(e.getMessage()), e);
+        } catch (FitInputException e) {
+            throw new FitInputException(inputs.displayName(e.getMessage()));
+        }
+        checkKinds(part, outcome);
+        // the fit read every kind with the conditions a verify of the part reads them with: each card is checked
+        // against the same inputs, not read again
+        Read read = new Read(inputs, outcome.inputs());
+        List<Card> cards = new ArrayList<>();
+        for (FitOutcome.WrittenCard w : outcome.cards()) {
+            FitResult forCard = w.refit().orElse(outcome.fit());
+            List<String> lines = new ArrayList<>(extraLines);
+            lines.addAll(FitWorkflow.introducedTerms(outcome.fit(), forCard, w.dialect()));
+            if (w.shunted().isPresent()) {
+                // the plain card is the junction alone; its header says so and what that costs, as fit's does
+                w.text().lines().filter(l -> l.startsWith("* junction alone: ")).map(l -> l.substring(2)).forEach(lines::add);
+            }
+            Card plain = checkedRender(part, read, recipe, part.rules(), w.dialect(), forCard.parameters(),
+                    outcome.fit().points(), Residual.of(forCard), w.leftOut(),
+                    w.leftOut().isEmpty() ? "" : forCard.costAgainst(outcome.fit()), lines);
+            cards.add(plain);
+            if (w.shunted().isPresent() && forCard.shunt().isPresent()) {
+                cards.add(shunted(part, plain, forCard.shunt().get()));
+            }
+        }
+        List<String> notes = outcome.inputs().notes().stream().map(inputs::displayName).toList();
+        List<String> warnings = outcome.fit().warnings().stream().map(inputs::displayName).toList();
+        return new Fitted(List.copyOf(cards), outcome.fit(), outcome.fit().points(), notes, warnings);
+    }
+
+    private static Path scratch;
+
+    /**
+     * The folder the fit job's request names as its output folder: the job writes nothing there (the library renders
+     * and writes its own cards), the folder only gives the request a place, so one empty owner-only folder serves
+     * every part of a run (made once, removed when the JVM exits) instead of one made, walked and removed per part.
+     */
+    private static synchronized Path scratchFolder() throws IOException {
+        if (scratch == null || !Files.isDirectory(scratch)) {
+            scratch = Files.createTempDirectory("cardwright-fit-");
+            scratch.toFile().deleteOnExit();
+        }
+        return scratch;
     }
 
     /** Renders one card of {@code part} with its provenance (no check of every data kind in its header). */
@@ -322,15 +331,5 @@ final class PartFitter {
 
     static String mv(double volts) {
         return String.format(Locale.ROOT, "%.3f", volts * 1e3);
-    }
-
-    static void deleteTree(Path dir) {
-        try (Stream<Path> walk = Files.walk(dir)) {
-            for (Path p : walk.sorted(Comparator.reverseOrder()).toList()) {
-                Files.deleteIfExists(p);
-            }
-        } catch (IOException e) {
-            // a leftover temporary folder is harmless
-        }
     }
 }
