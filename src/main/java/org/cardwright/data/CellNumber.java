@@ -71,6 +71,14 @@ final class CellNumber {
                 throw new CellProblem("number out of range");
             }
         }
+        return byPattern(t, decimalComma);
+    }
+
+    /**
+     * {@link #parse}'s reading of a stripped, non-empty cell of at most {@link #MAX_NUMBER_CHARS} characters by its
+     * pattern: every cell that is not a plain decimal, and the reference the plain path is held to (CellNumberPlainTest).
+     */
+    static Reading byPattern(String t, boolean decimalComma) throws CellProblem {
         Matcher m = NUMBER_AND_SUFFIX.matcher(t);
         if (!m.matches()) {
             DecimalText.parse(t); // throws the reason: not a finite number, or not a number
