@@ -214,7 +214,7 @@ class AnalyticJacobianTest {
     }
 
     /** The block's residuals with the interface's default Jacobian: central differences that solve again. */
-    private static ResidualBlock residualDifferences(ResidualBlock block) {
+    static ResidualBlock residualDifferences(ResidualBlock block) {
         return new ResidualBlock() {
             @Override
             public String label() {

@@ -6,7 +6,6 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
-import java.util.Set;
 import org.cardwright.model.DiodeParameters;
 import org.cardwright.model.Param;
 import org.cardwright.model.SimulatorOptions;
@@ -45,27 +44,8 @@ class ForwardBlockSelfHeatingTest {
         FreeParameters layout = new FreeParameters(p, free, bounds);
         double[] x = layout.toInternal(p);
         double[][] analytic = block.jacobian(layout, x);
-        ResidualBlock differences = new ResidualBlock() {
-            @Override
-            public String label() {
-                return block.label();
-            }
-
-            @Override
-            public int size() {
-                return block.size();
-            }
-
-            @Override
-            public Set<Param> dependsOn() {
-                return block.dependsOn();
-            }
-
-            @Override
-            public double[] residuals(DiodeParameters q) {
-                return block.residuals(q);
-            }
-        };
+        // the interface's default Jacobian: central differences of the residuals, solving again
+        ResidualBlock differences = AnalyticJacobianTest.residualDifferences(block);
         double[][] numeric = differences.jacobian(layout, x);
         for (int j = 0; j < free.size(); j++) {
             double largest = 0;
