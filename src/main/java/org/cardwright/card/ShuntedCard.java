@@ -99,7 +99,10 @@ public final class ShuntedCard {
 
     /** True when the first statement of {@code text} is a {@code .subckt}: a subcircuit card, for {@link #read}. */
     public static boolean isSubcircuit(String text, String source) {
-        List<Statement> st = CardText.split(text, source).statements();
+        return startsWithSubcircuit(CardText.split(text, source).statements());
+    }
+
+    private static boolean startsWithSubcircuit(List<Statement> st) {
         return !st.isEmpty() && st.get(0).tokens().get(0).text().equalsIgnoreCase(SUBCKT);
     }
 
@@ -145,8 +148,7 @@ public final class ShuntedCard {
         Objects.requireNonNull(source, "sourceName");
         Objects.requireNonNull(dialect, "dialect");
         CardText.Layout layout = CardText.split(text, source);
-        List<Statement> st = layout.statements();
-        if (!st.isEmpty() && st.get(0).tokens().get(0).text().equalsIgnoreCase(SUBCKT)) {
+        if (startsWithSubcircuit(layout.statements())) {
             Read sub = read(text, layout, source, dialect);
             return new Either(sub.card(), Optional.of(sub));
         }

@@ -113,9 +113,7 @@ final class VerifyCommand implements Callable<Integer> {
         String source = Inputs.displayName(card);
         String text = org.cardwright.card.CardReader.readText(card, source);
         Dialect d = dialectOf(card, dialect);
-        var parsed = org.cardwright.card.ShuntedCard.isSubcircuit(text, source)
-                ? org.cardwright.card.ShuntedCard.read(text, source, d).card()
-                : new org.cardwright.card.CardReader().parse(text, source, d, Optional.ofNullable(model));
+        var parsed = org.cardwright.card.ShuntedCard.readEither(text, source, d, Optional.ofNullable(model)).card();
         return new org.cardwright.report.PageFacts(
                 org.cardwright.report.PageFacts.command("cardwright", spec.commandLine().getParseResult().originalArgs()),
                 org.cardwright.report.PageFacts.hash(data), org.cardwright.report.PageFacts.parametersOf(parsed.parameters()));

@@ -213,11 +213,8 @@ public final class CompareWorkflow {
     private static Read read(Path file, Dialect d, Optional<String> model) throws IOException {
         String source = file.toString();
         String text = CardReader.readText(file, source);
-        if (!ShuntedCard.isSubcircuit(text, source)) {
-            return new Read(new CardReader().parse(text, source, d, model), Double.POSITIVE_INFINITY);
-        }
-        ShuntedCard.Read r = ShuntedCard.read(text, source, d);
-        return new Read(r.card(), r.shuntResistance());
+        ShuntedCard.Either either = ShuntedCard.readEither(text, source, d, model);
+        return new Read(either.card(), either.subcircuit().map(ShuntedCard.Read::shuntResistance).orElse(Double.POSITIVE_INFINITY));
     }
 
     private static VerifyRequest verifyRequest(CompareRequest request, Path card, Optional<String> model, Dialect d) {
