@@ -943,12 +943,6 @@ public final class ForwardExtraction {
     }
 
     /**
-     * A term must act where the data are, or the data cannot be said to determine it: the high-injection knee
-     * no more than {@value #KNEE_REACH} times above the largest measured current (there it still lowers that
-     * current by a quarter), and the recombination current at least {@value #RECOMBINATION_SHARE} of the
-     * current at the smallest measured point. Returns why not, or null when it does.
-     */
-    /**
      * Why ISR and NR are left out when recombination carries only {@code share} of the smallest measured current
      * {@code current} [A]. A share rounded to a hair below 0 (the current without ISR a few ulps above the measured one)
      * reads 0.0 %, not -0.0 %.
@@ -959,6 +953,12 @@ public final class ForwardExtraction {
                 Math.max(0.0, 100 * share), num(current));
     }
 
+    /**
+     * A term must act where the data are, or the data cannot be said to determine it: the high-injection knee
+     * no more than {@value #KNEE_REACH} times above the largest measured current (there it still lowers that
+     * current by a quarter), and the recombination current at least {@value #RECOMBINATION_SHARE} of the
+     * current at the smallest measured point. Returns why not, or null when it does.
+     */
     private String actsOutsideData(Term term, DiodeParameters p, List<FitPoint> points) {
         if (term == HIGH_INJECTION) {
             double top = points.stream().mapToDouble(FitPoint::current).max().orElseThrow();
